@@ -1,0 +1,71 @@
+import { randomBytes } from 'node:crypto';
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { join, resolve } from 'node:path';
+import { z } from 'zod';
+
+const envSchema = z.object({
+  PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+  BUSBAR_DATA_DIR: z.string().min(1).default('db/data'),
+  PUBLIC_URL: z.url().optional(),
+  SESSION_SECRET: z.string().min(32).optional(),
+  SMTP_URL: z.url().optional(),
+  SMTP_CAPTURE_PORT: z.coerce.number().int().min(0).max(65535).default(2525),
+  MAIL_FROM: z.string().min(3).default('Busbar <no-reply@busbar.test>'),
+  TRUST_PROXY: z.enum(['true', 'false']).default('false'),
+  DEMO_DATA: z.enum(['true', 'false']).default('true'),
+});
+
+export interface Config {
+  port: number;
+  dataDir: string;
+  databaseFile: string;
+  publicUrl: string;
+  sessionSecret: string;
+  /** SMTP server to send through; when absent, start-up runs a local capture server. */
+  smtpUrl: string | null;
+  smtpCapturePort: number;
+  mailFrom: string;
+  trustProxy: boolean;
+  demoData: boolean;
+  /** log2 of scrypt's cost N; 17 is OWASP's recommended minimum for scrypt. */
+  scryptLogN: number;
+  inviteTtlHours: number;
+  signInLimit: { windowMs: number; perAccount: number; perAddress: number };
+  /** Built web app to serve, or null to serve only the API. */
+  webDist: string | null;
+}
+
+/** A secret kept in the data folder, so sessions outlive a restart without any set-up. */
+function storedSecret(dataDir: string): string {
+  const file = join(dataDir, 'session-secret');
+  if (existsSync(file)) return readFileSync(file, 'utf8').trim();
+  mkdirSync(dataDir, { recursive: true });
+  const secret = randomBytes(32).toString('base64url');
+  writeFileSync(file, secret, { mode: 0o600 });
+  return secret;
+}
+
+/** Reads and checks the environment once at start-up; every setting has a default that runs locally. */
+export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
+  const parsed = envSchema.safeParse(env);
+  if (!parsed.success) throw new Error(`Bad environment: ${z.prettifyError(parsed.error)}`);
+  const e = parsed.data;
+  const dataDir = resolve(e.BUSBAR_DATA_DIR);
+  const webDist = resolve('dist/web');
+  return {
+    port: e.PORT,
+    dataDir,
+    databaseFile: join(dataDir, 'busbar.sqlite'),
+    publicUrl: e.PUBLIC_URL ?? `http://localhost:${e.PORT}`,
+    sessionSecret: e.SESSION_SECRET ?? storedSecret(dataDir),
+    smtpUrl: e.SMTP_URL ?? null,
+    smtpCapturePort: e.SMTP_CAPTURE_PORT,
+    mailFrom: e.MAIL_FROM,
+    trustProxy: e.TRUST_PROXY === 'true',
+    demoData: e.DEMO_DATA === 'true',
+    scryptLogN: 17,
+    inviteTtlHours: 72,
+    signInLimit: { windowMs: 15 * 60 * 1000, perAccount: 10, perAddress: 100 },
+    webDist: existsSync(join(webDist, 'index.html')) ? webDist : null,
+  };
+}

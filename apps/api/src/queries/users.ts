@@ -1,0 +1,66 @@
+import type { Db } from '@busbar/db';
+import type { PersonStatus } from '@busbar/shared';
+
+export interface UserRow {
+  id: number;
+  email: string;
+  name: string;
+  status: PersonStatus;
+  lastSignInAt: string | null;
+}
+
+const USER_COLUMNS = ['id', 'email', 'name', 'status', 'lastSignInAt'] as const;
+
+export function findUser(db: Db, id: number): Promise<UserRow | undefined> {
+  return db.selectFrom('users').select(USER_COLUMNS).where('id', '=', id).executeTakeFirst();
+}
+
+export function findUserForSignIn(db: Db, email: string) {
+  return db.selectFrom('users').select(['id', 'status', 'passwordHash']).where('email', '=', email).executeTakeFirst();
+}
+
+export async function emailTaken(db: Db, email: string): Promise<boolean> {
+  return !!(await db.selectFrom('users').select('id').where('email', '=', email).executeTakeFirst());
+}
+
+/** People matching a status and a text search, by name; visibility is decided by the caller. */
+export function searchUsers(db: Db, filter: { status: PersonStatus | 'all'; q?: string | undefined }): Promise<UserRow[]> {
+  let query = db.selectFrom('users').select(USER_COLUMNS);
+  if (filter.status !== 'all') query = query.where('status', '=', filter.status);
+  if (filter.q) {
+    const like = `%${filter.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+    query = query.where((eb) => eb.or([eb('name', 'like', like), eb('email', 'like', like)]));
+  }
+  return query.orderBy('name').orderBy('id').execute();
+}
+
+export async function hasPassword(db: Db, id: number): Promise<boolean> {
+  const row = await db.selectFrom('users').select('passwordHash').where('id', '=', id).executeTakeFirst();
+  return !!row?.passwordHash;
+}
+
+export async function insertInvitedUser(db: Db, values: { email: string; name: string; createdAt: string }): Promise<number> {
+  const row = await db
+    .insertInto('users')
+    .values({ ...values, status: 'invited', passwordHash: null })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  return row.id;
+}
+
+export async function setUserStatus(db: Db, id: number, status: PersonStatus): Promise<void> {
+  await db.updateTable('users').set({ status }).where('id', '=', id).execute();
+}
+
+export async function activateWithPassword(db: Db, id: number, passwordHash: string): Promise<void> {
+  await db.updateTable('users').set({ passwordHash, status: 'active' }).where('id', '=', id).execute();
+}
+
+export async function recordSignIn(db: Db, id: number, at: string): Promise<void> {
+  await db.updateTable('users').set({ lastSignInAt: at }).where('id', '=', id).execute();
+}
+
+/** Ends every open session of a person (deactivation). */
+export async function endSessionsOf(db: Db, userId: number): Promise<void> {
+  await db.deleteFrom('sessions').where('userId', '=', userId).execute();
+}

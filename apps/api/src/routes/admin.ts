@@ -1,0 +1,49 @@
+import { subject } from '@casl/ability';
+import { auditQuery, outboxQuery, type AppAbility, type Subject } from '@busbar/shared';
+import { Router, type Request } from 'express';
+import type { AppContext } from '../context.ts';
+import { forbidden } from '../errors.ts';
+import { viewerOf } from '../middleware/session.ts';
+import { validate } from '../middleware/validate.ts';
+import { listAudit } from '../queries/audit.ts';
+import { listLocations, listRegions } from '../queries/locations.ts';
+import { listMail } from '../queries/mail.ts';
+
+function authorize(req: Request, action: 'read', on: Subject): AppAbility {
+  const { ability } = viewerOf(req);
+  if (!ability.can(action, on)) throw forbidden();
+  return ability;
+}
+
+/** Regions and locations the person may see; the audit log and the outbox for the owner. */
+export function adminRouter({ db }: AppContext): Router {
+  const router = Router();
+
+  router.get('/regions', async (req, res) => {
+    const { ability } = viewerOf(req);
+    res.json((await listRegions(db)).filter((r) => ability.can('read', subject('Region', { ...r }))));
+  });
+
+  router.get('/locations', async (req, res) => {
+    const { ability } = viewerOf(req);
+    res.json((await listLocations(db)).filter((l) => ability.can('read', subject('Location', { ...l }))));
+  });
+
+  router.get(
+    '/audit',
+    validate({ query: auditQuery }, async ({ query }, req, res) => {
+      authorize(req, 'read', 'AuditLog');
+      res.json(await listAudit(db, query));
+    }),
+  );
+
+  router.get(
+    '/outbox',
+    validate({ query: outboxQuery }, async ({ query }, req, res) => {
+      authorize(req, 'read', 'Mail');
+      res.json(await listMail(db, query.page, query.pageSize));
+    }),
+  );
+
+  return router;
+}

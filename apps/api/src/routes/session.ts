@@ -1,0 +1,63 @@
+import { signInBody, type SessionView } from '@busbar/shared';
+import { Router, type Request, type Response } from 'express';
+import { loadViewer } from '../access/viewer.ts';
+import { verifyPassword } from '../auth/password.ts';
+import type { AppContext } from '../context.ts';
+import { HttpError } from '../errors.ts';
+import { signInLimits } from '../middleware/rate-limit.ts';
+import { requireSession, viewerOf } from '../middleware/session.ts';
+import { validate } from '../middleware/validate.ts';
+import { findUserForSignIn, recordSignIn } from '../queries/users.ts';
+
+export const SESSION_COOKIE = 'busbar.sid';
+
+/** Compared against when the e-mail is unknown, so both failures take the same time. */
+const UNKNOWN_USER_HASH = 'scrypt$17$8$1$AAAAAAAAAAAAAAAAAAAAAA$AAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAA';
+
+/** Starts a fresh session (a new id, against session fixation) for a person and answers their view. */
+export async function signIn({ db, now }: AppContext, req: Request, res: Response, userId: number): Promise<void> {
+  await new Promise<void>((resolve, reject) => req.session.regenerate((err) => (err ? reject(err) : resolve())));
+  req.session.userId = userId;
+  await new Promise<void>((resolve, reject) => req.session.save((err) => (err ? reject(err) : resolve())));
+  await recordSignIn(db, userId, now().toISOString());
+  const viewer = await loadViewer(db, userId);
+  if (!viewer) throw new HttpError(401, 'unauthenticated', 'Please sign in');
+  res.json(sessionView(viewer));
+}
+
+function sessionView(viewer: NonNullable<Awaited<ReturnType<typeof loadViewer>>>): SessionView {
+  return { person: { id: viewer.id, email: viewer.email, name: viewer.name }, assignments: viewer.assignments, rules: viewer.rules };
+}
+
+/** Sign-in, the current session, sign-out. */
+export function sessionRouter(ctx: AppContext): Router {
+  const router = Router();
+
+  router.get('/', requireSession(ctx.db), (req, res) => {
+    res.json(sessionView(viewerOf(req)));
+  });
+
+  router.post(
+    '/',
+    ...signInLimits(ctx.config.signInLimit),
+    validate({ body: signInBody }, async ({ body }, req, res) => {
+      const user = await findUserForSignIn(ctx.db, body.email);
+      const matches = await verifyPassword(body.password, user?.passwordHash ?? UNKNOWN_USER_HASH);
+      // One message for every failure, so the answer does not tell which e-mails have accounts.
+      if (!user || !matches || user.status !== 'active') {
+        throw new HttpError(401, 'invalid_credentials', 'That e-mail and password do not match an active account');
+      }
+      await signIn(ctx, req, res, user.id);
+    }),
+  );
+
+  router.delete('/', (req, res, next) => {
+    req.session.destroy((err) => {
+      if (err) return next(err);
+      res.clearCookie(SESSION_COOKIE, { path: '/' });
+      res.status(204).end();
+    });
+  });
+
+  return router;
+}

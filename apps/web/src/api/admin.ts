@@ -1,0 +1,18 @@
+import type { AuditEntry, HealthView, LocationView, MailEntry, Page, RegionView } from '@busbar/shared';
+import { request } from './client.ts';
+
+export interface PageRequest {
+  page?: number;
+  pageSize?: number;
+}
+
+export const getHealth = () => request<HealthView>('/health');
+
+export const listRegions = () => request<RegionView[]>('/regions');
+
+export const listLocations = () => request<LocationView[]>('/locations');
+
+export const listAudit = (query: PageRequest & { entity?: string }) =>
+  request<Page<AuditEntry>>('/audit', { query: { ...query } });
+
+export const listOutbox = (query: PageRequest) => request<Page<MailEntry>>('/outbox', { query: { ...query } });

@@ -1,0 +1,94 @@
+import type { Page } from '@busbar/shared';
+import type { TablePaginationConfig } from 'ant-design-vue';
+import { computed, ref, shallowRef, watch } from 'vue';
+import { useRoute, useRouter, type LocationQuery, type LocationQueryRaw } from 'vue-router';
+import { messageOf } from '@/api/client.ts';
+
+const DEFAULT_PAGE_SIZE = 50;
+
+/** A positive whole number read from the address bar, or undefined. */
+export function positiveInt(value: unknown): number | undefined {
+  const n = typeof value === 'string' ? Number(value) : NaN;
+  return Number.isInteger(n) && n > 0 ? n : undefined;
+}
+
+interface Paging {
+  page: number;
+  pageSize: number;
+}
+
+/**
+ * One server-paginated list whose filters and page live in the address bar, so a view can be
+ * reloaded, bookmarked and shared. Answers that arrive after a newer request are dropped.
+ */
+export function usePagedList<T, Filters extends object>(
+  readFilters: (query: LocationQuery) => Filters,
+  fetchPage: (request: Filters & Paging) => Promise<Page<T>>,
+) {
+  const route = useRoute();
+  const router = useRouter();
+  const routeName = route.name;
+
+  const request = computed(() => ({
+    ...readFilters(route.query),
+    page: positiveInt(route.query.page) ?? 1,
+    pageSize: positiveInt(route.query.pageSize) ?? DEFAULT_PAGE_SIZE,
+  }));
+  const result = shallowRef<Page<T> | null>(null);
+  const loading = ref(false);
+  const error = ref<string | null>(null);
+  let latest = 0;
+
+  async function load() {
+    const ticket = ++latest;
+    loading.value = true;
+    error.value = null;
+    try {
+      const page = await fetchPage(request.value);
+      if (ticket === latest) result.value = page;
+    } catch (failure) {
+      if (ticket === latest) error.value = messageOf(failure);
+    } finally {
+      if (ticket === latest) loading.value = false;
+    }
+  }
+
+  watch(
+    () => JSON.stringify(request.value),
+    () => {
+      if (route.name === routeName) void load();
+    },
+    { immediate: true },
+  );
+
+  function replaceQuery(query: LocationQueryRaw) {
+    for (const [key, value] of Object.entries(query)) if (value === undefined || value === '') delete query[key];
+    void router.replace({ query });
+  }
+
+  /** Changes filters in the address bar; any filter change goes back to the first page. */
+  function setFilters(changes: Partial<Record<keyof Filters, string | number | undefined>>) {
+    replaceQuery({ ...route.query, ...changes, page: undefined });
+  }
+
+  function onTableChange(pagination: TablePaginationConfig) {
+    const pageSize = pagination.pageSize ?? DEFAULT_PAGE_SIZE;
+    const page = pageSize === request.value.pageSize ? (pagination.current ?? 1) : 1;
+    replaceQuery({
+      ...route.query,
+      page: page > 1 ? page : undefined,
+      pageSize: pageSize === DEFAULT_PAGE_SIZE ? undefined : pageSize,
+    });
+  }
+
+  const pagination = computed<TablePaginationConfig>(() => ({
+    current: request.value.page,
+    pageSize: request.value.pageSize,
+    total: result.value?.total ?? 0,
+    showSizeChanger: true,
+    pageSizeOptions: ['25', '50', '100', '200'],
+    showTotal: (total: number, [from, to]: [number, number]) => `${from}–${to} of ${total}`,
+  }));
+
+  return { request, result, loading, error, load, setFilters, onTableChange, pagination };
+}

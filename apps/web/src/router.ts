@@ -1,0 +1,90 @@
+import type { Action, Subject } from '@busbar/shared';
+import { createRouter, createWebHistory, type RouteLocationNormalized } from 'vue-router';
+import { ability, useSessionStore } from './stores/session.ts';
+
+declare module 'vue-router' {
+  interface RouteMeta {
+    /** Open without signing in. */
+    public?: true;
+    /** What the person must be able to do to open the page. */
+    action?: Action;
+    subject?: Subject;
+    title?: string;
+  }
+}
+
+export const router = createRouter({
+  history: createWebHistory(),
+  routes: [
+    { path: '/sign-in', name: 'sign-in', component: () => import('./views/SignIn.vue'), meta: { public: true, title: 'Sign in' } },
+    {
+      path: '/set-password',
+      name: 'set-password',
+      component: () => import('./views/SetPassword.vue'),
+      meta: { public: true, title: 'Set your password' },
+    },
+    {
+      path: '/',
+      component: () => import('./layout/AppLayout.vue'),
+      children: [
+        { path: '', name: 'overview', component: () => import('./views/Overview.vue'), meta: { title: 'Overview' } },
+        {
+          path: 'staff',
+          name: 'staff',
+          component: () => import('./views/staff/StaffList.vue'),
+          meta: { action: 'read', subject: 'RoleAssignment', title: 'Staff' },
+        },
+        {
+          path: 'staff/:id(\\d+)',
+          name: 'staff-person',
+          component: () => import('./views/staff/StaffDetail.vue'),
+          props: (route) => ({ id: Number(route.params.id) }),
+          meta: { action: 'read', subject: 'RoleAssignment', title: 'Staff' },
+        },
+        {
+          path: 'outbox',
+          name: 'outbox',
+          component: () => import('./views/outbox/OutboxList.vue'),
+          meta: { action: 'read', subject: 'Mail', title: 'Outbox' },
+        },
+        {
+          path: 'audit',
+          name: 'audit',
+          component: () => import('./views/audit/AuditList.vue'),
+          meta: { action: 'read', subject: 'AuditLog', title: 'Audit log' },
+        },
+        { path: 'forbidden', name: 'forbidden', component: () => import('./views/Forbidden.vue'), meta: { title: 'No access' } },
+      ],
+    },
+    {
+      path: '/:pathMatch(.*)*',
+      name: 'not-found',
+      component: () => import('./views/NotFound.vue'),
+      meta: { public: true, title: 'Page not found' },
+    },
+  ],
+});
+
+/** Only a path inside the app may be a `next` target, never another site. */
+export function safeNext(value: unknown): string {
+  return typeof value === 'string' && value.startsWith('/') && !value.startsWith('//') ? value : '/';
+}
+
+function signInFor(to: RouteLocationNormalized) {
+  return { name: 'sign-in', query: to.fullPath === '/' ? {} : { next: to.fullPath } };
+}
+
+router.beforeEach(async (to) => {
+  const session = useSessionStore();
+  await session.ensureLoaded();
+  if (to.name === 'sign-in' && session.person) return safeNext(to.query.next);
+  if (to.meta.public) return true;
+  if (!session.person) return signInFor(to);
+  const { action, subject } = to.meta;
+  if (action && subject && !ability.can(action, subject)) return { name: 'forbidden' };
+  return true;
+});
+
+router.afterEach((to) => {
+  document.title = to.meta.title ? `${to.meta.title} · Busbar` : 'Busbar';
+});

@@ -1,0 +1,3 @@
+export { openDatabase, migrateToLatest, type Db } from './connect.ts';
+export type { Database } from './schema/index.ts';
+export { seedDemoNetwork, DEMO_PASSWORD } from './demo/generate.ts';

@@ -1,0 +1,7 @@
+import type { Migration } from 'kysely';
+import * as createFoundation from './001-create-foundation.ts';
+
+/** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
+export const migrations: Record<string, Migration> = {
+  '001-create-foundation': createFoundation,
+};

@@ -1,0 +1,19 @@
+import type { AuditLogTable } from './audit-log.ts';
+import type { InvitesTable } from './invites.ts';
+import type { LocationsTable } from './locations.ts';
+import type { MailLogTable } from './mail-log.ts';
+import type { RegionsTable } from './regions.ts';
+import type { RoleAssignmentsTable } from './role-assignments.ts';
+import type { SessionsTable } from './sessions.ts';
+import type { UsersTable } from './users.ts';
+
+export interface Database {
+  regions: RegionsTable;
+  locations: LocationsTable;
+  users: UsersTable;
+  roleAssignments: RoleAssignmentsTable;
+  sessions: SessionsTable;
+  auditLog: AuditLogTable;
+  invites: InvitesTable;
+  mailLog: MailLogTable;
+}

@@ -1,0 +1,7 @@
+import type { Generated } from 'kysely';
+
+export interface RegionsTable {
+  id: Generated<number>;
+  code: string;
+  name: string;
+}

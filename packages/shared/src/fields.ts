@@ -1,0 +1,20 @@
+/**
+ * Field-level rules: the fields of each subject that some roles may not read.
+ * The API strips them from every response and export; the web never asks for them.
+ */
+
+/** Purchase cost and margin: hidden from technicians and warranty clerks. */
+export const COST_FIELDS = ['unitCostCents', 'costCents', 'partsCostCents', 'marginCents'] as const;
+
+/** Selling prices and totals: hidden from warranty clerks. */
+export const PRICE_FIELDS = [
+  'unitPriceCents',
+  'priceCents',
+  'laborCents',
+  'laborRateCents',
+  'subtotalCents',
+  'totalCents',
+] as const;
+
+/** Customer contact details: hidden from the accountant everywhere. */
+export const CONTACT_FIELDS = ['email', 'phone', 'addressLine1', 'addressLine2', 'city', 'region', 'postalCode'] as const;

@@ -1,0 +1,110 @@
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { createApp } from '@busbar/api';
+import { DEMO_PASSWORD, migrateToLatest, openDatabase, seedDemoNetwork, type Db } from '@busbar/db';
+import { simpleParser } from 'mailparser';
+import request from 'supertest';
+import type { Config } from '../../apps/api/src/config.ts';
+import { hashPassword } from '../../apps/api/src/auth/password.ts';
+import { startMailCapture, type MailCapture } from '../../apps/api/src/mail/capture.ts';
+import { createMailer } from '../../apps/api/src/mail/mailer.ts';
+
+/** A low scrypt cost keeps tests quick; the cost is stored in each hash, so nothing else changes. */
+const TEST_SCRYPT_LOG_N = 10;
+
+export interface Harness {
+  app: ReturnType<typeof createApp>;
+  db: Db;
+  mail: MailCapture;
+  clock: { now: Date };
+  /** A supertest agent that has fetched the forgery-protection cookie and sends it back as a header. */
+  agent(): Promise<Agent>;
+  /** An agent signed in as a demo person (by e-mail). */
+  signedIn(email: string): Promise<Agent>;
+  /** Text and first link of the newest captured e-mail to `to`. */
+  lastMailTo(to: string): Promise<{ subject: string; text: string; link: string | null }>;
+  close(): Promise<void>;
+}
+
+export type Agent = ReturnType<typeof request.agent> & { csrf: string };
+
+export async function startHarness(overrides: Partial<Config> = {}): Promise<Harness> {
+  const dataDir = mkdtempSync(join(tmpdir(), 'busbar-test-'));
+  const clock = { now: new Date('2026-06-15T15:00:00Z') };
+  const now = () => clock.now;
+  const db = openDatabase(join(dataDir, 'busbar.sqlite'));
+  await migrateToLatest(db);
+  await seedDemoNetwork(db, { passwordHash: await hashPassword(DEMO_PASSWORD, TEST_SCRYPT_LOG_N), now: now() });
+  const mail = await startMailCapture(0);
+  const mailer = createMailer(db, `smtp://127.0.0.1:${mail.port}`, 'Busbar <no-reply@busbar.test>', now);
+  const config: Config = {
+    port: 0,
+    dataDir,
+    databaseFile: join(dataDir, 'busbar.sqlite'),
+    publicUrl: 'http://localhost:3000',
+    sessionSecret: 'test-secret-test-secret-test-secret-0123',
+    smtpUrl: null,
+    smtpCapturePort: 0,
+    mailFrom: 'Busbar <no-reply@busbar.test>',
+    trustProxy: false,
+    demoData: true,
+    scryptLogN: TEST_SCRYPT_LOG_N,
+    inviteTtlHours: 72,
+    signInLimit: { windowMs: 15 * 60 * 1000, perAccount: 10, perAddress: 1000 },
+    webDist: null,
+    ...overrides,
+  };
+  const app = createApp({ db, config, mailer, now });
+
+  async function agent(): Promise<Agent> {
+    const a = request.agent(app) as Agent;
+    const res = await a.get('/api/health');
+    const cookie = ([] as string[]).concat(res.headers['set-cookie'] ?? []).find((c) => c.startsWith('busbar.csrf='));
+    a.csrf = decodeURIComponent(cookie!.split(';')[0]!.split('=')[1]!);
+    a.set('x-csrf-token', a.csrf);
+    return a;
+  }
+
+  async function signedIn(email: string): Promise<Agent> {
+    const a = await agent();
+    const res = await a.post('/api/session').send({ email, password: DEMO_PASSWORD });
+    if (res.status !== 200) throw new Error(`sign-in of ${email} answered ${res.status}: ${JSON.stringify(res.body)}`);
+    return a;
+  }
+
+  async function lastMailTo(to: string) {
+    const message = [...mail.messages].reverse().find((m) => m.to.includes(to));
+    if (!message) throw new Error(`no mail captured for ${to}`);
+    const parsed = await simpleParser(message.raw);
+    const text = parsed.text ?? '';
+    return { subject: parsed.subject ?? '', text, link: text.match(/https?:\/\/\S+/)?.[0] ?? null };
+  }
+
+  return {
+    app,
+    db,
+    mail,
+    clock,
+    agent,
+    signedIn,
+    lastMailTo,
+    async close() {
+      mailer.close();
+      await mail.close();
+      await db.destroy();
+      rmSync(dataDir, { recursive: true, force: true });
+    },
+  };
+}
+
+/** Ids of demo records by their code or e-mail, so tests do not depend on insertion order. */
+export async function demoIds(db: Db) {
+  const locations = await db.selectFrom('locations').select(['id', 'code', 'regionId']).execute();
+  const regions = await db.selectFrom('regions').select(['id', 'code']).execute();
+  const users = await db.selectFrom('users').select(['id', 'email']).execute();
+  const location = (code: string) => locations.find((l) => l.code === code)!.id;
+  const region = (code: string) => regions.find((r) => r.code === code)!.id;
+  const user = (email: string) => users.find((u) => u.email === email)!.id;
+  return { location, region, user, locations, regions };
+}

@@ -1,0 +1,19 @@
+import { fileURLToPath } from 'node:url';
+import vue from '@vitejs/plugin-vue';
+import { defineConfig } from 'vite';
+
+const apiPort = process.env.PORT ?? '3000';
+
+// The web app's source lives in apps/web/src; the repo root is Vite's root so index.html stays at the top.
+export default defineConfig({
+  plugins: [vue()],
+  resolve: {
+    alias: { '@': fileURLToPath(new URL('./apps/web/src', import.meta.url)) },
+    dedupe: ['vue'],
+  },
+  build: { outDir: 'dist/web', emptyOutDir: true, chunkSizeWarningLimit: 1500 },
+  server: {
+    port: 5173,
+    proxy: { '/api': `http://localhost:${apiPort}` },
+  },
+});
