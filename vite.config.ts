@@ -7,6 +7,7 @@ const apiPort = process.env.PORT ?? '3000';
 // The web app's source lives in apps/web/src; the repo root is Vite's root so index.html stays at the top.
 export default defineConfig({
   plugins: [vue()],
+  publicDir: 'apps/web/public',
   resolve: {
     alias: { '@': fileURLToPath(new URL('./apps/web/src', import.meta.url)) },
     dedupe: ['vue'],

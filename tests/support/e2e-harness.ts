@@ -1,0 +1,70 @@
+import { createServer, type Server } from 'node:http';
+import { resolve } from 'node:path';
+import { chromium, type Browser, type Page } from 'playwright-core';
+import { DEMO_PASSWORD } from '@busbar/db';
+import { startHarness, type Harness } from './api-harness.ts';
+
+export interface E2e {
+  baseUrl: string;
+  harness: Harness;
+  browser: Browser;
+  /** A fresh browser context (its own cookies) with one page. */
+  newPage(): Promise<Page>;
+  signIn(page: Page, email: string, password?: string): Promise<void>;
+  close(): Promise<void>;
+}
+
+function freePort(): Promise<number> {
+  return new Promise((done, fail) => {
+    const probe = createServer().listen(0, '127.0.0.1', () => {
+      const address = probe.address();
+      probe.close(() => (typeof address === 'object' && address ? done(address.port) : fail(new Error('no port'))));
+    });
+  });
+}
+
+/** The built web app (`vite build` → dist/web) served by the real API, driven in Debian's Chromium. */
+export async function startE2e(): Promise<E2e> {
+  const port = await freePort();
+  const baseUrl = `http://127.0.0.1:${port}`;
+  const harness = await startHarness({ webDist: resolve('dist/web'), publicUrl: baseUrl });
+  const server: Server = await new Promise((done) => {
+    const s = harness.app.listen(port, '127.0.0.1', () => done(s));
+  });
+  // Playwright gives every launch a fresh, empty profile directory of its own.
+  const browser = await chromium.launch({
+    executablePath: '/usr/bin/chromium',
+    args: [
+      '--headless',
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-quic',
+      '--no-first-run',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+    ],
+  });
+
+  return {
+    baseUrl,
+    harness,
+    browser,
+    async newPage() {
+      const context = await browser.newContext({ baseURL: baseUrl, viewport: { width: 1280, height: 800 } });
+      return context.newPage();
+    },
+    async signIn(page, email, password = DEMO_PASSWORD) {
+      await page.goto('/sign-in');
+      await page.getByLabel('E-mail').fill(email);
+      await page.getByLabel('Password').fill(password);
+      await page.getByRole('button', { name: 'Sign in' }).click();
+      await page.getByRole('button', { name: 'Sign out' }).waitFor();
+    },
+    async close() {
+      await browser.close();
+      await new Promise((done) => server.close(done));
+      await harness.close();
+    },
+  };
+}
