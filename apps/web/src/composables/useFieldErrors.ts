@@ -1,5 +1,5 @@
 import { reactive, ref } from 'vue';
-import { ApiError, messageOf } from '@/api/client.ts';
+import { ApiError, messageOf } from '../api/client.ts';
 
 /** Props for an ant Form.Item that shows a message as an error (none when there is no message). */
 export function errorProps(message: string | undefined) {

@@ -2,7 +2,7 @@ import type { Page } from '@busbar/shared';
 import type { TablePaginationConfig } from 'ant-design-vue';
 import { computed, ref, shallowRef, watch } from 'vue';
 import { useRoute, useRouter, type LocationQuery, type LocationQueryRaw } from 'vue-router';
-import { messageOf } from '@/api/client.ts';
+import { messageOf } from '../api/client.ts';
 
 const DEFAULT_PAGE_SIZE = 50;
 

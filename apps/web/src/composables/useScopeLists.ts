@@ -1,8 +1,8 @@
 import type { AppAbility, LocationView, RegionView } from '@busbar/shared';
 import { useAbility } from '@casl/vue';
 import { onMounted, ref } from 'vue';
-import { listLocations, listRegions } from '@/api/admin.ts';
-import { messageOf } from '@/api/client.ts';
+import { listLocations, listRegions } from '../api/admin.ts';
+import { messageOf } from '../api/client.ts';
 
 /** The locations and regions the person may see, for filters, forms and labels. */
 export function useScopeLists() {

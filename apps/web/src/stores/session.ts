@@ -1,8 +1,8 @@
 import { createAbility, type AcceptInviteBody, type SessionView, type SignInBody } from '@busbar/shared';
 import { defineStore } from 'pinia';
 import { computed, ref } from 'vue';
-import { ApiError, messageOf } from '@/api/client.ts';
-import * as api from '@/api/session.ts';
+import { ApiError, messageOf } from '../api/client.ts';
+import * as api from '../api/session.ts';
 
 /** The one ability of the app: menus, buttons and the route guard all ask it; sign-in and sign-out update it. */
 export const ability = createAbility();

@@ -1,0 +1,86 @@
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { migrateToLatest, openDatabase, seedDemoNetwork, type Db } from '@busbar/db';
+import { Migrator, NO_MIGRATIONS, sql } from 'kysely';
+import { afterEach, describe, expect, it } from 'vitest';
+import { migrations } from '../../db/migrations/index.ts';
+
+const dirs: string[] = [];
+const fresh = async (): Promise<Db> => {
+  const dir = mkdtempSync(join(tmpdir(), 'busbar-db-'));
+  dirs.push(dir);
+  const db = openDatabase(join(dir, 'busbar.sqlite'));
+  await migrateToLatest(db);
+  return db;
+};
+afterEach(() => {
+  for (const dir of dirs.splice(0)) rmSync(dir, { recursive: true, force: true });
+});
+
+const snapshot = async (db: Db) => ({
+  regions: await db.selectFrom('regions').selectAll().orderBy('id').execute(),
+  locations: await db.selectFrom('locations').selectAll().orderBy('id').execute(),
+  users: await db.selectFrom('users').select(['id', 'email', 'name', 'status']).orderBy('id').execute(),
+  roles: await db.selectFrom('roleAssignments').selectAll().orderBy('id').execute(),
+});
+
+describe('database', () => {
+  it('opens with WAL, foreign keys and a busy timeout', async () => {
+    const db = await fresh();
+    const pragma = async (name: string) => Object.values((await sql.raw(`pragma ${name}`).execute(db)).rows[0] as object)[0];
+    expect(await pragma('journal_mode')).toBe('wal');
+    expect(await pragma('foreign_keys')).toBe(1);
+    expect(await pragma('busy_timeout')).toBe(5000);
+    await db.destroy();
+  });
+
+  it('migrates down to nothing and up again', async () => {
+    const db = await fresh();
+    const migrator = new Migrator({ db, provider: { getMigrations: async () => migrations } });
+    const down = await migrator.migrateTo(NO_MIGRATIONS);
+    expect(down.error).toBeUndefined();
+    const tables = async () => (await db.introspection.getTables()).map((t) => t.name).filter((n) => !n.startsWith('kysely_'));
+    expect(await tables()).toEqual([]);
+    await migrateToLatest(db);
+    expect(await tables()).toEqual(expect.arrayContaining(['users', 'role_assignments', 'sessions', 'audit_log', 'invites', 'mail_log']));
+    await db.destroy();
+  });
+
+  it('generates the same demo network for the same seed and clock', async () => {
+    const options = { passwordHash: 'scrypt$10$8$1$x$y', now: new Date('2026-01-01T00:00:00Z'), seed: 42 };
+    const [a, b] = [await fresh(), await fresh()];
+    await seedDemoNetwork(a, options);
+    await seedDemoNetwork(b, options);
+    expect(await snapshot(a)).toEqual(await snapshot(b));
+    await Promise.all([a.destroy(), b.destroy()]);
+  });
+
+  it('gives the demo network two regions, shops in several time zones and every role', async () => {
+    const db = await fresh();
+    await seedDemoNetwork(db, { passwordHash: 'scrypt$10$8$1$x$y', now: new Date('2026-01-01T00:00:00Z') });
+    const { regions, locations, roles } = await snapshot(db);
+    expect(regions.length).toBeGreaterThanOrEqual(2);
+    expect(locations.length).toBeGreaterThanOrEqual(6);
+    expect(new Set(locations.map((l) => l.timeZone)).size).toBeGreaterThanOrEqual(3);
+    expect(new Set(roles.map((r) => r.role))).toEqual(
+      new Set(['owner', 'regional_manager', 'location_lead', 'technician', 'warranty_clerk', 'accountant']),
+    );
+    for (const location of locations) {
+      const here = roles.filter((r) => r.locationId === location.id).map((r) => r.role);
+      expect(here).toEqual(expect.arrayContaining(['location_lead', 'technician', 'warranty_clerk']));
+    }
+    await db.destroy();
+  });
+
+  it('refuses a role assignment whose scope does not match its ids', async () => {
+    const db = await fresh();
+    await seedDemoNetwork(db, { passwordHash: 'scrypt$10$8$1$x$y', now: new Date('2026-01-01T00:00:00Z') });
+    const insert = db
+      .insertInto('roleAssignments')
+      .values({ userId: 1, role: 'technician', scope: 'location', regionId: null, locationId: null, createdAt: 'now', createdBy: null })
+      .execute();
+    await expect(insert).rejects.toThrow(/CHECK constraint failed/);
+    await db.destroy();
+  });
+});
