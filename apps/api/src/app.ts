@@ -2,6 +2,7 @@ import { join } from 'node:path';
 import express, { type Express } from 'express';
 import session from 'express-session';
 import helmet from 'helmet';
+import { requireStaffAccess } from './access/staff.ts';
 import { DbSessionStore } from './auth/session-store.ts';
 import type { AppContext } from './context.ts';
 import { errorHandler, notFound } from './errors.ts';
@@ -43,7 +44,7 @@ export function createApp(ctx: AppContext): Express {
   app.use('/api/health', healthRouter(ctx));
   app.use('/api/session', sessionRouter(ctx));
   app.use('/api/invites', invites.public);
-  app.use('/api/staff', requireSession(db), invites.staff, staffRouter(ctx));
+  app.use('/api/staff', requireSession(db), requireStaffAccess, invites.staff, staffRouter(ctx));
   app.use('/api', requireSession(db), adminRouter(ctx));
   app.use('/api', () => {
     throw notFound('API route');

@@ -1,7 +1,9 @@
 import type { Db } from '@busbar/db';
 import { subject } from '@casl/ability';
 import type { AppAbility, Role, Scope, StaffPerson } from '@busbar/shared';
+import type { RequestHandler } from 'express';
 import { forbidden, notFound } from '../errors.ts';
+import { viewerOf } from '../middleware/session.ts';
 import { assignmentsOf, type AssignmentRow } from '../queries/assignments.ts';
 import { findUser, type UserRow } from '../queries/users.ts';
 import type { Viewer } from './viewer.ts';
@@ -14,6 +16,15 @@ const asSubject = (a: AssignmentFields) =>
 /** Whether the viewer reads network-level assignments, and so every person, roles or none (the owner). */
 export const seesEveryone = (ability: AppAbility) =>
   ability.can('read', asSubject({ role: 'owner', scope: 'network', regionId: null, locationId: null }));
+
+/**
+ * Staff management belongs to leads, regional managers and the owner. Other roles read no
+ * assignments anywhere, so every staff route answers them 403, as the audit log does.
+ */
+export const requireStaffAccess: RequestHandler = (req, _res, next) => {
+  if (!viewerOf(req).ability.can('read', 'RoleAssignment')) throw forbidden('Your role does not manage staff');
+  next();
+};
 
 /** The viewer may deactivate someone only if they could remove every role that person holds. */
 export function canManagePerson(viewer: Viewer, personId: number, assignments: AssignmentFields[]): boolean {
@@ -32,6 +43,16 @@ export function staffView(viewer: Viewer, user: UserRow, all: AssignmentRow[]): 
   const visible = own.filter((a) => canReadAssignment(viewer.ability, a)).map(({ userId: _, ...a }) => a);
   if (visible.length === 0 && !seesEveryone(viewer.ability)) return null;
   return { ...user, assignments: visible, canDeactivate: canManagePerson(viewer, user.id, own) };
+}
+
+/**
+ * A person as the viewer sees them after a change: removing the last role the viewer can see
+ * takes the person out of their sight, yet the change happened, so it answers with no roles.
+ */
+export async function staffViewAfterChange(db: Db, viewer: Viewer, id: number): Promise<StaffPerson> {
+  const user = await findUser(db, id);
+  if (!user) throw notFound('person');
+  return staffView(viewer, user, await assignmentsOf(db, [id])) ?? { ...user, assignments: [], canDeactivate: false };
 }
 
 /** Loads one person for the viewer: 404 when missing or out of the viewer's sight. */

@@ -12,9 +12,10 @@ export class DbSessionStore extends session.Store {
     super();
   }
 
+  /** From the injected clock, not the cookie's wall-clock expiry, so the app keeps one time. */
   private expiry(sess: session.SessionData): string {
-    const expires = sess.cookie?.expires ? new Date(sess.cookie.expires) : new Date(this.now().getTime() + 86_400_000);
-    return expires.toISOString();
+    const lifetimeMs = sess.cookie?.originalMaxAge ?? 86_400_000;
+    return new Date(this.now().getTime() + lifetimeMs).toISOString();
   }
 
   override get(sid: string, cb: Callback<session.SessionData | null>): void {

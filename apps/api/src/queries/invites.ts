@@ -27,6 +27,12 @@ export function findOpenInvite(db: Db, token: string) {
     .executeTakeFirst();
 }
 
+/** Marks one invite used if it still is open; false when another request used it first. */
+export async function claimInvite(db: Db, id: number, at: string): Promise<boolean> {
+  const result = await db.updateTable('invites').set({ usedAt: at }).where('id', '=', id).where('usedAt', 'is', null).executeTakeFirst();
+  return result.numUpdatedRows === 1n;
+}
+
 /** Marks every open invite of a person used, so only the newest link (or none) works. */
 export async function closeInvitesOf(db: Db, userId: number, at: string): Promise<void> {
   await db.updateTable('invites').set({ usedAt: at }).where('userId', '=', userId).where('usedAt', 'is', null).execute();

@@ -1,4 +1,5 @@
 import type { Db } from '@busbar/db';
+import { sql } from 'kysely';
 import type { PersonStatus } from '@busbar/shared';
 
 export interface UserRow {
@@ -28,8 +29,10 @@ export function searchUsers(db: Db, filter: { status: PersonStatus | 'all'; q?: 
   let query = db.selectFrom('users').select(USER_COLUMNS);
   if (filter.status !== 'all') query = query.where('status', '=', filter.status);
   if (filter.q) {
+    // SQLite's LIKE has no escape character unless the query names one.
     const like = `%${filter.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-    query = query.where((eb) => eb.or([eb('name', 'like', like), eb('email', 'like', like)]));
+    const matches = (column: 'name' | 'email') => sql<boolean>`${sql.ref(column)} like ${like} escape '\\'`;
+    query = query.where((eb) => eb.or([matches('name'), matches('email')]));
   }
   return query.orderBy('name').orderBy('id').execute();
 }

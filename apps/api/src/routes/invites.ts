@@ -10,7 +10,7 @@ import { viewerOf } from '../middleware/session.ts';
 import { validate } from '../middleware/validate.ts';
 import { insertAssignment } from '../queries/assignments.ts';
 import { writeAudit } from '../queries/audit.ts';
-import { closeInvitesOf, findOpenInvite, insertInvite } from '../queries/invites.ts';
+import { claimInvite, closeInvitesOf, findOpenInvite, insertInvite } from '../queries/invites.ts';
 import { activateWithPassword, emailTaken, insertInvitedUser } from '../queries/users.ts';
 import { signIn } from './session.ts';
 
@@ -116,6 +116,8 @@ export function invitesRouter(ctx: AppContext): { staff: Router; public: Router 
       const passwordHash = await hashPassword(body.password, config.scryptLogN);
       await db.transaction().execute(async (trx) => {
         const at = now().toISOString();
+        // Claimed inside the transaction: of two requests racing with one link, only one wins.
+        if (!(await claimInvite(trx, invite.id, at))) throw notFound('invite: this link was already used or is not valid');
         await activateWithPassword(trx, invite.userId, passwordHash);
         await closeInvitesOf(trx, invite.userId, at);
         await writeAudit(trx, { at, actorId: invite.userId, action: 'person.accept_invite', entity: 'user', entityId: invite.userId, before: { status: 'invited' }, after: { status: 'active' } });

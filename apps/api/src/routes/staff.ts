@@ -1,6 +1,14 @@
 import { grantRoleBody, idParams, roleParams, scopeFor, staffQuery, type StaffPerson } from '@busbar/shared';
 import { Router } from 'express';
-import { authorizeGrant, canManagePerson, canReadAssignment, canRemoveAssignment, loadStaffPerson, staffView } from '../access/staff.ts';
+import {
+  authorizeGrant,
+  canManagePerson,
+  canReadAssignment,
+  canRemoveAssignment,
+  loadStaffPerson,
+  staffView,
+  staffViewAfterChange,
+} from '../access/staff.ts';
 import type { AppContext } from '../context.ts';
 import { conflict, forbidden, notFound } from '../errors.ts';
 import { viewerOf } from '../middleware/session.ts';
@@ -72,7 +80,7 @@ export function staffRouter({ db, now }: AppContext): Router {
         const { userId: _, ...before } = assignment;
         await writeAudit(trx, { at: now().toISOString(), actorId: viewer.id, action: 'role.remove', entity: 'role_assignment', entityId: assignment.id, before: { userId: params.id, ...before } });
       });
-      res.json((await loadStaffPerson(db, viewer, params.id)).person);
+      res.json(await staffViewAfterChange(db, viewer, params.id));
     }),
   );
 

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { ROLES, scopeFor } from '../roles.ts';
+import { ROLE_SCOPES, ROLES, scopeFor } from '../roles.ts';
 import { emailSchema, idSchema, newPasswordSchema, pageQuery, personNameSchema } from './common.ts';
 import type { AssignmentView } from './session.ts';
 
@@ -15,7 +15,9 @@ const roleAtScope = {
 
 function checkScope(value: { role: (typeof ROLES)[number]; locationId?: number | null; regionId?: number | null }, ctx: z.RefinementCtx) {
   if (scopeFor(value.role, value) !== null) return;
-  const path = value.locationId != null ? 'locationId' : 'regionId';
+  // Name the field given at the wrong scope, or else the one this role needs.
+  const given = value.locationId != null ? 'locationId' : value.regionId != null ? 'regionId' : null;
+  const path = given ?? (ROLE_SCOPES[value.role].includes('location') ? 'locationId' : 'regionId');
   ctx.addIssue({ code: 'custom', path: [path], message: 'This role cannot be held at that scope' });
 }
 
