@@ -59,13 +59,10 @@ describe('deactivating and reactivating people', () => {
   });
 
   it('lets nobody deactivate themself', async () => {
-    for (const email of [SIGN_INS.owner, SIGN_INS.lead]) {
+    for (const email of [SIGN_INS.owner, SIGN_INS.lead, SIGN_INS.regional]) {
       const res = await (await h.signedIn(email)).post(`/api/staff/${ids.user(email)}/deactivate`);
       expect([email, res.status, res.body]).toEqual([email, 409, { error: { code: 'conflict', message: 'You cannot change your own access' } }]);
     }
-    // A regional manager's own role is held at the region, which their view of staff does not cover.
-    const manager = await (await h.signedIn(SIGN_INS.regional)).post(`/api/staff/${ids.user(SIGN_INS.regional)}/deactivate`);
-    expect(manager.status).toBe(404);
     for (const email of [SIGN_INS.owner, SIGN_INS.lead, SIGN_INS.regional]) expect(await statusOf(ids.user(email))).toBe('active');
   });
 

@@ -37,7 +37,7 @@ describe('invites that are refused', () => {
     const res = await lead.post('/api/staff/invites').send({ email, name: 'Not Yet Sent', role: 'technician', locationId: denId });
     expect(res.status).toBe(502);
     expect(res.body).toEqual({
-      error: { code: 'mail_failed', message: 'The e-mail could not be sent. Nothing was saved; try again later.' },
+      error: { code: 'mail_failed', message: 'The e-mail could not be sent, so nothing was changed. Try again later.' },
     });
     expect(await writtenRows(h.db)).toEqual({ ...before, mailLog: before.mailLog + 1 });
     expect(await h.db.selectFrom('users').select('id').where('email', '=', email).execute()).toEqual([]);
@@ -80,5 +80,26 @@ describe('invites that are refused', () => {
     expect(accepted.status).toBe(404);
     const user = await h.db.selectFrom('users').select(['status', 'passwordHash']).where('email', '=', email).executeTakeFirstOrThrow();
     expect(user).toEqual({ status: 'inactive', passwordHash: null });
+    // Reactivated, the person is invited again, but the old link stays dead: they need a new one.
+    expect((await lead.post(`/api/staff/${invited.body.id}/reactivate`)).body.status).toBe('invited');
+    expect((await (await h.agent()).get(`/api/invites/${token}`)).status).toBe(404);
+  });
+});
+
+describe('the mail log with real SMTP', () => {
+  it('keeps the invite link out of the log while the person still gets it', async () => {
+    const h = await startHarness({}, false);
+    try {
+      const lead = await h.signedIn(SIGN_INS.lead);
+      const email = freshEmail('private');
+      const denId = (await demoIds(h.db)).location('DEN');
+      expect((await lead.post('/api/staff/invites').send({ email, name: 'Private Link', role: 'technician', locationId: denId })).status).toBe(201);
+      const token = tokenOf((await h.lastMailTo(email)).link);
+      const logged = await h.db.selectFrom('mailLog').select('text').where('toAddress', '=', email).executeTakeFirstOrThrow();
+      expect(logged.text).not.toContain(token);
+      expect(logged.text).toContain('/set-password?token=[removed from the log]');
+    } finally {
+      await h.close();
+    }
   });
 });

@@ -68,11 +68,17 @@ describe('staff list', () => {
     expect(answers[1]!.body.canDeactivate).toBe(false);
   });
 
-  it("gives a regional manager the people of their region's locations and nobody from the other region", async () => {
+  it("gives a regional manager the people of their region's locations and themself, nobody from the other region", async () => {
     const people = await everyone(await h.signedIn(SIGN_INS.regional));
-    expect(idsOf(people)).toEqual(await staffOf(['DEN', 'BOI', 'PDX', 'PHX']));
+    const self = ids.user(SIGN_INS.regional);
+    expect(idsOf(people)).toEqual([...(await staffOf(['DEN', 'BOI', 'PDX', 'PHX'])), self].sort((a, b) => a - b));
     const west = ['DEN', 'BOI', 'PDX', 'PHX'].map((c) => ids.location(c));
-    for (const person of people) expect(person.assignments.every((a) => west.includes(a.locationId!))).toBe(true);
+    for (const person of people.filter((p) => p.id !== self)) {
+      expect(person.assignments.every((a) => west.includes(a.locationId!))).toBe(true);
+    }
+    const own = people.find((p) => p.id === self)!;
+    expect(own.assignments.map((a) => [a.role, a.regionId])).toEqual([['regional_manager', ids.region('WEST')]]);
+    expect(own.canDeactivate).toBe(false);
   });
 
   it('gives the owner everyone, and filters by location, status and text', async () => {

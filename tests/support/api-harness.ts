@@ -29,7 +29,8 @@ export interface Harness {
 
 export type Agent = ReturnType<typeof request.agent> & { csrf: string };
 
-export async function startHarness(overrides: Partial<Config> = {}): Promise<Harness> {
+/** `keepSecretsInMailLog` false acts as production does with real SMTP. */
+export async function startHarness(overrides: Partial<Config> = {}, keepSecretsInMailLog = true): Promise<Harness> {
   const dataDir = mkdtempSync(join(tmpdir(), 'busbar-test-'));
   const clock = { now: new Date('2026-06-15T15:00:00Z') };
   const now = () => clock.now;
@@ -37,7 +38,7 @@ export async function startHarness(overrides: Partial<Config> = {}): Promise<Har
   await migrateToLatest(db);
   await seedDemoNetwork(db, { passwordHash: await hashPassword(DEMO_PASSWORD, TEST_SCRYPT_LOG_N), now: now() });
   const mail = await startMailCapture(0);
-  const mailer = createMailer(db, `smtp://127.0.0.1:${mail.port}`, 'Busbar <no-reply@busbar.test>', now);
+  const mailer = createMailer(db, `smtp://127.0.0.1:${mail.port}`, 'Busbar <no-reply@busbar.test>', now, keepSecretsInMailLog);
   const config: Config = {
     port: 0,
     dataDir,

@@ -40,6 +40,11 @@ export const errorHandler: ErrorRequestHandler = (err, _req, res, _next) => {
     res.status(err.status).json({ error: { code: err.code, message: err.message, fields: err.fields } });
     return;
   }
+  if (err?.code === 'SQLITE_CONSTRAINT_UNIQUE') {
+    // Two requests raced for one unique value; the loser hears what a later request would.
+    res.status(409).json({ error: { code: 'conflict', message: 'This was just recorded by someone else. Reload and try again.' } });
+    return;
+  }
   const status = typeof err?.status === 'number' && err.status >= 400 && err.status < 500 ? err.status : 500;
   if (status === 500) console.error(err);
   const message = status === 413 ? 'The request is too large' : status === 500 ? 'Something went wrong on our side' : 'The request could not be read';

@@ -22,7 +22,7 @@ if (!smtpUrl) {
   smtpUrl = `smtp://127.0.0.1:${capture.port}`;
   console.log(`No SMTP_URL set: mail is captured locally (port ${capture.port}) and listed in the Outbox.`);
 }
-const mailer = createMailer(db, smtpUrl, config.mailFrom, now);
+const mailer = createMailer(db, smtpUrl, config.mailFrom, now, !config.smtpUrl);
 const app = createApp({ db, config, mailer, now });
 app.listen(config.port, () => {
   console.log(`Busbar is running at ${config.publicUrl}${config.webDist ? '' : ' (API only: run `pnpm build` for the web app)'}`);

@@ -2,7 +2,8 @@ import { AbilityBuilder, createMongoAbility, type ForcedSubject, type MongoAbili
 import { COST_FIELDS, CONTACT_FIELDS, PRICE_FIELDS } from './fields.ts';
 import type { Role, Scope } from './roles.ts';
 
-export type Action = 'manage' | 'read' | 'create' | 'update' | 'delete' | 'approve' | 'send' | 'export';
+/** `plan` is the lead's part of a build: quoting, booking, cancelling, correcting after delivery. */
+export type Action = 'manage' | 'read' | 'create' | 'update' | 'plan' | 'delete' | 'approve' | 'send' | 'export';
 export type Subject =
   | 'all'
   | 'Region'
@@ -71,6 +72,7 @@ const grantsByRole: Record<Role, (b: Builder, a: RuleAssignment, person: RulePer
     can('approve', 'Claim', at);
     can('read', ['CatalogItem', 'Vendor']);
     can('read', 'RoleAssignment', at);
+    can('read', 'RoleAssignment', { regionId: a.regionId });
     can(['create', 'delete'], 'RoleAssignment', { ...at, role: 'location_lead' });
   },
 
@@ -78,6 +80,7 @@ const grantsByRole: Record<Role, (b: Builder, a: RuleAssignment, person: RulePer
     const at = atLocations(a);
     can('read', 'Location', { id: { $in: a.locationIds } });
     can(['read', 'create', 'update'], ['Build', 'Customer', 'Vehicle', 'Claim'], at);
+    can('plan', 'Build', at);
     can(['approve', 'send'], 'Claim', at);
     can('read', ['CatalogItem', 'Vendor']);
     can('read', 'RoleAssignment', at);

@@ -7,6 +7,8 @@ export interface OutgoingMail {
   to: string;
   subject: string;
   text: string;
+  /** A secret in the text (an invite token) that the mail log must not keep in production. */
+  secret?: string;
 }
 
 export interface Mailer {
@@ -15,18 +17,27 @@ export interface Mailer {
   close(): void;
 }
 
-/** nodemailer over SMTP; every attempt, sent or failed, lands in the mail log the Outbox shows. */
-export function createMailer(db: Db, smtpUrl: string, from: string, now: () => Date): Mailer {
+/**
+ * nodemailer over SMTP; every attempt, sent or failed, lands in the mail log the Outbox shows.
+ * With real SMTP (`keepSecrets` false) the log replaces secrets, so reading the log or the
+ * database never hands out a live invite link; with local capture it keeps the whole message.
+ */
+export function createMailer(db: Db, smtpUrl: string, from: string, now: () => Date, keepSecrets: boolean): Mailer {
   const transport = nodemailer.createTransport(smtpUrl);
+  const logged = ({ to, subject, text, secret }: OutgoingMail) => ({
+    to,
+    subject,
+    text: secret && !keepSecrets ? text.replaceAll(secret, '[removed from the log]') : text,
+  });
   return {
     async send(mail) {
       try {
-        await transport.sendMail({ from, ...mail });
+        await transport.sendMail({ from, to: mail.to, subject: mail.subject, text: mail.text });
       } catch (error) {
-        await logMail(db, { ...mail, sentAt: now().toISOString(), status: 'failed', error: String(error) });
-        throw new HttpError(502, 'mail_failed', 'The e-mail could not be sent. Nothing was saved; try again later.');
+        await logMail(db, { ...logged(mail), sentAt: now().toISOString(), status: 'failed', error: String(error) });
+        throw new HttpError(502, 'mail_failed', 'The e-mail could not be sent, so nothing was changed. Try again later.');
       }
-      await logMail(db, { ...mail, sentAt: now().toISOString(), status: 'sent', error: null });
+      await logMail(db, { ...logged(mail), sentAt: now().toISOString(), status: 'sent', error: null });
     },
     close: () => transport.close(),
   };

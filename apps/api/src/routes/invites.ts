@@ -43,7 +43,12 @@ export function invitesRouter(ctx: AppContext): { staff: Router; public: Router 
   ): Promise<number> {
     const token = randomBytes(32).toString('base64url');
     const link = `${config.publicUrl}/set-password?token=${token}`;
-    await mailer.send({ to: to.email, subject: 'Your Busbar invitation', text: inviteText(to.name, invitedBy.name, role, link, config.inviteTtlHours) });
+    await mailer.send({
+      to: to.email,
+      subject: 'Your Busbar invitation',
+      text: inviteText(to.name, invitedBy.name, role, link, config.inviteTtlHours),
+      secret: token,
+    });
     const at = now();
     const expiresAt = new Date(at.getTime() + config.inviteTtlHours * 3_600_000).toISOString();
     return db.transaction().execute(async (trx) => {

@@ -15,6 +15,7 @@ import { viewerOf } from '../middleware/session.ts';
 import { validate } from '../middleware/validate.ts';
 import { assignmentsOf, countActiveOwners, deleteAssignment, insertAssignment } from '../queries/assignments.ts';
 import { writeAudit } from '../queries/audit.ts';
+import { closeInvitesOf } from '../queries/invites.ts';
 import { endSessionsOf, hasPassword, searchUsers, setUserStatus } from '../queries/users.ts';
 
 /** Staff of the locations a person may see: list, roles granted and removed, deactivation. */
@@ -101,7 +102,10 @@ export function staffRouter({ db, now }: AppContext): Router {
             throw conflict('The network must keep at least one owner');
           }
           await setUserStatus(trx, person.id, status);
-          if (status === 'inactive') await endSessionsOf(trx, person.id);
+          if (status === 'inactive') {
+            await endSessionsOf(trx, person.id);
+            await closeInvitesOf(trx, person.id, now().toISOString());
+          }
           await writeAudit(trx, { at: now().toISOString(), actorId: viewer.id, action: `person.${action}`, entity: 'user', entityId: person.id, before: { status: person.status }, after: { status } });
         });
         res.json((await loadStaffPerson(db, viewer, person.id)).person);
