@@ -1,7 +1,9 @@
 import type { Migration } from 'kysely';
 import * as createFoundation from './001-create-foundation.ts';
+import * as createBuilds from './002-create-builds.ts';
 
 /** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
 export const migrations: Record<string, Migration> = {
   '001-create-foundation': createFoundation,
+  '002-create-builds': createBuilds,
 };

@@ -1,4 +1,11 @@
 import type { AuditLogTable } from './audit-log.ts';
+import type { BuildEventsTable } from './build-events.ts';
+import type { BuildItemsTable } from './build-items.ts';
+import type { BuildsTable } from './builds.ts';
+import type { CatalogItemsTable } from './catalog-items.ts';
+import type { CustomersTable } from './customers.ts';
+import type { VehiclesTable } from './vehicles.ts';
+import type { VendorsTable } from './vendors.ts';
 import type { InvitesTable } from './invites.ts';
 import type { LocationsTable } from './locations.ts';
 import type { MailLogTable } from './mail-log.ts';
@@ -16,4 +23,11 @@ export interface Database {
   auditLog: AuditLogTable;
   invites: InvitesTable;
   mailLog: MailLogTable;
+  vendors: VendorsTable;
+  catalogItems: CatalogItemsTable;
+  customers: CustomersTable;
+  vehicles: VehiclesTable;
+  builds: BuildsTable;
+  buildItems: BuildItemsTable;
+  buildEvents: BuildEventsTable;
 }

@@ -43,7 +43,9 @@ describe('database', () => {
     const tables = async () => (await db.introspection.getTables()).map((t) => t.name).filter((n) => !n.startsWith('kysely_'));
     expect(await tables()).toEqual([]);
     await migrateToLatest(db);
-    expect(await tables()).toEqual(expect.arrayContaining(['users', 'role_assignments', 'sessions', 'audit_log', 'invites', 'mail_log']));
+    expect(await tables()).toEqual(
+      expect.arrayContaining(['users', 'role_assignments', 'sessions', 'audit_log', 'invites', 'mail_log', 'builds', 'build_items']),
+    );
     await db.destroy();
   });
 

@@ -1,8 +1,9 @@
+import type { StaffPerson } from '@busbar/shared';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { demoIds, startHarness, type Agent, type Harness } from '../support/api-harness.ts';
 import { addPerson, addRole, SIGN_INS } from '../support/staff-fixtures.ts';
 
-type Listed = { id: number; name: string; email: string; status: string; assignments: { id: number; locationId: number | null }[] };
+type Listed = StaffPerson;
 
 describe('staff list', () => {
   let h: Harness;

@@ -12,7 +12,7 @@ export const PRICE_FIELDS = [
   'priceCents',
   'laborCents',
   'laborRateCents',
-  'subtotalCents',
+  'partsPriceCents',
   'totalCents',
 ] as const;
 

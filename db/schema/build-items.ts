@@ -1,0 +1,15 @@
+import type { Generated } from 'kysely';
+
+export interface BuildItemsTable {
+  id: Generated<number>;
+  buildId: number;
+  catalogItemId: number;
+  /** The SKU at the time, so a serial number stays unique per SKU. */
+  sku: string;
+  quantity: number;
+  serialNumber: string | null;
+  /** Price and cost captured when the item was added. */
+  unitPriceCents: number;
+  unitCostCents: number;
+  createdAt: string;
+}

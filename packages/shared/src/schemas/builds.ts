@@ -1,0 +1,166 @@
+import { z } from 'zod';
+import { idSchema, pageQuery } from './common.ts';
+import type { Category } from './catalog.ts';
+
+export const BUILD_STATUSES = ['draft', 'quoted', 'booked', 'in_bay', 'quality_check', 'delivered', 'cancelled'] as const;
+export type BuildStatus = (typeof BUILD_STATUSES)[number];
+
+export const BUILD_STATUS_LABELS: Record<BuildStatus, string> = {
+  draft: 'Draft',
+  quoted: 'Quoted',
+  booked: 'Booked',
+  in_bay: 'In the bay',
+  quality_check: 'Final check',
+  delivered: 'Delivered',
+  cancelled: 'Cancelled',
+};
+
+/**
+ * The allowed status changes and the action each needs on the build: `plan` (the location lead:
+ * quoting, booking, cancelling) or `update` (also the build's lead technician: the work in the bay).
+ */
+export const BUILD_TRANSITIONS: readonly { from: BuildStatus; to: BuildStatus; action: 'plan' | 'update' }[] = [
+  { from: 'draft', to: 'quoted', action: 'plan' },
+  { from: 'quoted', to: 'draft', action: 'plan' },
+  { from: 'quoted', to: 'booked', action: 'plan' },
+  { from: 'booked', to: 'quoted', action: 'plan' },
+  { from: 'booked', to: 'in_bay', action: 'update' },
+  { from: 'in_bay', to: 'quality_check', action: 'update' },
+  { from: 'quality_check', to: 'in_bay', action: 'update' },
+  { from: 'quality_check', to: 'delivered', action: 'update' },
+  ...(['draft', 'quoted', 'booked', 'in_bay', 'quality_check'] as const).map((from) => ({
+    from,
+    to: 'cancelled' as const,
+    action: 'plan' as const,
+  })),
+];
+
+/** The transition from one status to another, if the workflow allows it at all. */
+export function findTransition(from: BuildStatus, to: BuildStatus) {
+  return BUILD_TRANSITIONS.find((t) => t.from === from && t.to === to);
+}
+
+const isoDate = z.iso.date('Use a date like 2026-03-31');
+const laborHours = z.number('Enter hours').min(0, 'Cannot be negative').max(1000, 'At most 1000 hours');
+const notes = z.string().trim().max(4000).default('');
+
+export const buildCreate = z.strictObject({
+  locationId: z.int().positive({ error: 'Choose a location' }),
+  customerId: z.int().positive({ error: 'Choose a customer' }),
+  vehicleId: z.int().positive({ error: 'Choose a vehicle' }),
+  leadTechnicianId: z.int().positive().nullable().default(null),
+  bookedFor: isoDate.nullable().default(null),
+  laborHours: laborHours.default(0),
+  notes,
+});
+export type BuildCreate = z.infer<typeof buildCreate>;
+
+/** An edit carries the version it was made against; a delivered build also needs a correction note. */
+export const buildUpdate = z.strictObject({
+  version: z.int().min(1),
+  customerId: z.int().positive().optional(),
+  vehicleId: z.int().positive().optional(),
+  leadTechnicianId: z.int().positive().nullable().optional(),
+  bookedFor: isoDate.nullable().optional(),
+  laborHours: laborHours.optional(),
+  notes: z.string().trim().max(4000).optional(),
+  correctionNote: z.string().trim().min(1).max(1000).optional(),
+});
+export type BuildUpdate = z.infer<typeof buildUpdate>;
+
+export const buildStatusChange = z.strictObject({
+  version: z.int().min(1),
+  to: z.enum(BUILD_STATUSES, { error: 'Choose a status' }),
+  note: z.string().trim().max(1000).default(''),
+});
+
+const serialNumber = z
+  .string()
+  .trim()
+  .min(1, 'Enter the serial number')
+  .max(60)
+  .regex(/^[A-Za-z0-9][A-Za-z0-9./_-]*$/, 'Letters, digits and . / _ - only');
+
+export const buildItemAdd = z.strictObject({
+  version: z.int().min(1),
+  catalogItemId: z.int().positive({ error: 'Choose a component' }),
+  quantity: z.int('Whole units').min(1, 'At least 1').max(999),
+  serialNumber: serialNumber.nullable().default(null),
+});
+export const buildItemUpdate = z.strictObject({
+  version: z.int().min(1),
+  quantity: z.int('Whole units').min(1, 'At least 1').max(999).optional(),
+  serialNumber: serialNumber.nullable().optional(),
+});
+export const buildItemParams = z.strictObject({ id: idSchema, itemId: idSchema });
+export const versionQuery = z.strictObject({ version: z.coerce.number().int().min(1) });
+
+export const BUILD_SORTS = ['number', 'bookedFor', 'status', 'totalCents', 'updatedAt'] as const;
+export const buildQuery = z.strictObject({
+  status: z.union([z.enum(BUILD_STATUSES), z.array(z.enum(BUILD_STATUSES))]).optional(),
+  locationId: idSchema.optional(),
+  technicianId: idSchema.optional(),
+  from: isoDate.optional(),
+  to: isoDate.optional(),
+  q: z.string().trim().max(100).optional(),
+  sort: z.enum(BUILD_SORTS).default('updatedAt'),
+  order: z.enum(['asc', 'desc']).default('desc'),
+  ...pageQuery,
+});
+export type BuildQuery = z.infer<typeof buildQuery>;
+
+export interface BuildItemView {
+  id: number;
+  catalogItemId: number;
+  sku: string;
+  name: string;
+  category: Category;
+  quantity: number;
+  serialNumber: string | null;
+  unitPriceCents?: number;
+  unitCostCents?: number;
+}
+
+export interface BuildEventView {
+  id: number;
+  at: string;
+  actorName: string | null;
+  kind: 'status' | 'correction';
+  fromStatus: BuildStatus | null;
+  toStatus: BuildStatus | null;
+  note: string;
+}
+
+/** A build as read; money fields are absent for people who may not read them. */
+export interface BuildView {
+  id: number;
+  number: string;
+  locationId: number;
+  locationCode: string;
+  customerId: number;
+  customerName: string;
+  vehicleId: number;
+  vehicleLabel: string;
+  status: BuildStatus;
+  leadTechnicianId: number | null;
+  leadTechnicianName: string | null;
+  bookedFor: string | null;
+  startedAt: string | null;
+  deliveredAt: string | null;
+  laborHours: number;
+  laborRateCents?: number;
+  laborCents?: number;
+  partsPriceCents?: number;
+  partsCostCents?: number;
+  marginCents?: number;
+  totalCents?: number;
+  notes: string;
+  version: number;
+  createdAt: string;
+  updatedAt: string;
+}
+
+export interface BuildDetail extends BuildView {
+  items: BuildItemView[];
+  events: BuildEventView[];
+}
