@@ -1,4 +1,3 @@
-import { fileURLToPath } from 'node:url';
 import vue from '@vitejs/plugin-vue';
 import { defineConfig } from 'vite';
 
@@ -8,13 +7,11 @@ const apiPort = process.env.PORT ?? '3000';
 export default defineConfig({
   plugins: [vue()],
   publicDir: 'apps/web/public',
-  resolve: {
-    alias: { '@': fileURLToPath(new URL('./apps/web/src', import.meta.url)) },
-    dedupe: ['vue'],
-  },
+  resolve: { dedupe: ['vue'] },
   build: { outDir: 'dist/web', emptyOutDir: true, chunkSizeWarningLimit: 1500 },
   server: {
     port: 5173,
-    proxy: { '/api': `http://localhost:${apiPort}` },
+    // Keep the browser's Host header: the API's forgery check compares it with Origin.
+    proxy: { '/api': { target: `http://localhost:${apiPort}`, changeOrigin: false } },
   },
 });

@@ -25,7 +25,7 @@ describe('deactivating and reactivating people', () => {
 
     const off = await lead.post(`/api/staff/${techId}/deactivate`);
     expect(off.status).toBe(200);
-    expect(off.body).toMatchObject({ id: techId, status: 'inactive', canDeactivate: true });
+    expect(off.body).toMatchObject({ id: techId, status: 'inactive', canManage: true });
     expect(await statusOf(techId)).toBe('inactive');
     expect(await h.db.selectFrom('sessions').select('sid').where('userId', '=', techId).execute()).toEqual([]);
     const next = await tech.get('/api/session');
@@ -71,7 +71,7 @@ describe('deactivating and reactivating people', () => {
     const twoShops = await addPerson(h.db, { role: 'technician', locationId: ids.location('DEN') });
     await addRole(h.db, twoShops.id, { role: 'technician', locationId: ids.location('AVL') });
     const seen = await lead.get(`/api/staff/${twoShops.id}`);
-    expect(seen.body.canDeactivate).toBe(false);
+    expect(seen.body.canManage).toBe(false);
     const otherLead = await addPerson(h.db, { role: 'location_lead', locationId: ids.location('DEN') });
     const before = await writtenRows(h.db);
     for (const target of [twoShops, otherLead]) {

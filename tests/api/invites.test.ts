@@ -30,7 +30,7 @@ describe('invites', () => {
     const lead = await h.signedIn(SIGN_INS.lead);
     const invited = await lead.post('/api/staff/invites').send({ email, name: 'Nell Brightwater', role: 'technician', locationId: ids.location('DEN') });
     expect(invited.status).toBe(201);
-    expect(invited.body).toMatchObject({ email, name: 'Nell Brightwater', status: 'invited', lastSignInAt: null, canDeactivate: true });
+    expect(invited.body).toMatchObject({ email, name: 'Nell Brightwater', status: 'invited', lastSignInAt: null, canManage: true });
     expect(invited.body.assignments).toEqual([expect.objectContaining({ role: 'technician', scope: 'location', locationId: ids.location('DEN') })]);
 
     const mail = await h.lastMailTo(email);

@@ -66,7 +66,7 @@ describe('staff list', () => {
       }
     }
     expect(answers[1]!.body.assignments).toEqual([expect.objectContaining({ id: twoShops.assignmentId, locationCode: 'DEN' })]);
-    expect(answers[1]!.body.canDeactivate).toBe(false);
+    expect(answers[1]!.body.canManage).toBe(false);
   });
 
   it("gives a regional manager the people of their region's locations and themself, nobody from the other region", async () => {
@@ -79,7 +79,7 @@ describe('staff list', () => {
     }
     const own = people.find((p) => p.id === self)!;
     expect(own.assignments.map((a) => [a.role, a.regionId])).toEqual([['regional_manager', ids.region('WEST')]]);
-    expect(own.canDeactivate).toBe(false);
+    expect(own.canManage).toBe(false);
   });
 
   it('gives the owner everyone, and filters by location, status and text', async () => {

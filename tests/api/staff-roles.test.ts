@@ -107,7 +107,7 @@ describe('granting and removing roles', () => {
     const person = await addPerson(h.db, { role: 'technician', locationId: ids.location('DEN') });
     const res = await lead.delete(`/api/staff/${person.id}/roles/${person.assignmentId}`);
     expect(res.status).toBe(200);
-    expect(res.body).toMatchObject({ id: person.id, email: person.email, assignments: [], canDeactivate: false });
+    expect(res.body).toMatchObject({ id: person.id, email: person.email, assignments: [], canManage: false });
     expect(await rolesOf(person.id)).toEqual([]);
     expect((await lead.get(`/api/staff/${person.id}`)).status).toBe(404);
   });

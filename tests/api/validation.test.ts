@@ -60,13 +60,13 @@ describe('validation of staff requests', () => {
 
   it.each([
     ['a technician at a region', 'regionId', { role: 'technician', locationId: undefined, regionId: 1 }],
-    ['a technician nowhere', 'locationId', { role: 'technician', locationId: undefined }],
+    ['a technician nowhere', 'locationId', { role: 'technician', locationId: undefined }, 'Choose a location'],
     ['a technician at a location and a region', 'locationId', { role: 'technician', regionId: 1 }],
     ['a regional manager at a location', 'locationId', { role: 'regional_manager' }],
-    ['a regional manager nowhere', 'regionId', { role: 'regional_manager', locationId: undefined }],
+    ['a regional manager nowhere', 'regionId', { role: 'regional_manager', locationId: undefined }, 'Choose a region'],
     ['an owner at a region', 'regionId', { role: 'owner', locationId: undefined, regionId: 1 }],
-  ])('rejects an invite of %s, naming %s', async (_label, field, change) => {
-    await expectInvalid(await invite({ ...valid(), ...change }), { [field]: SCOPE });
+  ] as [string, string, Record<string, unknown>, string?][])('rejects an invite of %s, naming %s', async (_label, field, change, message = SCOPE) => {
+    await expectInvalid(await invite({ ...valid(), ...change }), { [field]: message });
   });
 
   it('rejects unknown fields of an invite by name', async () => {
@@ -78,7 +78,7 @@ describe('validation of staff requests', () => {
     await expectInvalid(await grant(techId, {}), { role: 'Choose a role' });
     await expectInvalid(await grant(techId, { role: 'warranty_clerk', locationId: 'here' }), { locationId: any });
     await expectInvalid(await grant(techId, { role: 'warranty_clerk', locationId: den, userId: 1 }), { userId: 'Unknown field' });
-    await expectInvalid(await grant(techId, { role: 'warranty_clerk' }), { locationId: SCOPE });
+    await expectInvalid(await grant(techId, { role: 'warranty_clerk' }), { locationId: 'Choose a location' });
     await expectInvalid(await grant('someone', { role: 'warranty_clerk', locationId: den }), { id: any });
     await expectInvalid(await grant(0, { role: 'warranty_clerk', locationId: den }), { id: any });
   });

@@ -1,6 +1,6 @@
 import { createServer, type Server } from 'node:http';
 import { resolve } from 'node:path';
-import { chromium, type Browser, type Page } from 'playwright-core';
+import { chromium, type Browser, type Locator, type Page } from 'playwright-core';
 import { DEMO_PASSWORD } from '@busbar/db';
 import { startHarness, type Harness } from './api-harness.ts';
 
@@ -67,4 +67,13 @@ export async function startE2e(): Promise<E2e> {
       await harness.close();
     },
   };
+}
+
+/**
+ * Picks an option of an ant-design select by its field label: a click on the select's box (its
+ * current choice covers the input) opens the dropdown, whose visible items are the options.
+ */
+export async function choose(page: Page, within: Locator, label: string, option: string): Promise<void> {
+  await within.locator('.ant-select').filter({ has: page.getByLabel(label) }).click();
+  await page.locator('.ant-select-dropdown:visible .ant-select-item-option', { hasText: option }).first().click();
 }

@@ -4,7 +4,7 @@ import type { ThemeConfig } from 'ant-design-vue/es/config-provider/context';
  * Busbar's look, defined once. The ant-design-vue tokens and the CSS variables below are both
  * derived from this palette; contrast ratios in comments are against the background named.
  */
-export const palette = {
+const palette = {
   copper: '#A4532A', // white text on it 5.5:1
   copperHover: '#B45F33', // white text on it 4.5:1
   copperActive: '#8C4522',
@@ -24,7 +24,7 @@ export const palette = {
 } as const;
 
 /** Status tones: text on its own background always passes WCAG AA (4.5:1 or better). */
-export const tones = {
+const tones = {
   success: { text: '#1B6B3A', background: '#E6F2EA', border: '#A9D3B8' },
   info: { text: '#1F5A8A', background: '#E7F0F8', border: '#A9C6E0' },
   warning: { text: '#8A5200', background: '#FBF1E0', border: '#E6C48A' },
@@ -44,9 +44,17 @@ export const themeConfig: ThemeConfig = {
     colorLinkHover: palette.copperActive,
     colorLinkActive: palette.copperActive,
     colorInfo: tones.info.text,
+    colorInfoBg: tones.info.background,
+    colorInfoBorder: tones.info.border,
     colorSuccess: '#1E7A43',
+    colorSuccessBg: tones.success.background,
+    colorSuccessBorder: tones.success.border,
     colorWarning: '#A15C00',
+    colorWarningBg: tones.warning.background,
+    colorWarningBorder: tones.warning.border,
     colorError: '#B42318',
+    colorErrorBg: tones.danger.background,
+    colorErrorBorder: tones.danger.border,
     colorTextBase: palette.text,
     colorTextSecondary: palette.textMuted,
     colorTextDescription: palette.textMuted,

@@ -42,7 +42,7 @@ export function staffView(viewer: Viewer, user: UserRow, all: AssignmentRow[]): 
   const own = all.filter((a) => a.userId === user.id);
   const visible = own.filter((a) => canReadAssignment(viewer.ability, a)).map(({ userId: _, ...a }) => a);
   if (visible.length === 0 && !seesEveryone(viewer.ability)) return null;
-  return { ...user, assignments: visible, canDeactivate: canManagePerson(viewer, user.id, own) };
+  return { ...user, assignments: visible, canManage: canManagePerson(viewer, user.id, own) };
 }
 
 /**
@@ -52,7 +52,7 @@ export function staffView(viewer: Viewer, user: UserRow, all: AssignmentRow[]): 
 export async function staffViewAfterChange(db: Db, viewer: Viewer, id: number): Promise<StaffPerson> {
   const user = await findUser(db, id);
   if (!user) throw notFound('person');
-  return staffView(viewer, user, await assignmentsOf(db, [id])) ?? { ...user, assignments: [], canDeactivate: false };
+  return staffView(viewer, user, await assignmentsOf(db, [id])) ?? { ...user, assignments: [], canManage: false };
 }
 
 /** Loads one person for the viewer: 404 when missing or out of the viewer's sight. */

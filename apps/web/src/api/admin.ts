@@ -1,7 +1,7 @@
 import type { AuditEntry, HealthView, LocationView, MailEntry, Page, RegionView } from '@busbar/shared';
 import { request } from './client.ts';
 
-export interface PageRequest {
+interface PageRequest {
   page?: number;
   pageSize?: number;
 }

@@ -17,8 +17,9 @@ function checkScope(value: { role: (typeof ROLES)[number]; locationId?: number |
   if (scopeFor(value.role, value) !== null) return;
   // Name the field given at the wrong scope, or else the one this role needs.
   const given = value.locationId != null ? 'locationId' : value.regionId != null ? 'regionId' : null;
-  const path = given ?? (ROLE_SCOPES[value.role].includes('location') ? 'locationId' : 'regionId');
-  ctx.addIssue({ code: 'custom', path: [path], message: 'This role cannot be held at that scope' });
+  const needed = ROLE_SCOPES[value.role].includes('location') ? 'locationId' : 'regionId';
+  const message = given ? 'This role cannot be held at that scope' : needed === 'locationId' ? 'Choose a location' : 'Choose a region';
+  ctx.addIssue({ code: 'custom', path: [given ?? needed], message });
 }
 
 export const grantRoleBody = z.strictObject(roleAtScope).superRefine(checkScope);
@@ -53,8 +54,8 @@ export interface StaffPerson {
   status: PersonStatus;
   assignments: AssignmentView[];
   lastSignInAt: string | null;
-  /** Whether the viewer may deactivate or reactivate this person. */
-  canDeactivate: boolean;
+  /** Whether the viewer may deactivate, reactivate or re-invite this person: they could remove every role held. */
+  canManage: boolean;
 }
 
 export interface InviteView {

@@ -4,7 +4,7 @@ import { useAbility } from '@casl/vue';
 import { computed, type Ref } from 'vue';
 
 /** The form value that stands for "the whole network" in a region choice. */
-export const WHOLE_NETWORK = 'network';
+const WHOLE_NETWORK = 'network';
 
 /** A role and where it applies, as the invite and grant forms hold it. */
 export interface RoleScopeDraft {

@@ -1,0 +1,1 @@
+export { buildTotals, type BuildTotals, type PricedLine } from './build-totals.ts';

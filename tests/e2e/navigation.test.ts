@@ -1,0 +1,58 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { startE2e, type E2e } from '../support/e2e-harness.ts';
+
+let e2e: E2e;
+beforeAll(async () => {
+  e2e = await startE2e();
+});
+afterAll(async () => {
+  await e2e?.close();
+});
+
+const NAV = ['Overview', 'Staff', 'Outbox', 'Audit log'] as const;
+
+// What each demo person should find in the navigation, and nothing more.
+const expected: Record<string, (typeof NAV)[number][]> = {
+  'owner@demo.busbar.test': ['Overview', 'Staff', 'Outbox', 'Audit log'],
+  'regional@demo.busbar.test': ['Overview', 'Staff'],
+  'lead@demo.busbar.test': ['Overview', 'Staff'],
+  'lead2@demo.busbar.test': ['Overview', 'Staff'],
+  'tech@demo.busbar.test': ['Overview'],
+  'warranty@demo.busbar.test': ['Overview'],
+  'accountant@demo.busbar.test': ['Overview'],
+};
+
+describe('navigation by role', () => {
+  for (const [email, items] of Object.entries(expected)) {
+    it(`shows ${email} only ${items.join(', ')}`, async () => {
+      const page = await e2e.newPage();
+      await e2e.signIn(page, email);
+      const nav = page.getByRole('navigation');
+      for (const item of NAV) {
+        await expect.poll(() => nav.getByText(item, { exact: true }).count()).toBe(items.includes(item) ? 1 : 0);
+      }
+      await page.context().close();
+    });
+  }
+
+  it('sends a person without the right to a page to the forbidden page, and an unknown address to not found', async () => {
+    const page = await e2e.newPage();
+    await e2e.signIn(page, 'tech@demo.busbar.test');
+    await page.goto('/outbox');
+    await expect.poll(() => page.getByText('No access to this page').count()).toBeGreaterThan(0);
+    await page.goto('/no-such-page');
+    await expect.poll(() => page.getByText(/not found/i).count()).toBeGreaterThan(0);
+    await page.context().close();
+  });
+
+  it('rejects a wrong password with a message and keeps the person on the sign-in page', async () => {
+    const page = await e2e.newPage();
+    await page.goto('/sign-in');
+    await page.getByLabel('E-mail').fill('lead@demo.busbar.test');
+    await page.getByLabel('Password').fill('not the password');
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await expect.poll(() => page.getByText('That e-mail and password do not match an active account').count()).toBeGreaterThan(0);
+    expect(new URL(page.url()).pathname).toBe('/sign-in');
+    await page.context().close();
+  });
+});
