@@ -1,5 +1,6 @@
 import type { Role } from '@busbar/shared';
 import type { Db } from '../connect.ts';
+import { seedDemoHistory } from './history.ts';
 import { DEMO_LOCATIONS, DEMO_REGIONS, DEMO_SIGN_INS, FIRST_NAMES, LAST_NAMES } from './network.ts';
 import { pick, seededRandom } from './random.ts';
 
@@ -11,6 +12,8 @@ export interface DemoOptions {
   passwordHash: string;
   now: Date;
   seed?: number;
+  /** Also two years of vendors, catalog, customers and builds up to `now` (see history.ts). */
+  history?: boolean;
 }
 
 interface StaffSeed {
@@ -48,7 +51,8 @@ function demoStaff(random: () => number): StaffSeed[] {
 
 /** Fills an empty database with the invented demo network. Deterministic for a seed and clock. */
 export async function seedDemoNetwork(db: Db, options: DemoOptions): Promise<void> {
-  const random = seededRandom(options.seed ?? 20261202);
+  const seed = options.seed ?? 20261202;
+  const random = seededRandom(seed);
   const createdAt = options.now.toISOString();
   await db.transaction().execute(async (trx) => {
     const regionIds = new Map<string, number>();
@@ -79,5 +83,6 @@ export async function seedDemoNetwork(db: Db, options: DemoOptions): Promise<voi
         .values({ userId: user.id, role: person.role, scope, regionId, locationId, createdAt, createdBy: null })
         .execute();
     }
+    if (options.history) await seedDemoHistory(trx, { now: options.now, seed });
   });
 }

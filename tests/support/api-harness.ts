@@ -29,14 +29,22 @@ export interface Harness {
 
 export type Agent = ReturnType<typeof request.agent> & { csrf: string };
 
-/** `keepSecretsInMailLog` false acts as production does with real SMTP. */
-export async function startHarness(overrides: Partial<Config> = {}, keepSecretsInMailLog = true): Promise<Harness> {
+/**
+ * `keepSecretsInMailLog` false acts as production does with real SMTP. `demo.history` adds the
+ * demo's two years of catalog, customers and builds to the staff network (slower; ask only when needed).
+ */
+export async function startHarness(
+  overrides: Partial<Config> = {},
+  keepSecretsInMailLog = true,
+  demo: { history?: boolean } = {},
+): Promise<Harness> {
   const dataDir = mkdtempSync(join(tmpdir(), 'busbar-test-'));
   const clock = { now: new Date('2026-06-15T15:00:00Z') };
   const now = () => clock.now;
   const db = openDatabase(join(dataDir, 'busbar.sqlite'));
   await migrateToLatest(db);
-  await seedDemoNetwork(db, { passwordHash: await hashPassword(DEMO_PASSWORD, TEST_SCRYPT_LOG_N), now: now() });
+  const passwordHash = await hashPassword(DEMO_PASSWORD, TEST_SCRYPT_LOG_N);
+  await seedDemoNetwork(db, { passwordHash, now: now(), history: demo.history });
   const mail = await startMailCapture(0);
   const mailer = createMailer(db, `smtp://127.0.0.1:${mail.port}`, 'Busbar <no-reply@busbar.test>', now, keepSecretsInMailLog);
   const config: Config = {

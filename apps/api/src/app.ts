@@ -9,10 +9,18 @@ import { errorHandler, notFound } from './errors.ts';
 import { csrfProtection } from './middleware/csrf.ts';
 import { requireSession } from './middleware/session.ts';
 import { adminRouter } from './routes/admin.ts';
+import { buildItemsRouter } from './routes/build-items.ts';
+import { buildsRouter } from './routes/builds.ts';
+import { catalogRouter } from './routes/catalog.ts';
+import { customersRouter } from './routes/customers.ts';
 import { healthRouter } from './routes/health.ts';
+import { importsRouter } from './routes/imports.ts';
 import { invitesRouter } from './routes/invites.ts';
 import { SESSION_COOKIE, sessionRouter } from './routes/session.ts';
+import { serialsRouter } from './routes/serials.ts';
 import { staffRouter } from './routes/staff.ts';
+import { vehiclesRouter } from './routes/vehicles.ts';
+import { vendorsRouter } from './routes/vendors.ts';
 
 export type { AppContext } from './context.ts';
 
@@ -25,6 +33,8 @@ export function createApp(ctx: AppContext): Express {
   const secureCookies = config.publicUrl.startsWith('https://');
 
   app.use(helmet({ contentSecurityPolicy: { directives: { upgradeInsecureRequests: null } } }));
+  // An import carries a whole CSV file; every other request stays small.
+  app.use('/api/imports', express.json({ limit: '6mb' }));
   app.use('/api', express.json({ limit: '100kb' }));
   app.use(
     '/api',
@@ -45,6 +55,13 @@ export function createApp(ctx: AppContext): Express {
   app.use('/api/session', sessionRouter(ctx));
   app.use('/api/invites', invites.public);
   app.use('/api/staff', requireSession(db), requireStaffAccess, invites.staff, staffRouter(ctx));
+  app.use('/api/vendors', requireSession(db), vendorsRouter(ctx));
+  app.use('/api/catalog', requireSession(db), catalogRouter(ctx));
+  app.use('/api/customers', requireSession(db), customersRouter(ctx));
+  app.use('/api/vehicles', requireSession(db), vehiclesRouter(ctx));
+  app.use('/api/builds', requireSession(db), buildsRouter(ctx), buildItemsRouter(ctx));
+  app.use('/api/serials', requireSession(db), serialsRouter(ctx));
+  app.use('/api/imports', requireSession(db), importsRouter(ctx));
   app.use('/api', requireSession(db), adminRouter(ctx));
   app.use('/api', () => {
     throw notFound('API route');

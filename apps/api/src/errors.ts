@@ -18,6 +18,10 @@ export const forbidden = (message = 'You do not have permission to do that') => 
 export const conflict = (message: string, fields?: Record<string, string>) =>
   new HttpError(409, 'conflict', message, fields);
 
+/** An edit made against an old version of a record (optimistic locking). */
+export const stale = () =>
+  new HttpError(409, 'stale', 'Someone changed this since you opened it. Reload to see their changes.');
+
 /** Zod issues as `{ field: message }`, naming nested fields with dots. */
 export function fieldErrors(error: ZodError): Record<string, string> {
   const fields: Record<string, string> = {};

@@ -16,5 +16,5 @@ export const PRICE_FIELDS = [
   'totalCents',
 ] as const;
 
-/** Customer contact details: hidden from the accountant everywhere. */
-export const CONTACT_FIELDS = ['email', 'phone', 'addressLine1', 'addressLine2', 'city', 'region', 'postalCode'] as const;
+/** Customer contact details, and free-text notes that may hold them: hidden from the accountant everywhere. */
+export const CONTACT_FIELDS = ['email', 'phone', 'addressLine1', 'addressLine2', 'city', 'region', 'postalCode', 'notes'] as const;

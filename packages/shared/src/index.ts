@@ -8,3 +8,4 @@ export * from './schemas/admin.ts';
 export * from './schemas/catalog.ts';
 export * from './schemas/customers.ts';
 export * from './schemas/builds.ts';
+export * from './schemas/imports.ts';

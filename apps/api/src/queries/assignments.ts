@@ -56,3 +56,17 @@ export async function countActiveOwners(db: Db): Promise<number> {
     .executeTakeFirstOrThrow();
   return Number(row.n);
 }
+
+/** Active people who may lead a build at a location: its technicians and its leads. */
+export function buildLeadsAt(db: Db, locationId: number): Promise<{ id: number; name: string }[]> {
+  return db
+    .selectFrom('users as u')
+    .innerJoin('roleAssignments as ra', 'ra.userId', 'u.id')
+    .select(['u.id', 'u.name'])
+    .distinct()
+    .where('ra.locationId', '=', locationId)
+    .where('ra.role', 'in', ['technician', 'location_lead'])
+    .where('u.status', '=', 'active')
+    .orderBy('u.name')
+    .execute();
+}

@@ -1,6 +1,6 @@
 import type { Db } from '@busbar/db';
-import { sql } from 'kysely';
 import type { PersonStatus } from '@busbar/shared';
+import { contains } from './search.ts';
 
 export interface UserRow {
   id: number;
@@ -29,10 +29,8 @@ export function searchUsers(db: Db, filter: { status: PersonStatus | 'all'; q?: 
   let query = db.selectFrom('users').select(USER_COLUMNS);
   if (filter.status !== 'all') query = query.where('status', '=', filter.status);
   if (filter.q) {
-    // SQLite's LIKE has no escape character unless the query names one.
-    const like = `%${filter.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-    const matches = (column: 'name' | 'email') => sql<boolean>`${sql.ref(column)} like ${like} escape '\\'`;
-    query = query.where((eb) => eb.or([matches('name'), matches('email')]));
+    const q = filter.q;
+    query = query.where((eb) => eb.or([contains('name', q), contains('email', q)]));
   }
   return query.orderBy('name').orderBy('id').execute();
 }

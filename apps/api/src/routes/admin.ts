@@ -1,10 +1,11 @@
 import { subject } from '@casl/ability';
-import { auditQuery, outboxQuery, type AppAbility, type Subject } from '@busbar/shared';
+import { auditQuery, idParams, outboxQuery, type AppAbility, type Subject } from '@busbar/shared';
 import { Router, type Request } from 'express';
 import type { AppContext } from '../context.ts';
-import { forbidden } from '../errors.ts';
+import { forbidden, notFound } from '../errors.ts';
 import { viewerOf } from '../middleware/session.ts';
 import { validate } from '../middleware/validate.ts';
+import { buildLeadsAt } from '../queries/assignments.ts';
 import { listAudit } from '../queries/audit.ts';
 import { listLocations, listRegions } from '../queries/locations.ts';
 import { listMail } from '../queries/mail.ts';
@@ -28,6 +29,15 @@ export function adminRouter({ db }: AppContext): Router {
     const { ability } = viewerOf(req);
     res.json((await listLocations(db)).filter((l) => ability.can('read', subject('Location', { ...l }))));
   });
+
+  router.get(
+    '/locations/:id/technicians',
+    validate({ params: idParams }, async ({ params }, req, res) => {
+      const { ability } = viewerOf(req);
+      if (!ability.can('read', subject('Location', { id: params.id }))) throw notFound('location');
+      res.json(await buildLeadsAt(db, params.id));
+    }),
+  );
 
   router.get(
     '/audit',

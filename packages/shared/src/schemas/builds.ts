@@ -164,3 +164,17 @@ export interface BuildDetail extends BuildView {
   items: BuildItemView[];
   events: BuildEventView[];
 }
+
+export const serialQuery = z.strictObject({ q: z.string().trim().min(2, 'Enter at least 2 characters').max(60) });
+
+/** One installed unit found by its serial number. */
+export interface SerialMatch {
+  serialNumber: string;
+  sku: string;
+  name: string;
+  buildId: number;
+  buildNumber: string;
+  locationCode: string;
+  status: BuildStatus;
+  deliveredAt: string | null;
+}

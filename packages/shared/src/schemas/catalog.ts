@@ -105,6 +105,7 @@ export const catalogItemUpdate = z
   .superRefine(checkSpecs);
 export type CatalogItemUpdate = z.infer<typeof catalogItemUpdate>;
 
+export type CatalogQuery = z.infer<typeof catalogQuery>;
 export const catalogQuery = z.strictObject({
   category: z.enum(CATEGORIES).optional(),
   vendorId: z.coerce.number().int().positive().optional(),
@@ -141,6 +142,7 @@ const vendorFields = {
 export const vendorBody = z.strictObject(vendorFields);
 export type VendorBody = z.infer<typeof vendorBody>;
 export const vendorUpdate = z.strictObject({ ...vendorFields, version: z.int().min(1) });
+export type VendorUpdate = z.infer<typeof vendorUpdate>;
 
 export interface VendorView {
   id: number;

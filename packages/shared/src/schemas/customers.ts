@@ -20,6 +20,7 @@ export type CustomerBody = z.infer<typeof customerBody>;
 export const customerUpdate = z.strictObject({ ...customerFields, version: z.int().min(1) });
 export type CustomerUpdate = z.infer<typeof customerUpdate>;
 
+export type CustomerQuery = z.infer<typeof customerQuery>;
 export const customerQuery = z.strictObject({
   locationId: idSchema.optional(),
   q: z.string().trim().max(100).optional(),
@@ -63,6 +64,7 @@ const vehicleFields = {
 export const vehicleBody = z.strictObject({ customerId: z.int().positive(), ...vehicleFields });
 export type VehicleBody = z.infer<typeof vehicleBody>;
 export const vehicleUpdate = z.strictObject({ ...vehicleFields, version: z.int().min(1) });
+export type VehicleUpdate = z.infer<typeof vehicleUpdate>;
 
 export interface VehicleView {
   id: number;

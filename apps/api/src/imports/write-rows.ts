@@ -1,0 +1,106 @@
+import { dayOfIso, localMoment } from '@busbar/calc';
+import type { Db } from '@busbar/db';
+import { writeAudit } from '../queries/audit.ts';
+import { addBuildEvent, recomputeTotals } from '../queries/build-changes.ts';
+import { nextBuildNumber } from '../queries/builds.ts';
+import type { CheckedRow } from './check-rows.ts';
+
+interface Location {
+  id: number;
+  code: string;
+  timeZone: string;
+  laborRateCents: number;
+}
+
+/** 17:00 on a local date in the location's zone, as a UTC instant: imported deliveries have no time. */
+const localEvening = (date: string, zone: string) => new Date(localMoment(zone, dayOfIso(date), 17 * 60)).toISOString();
+
+/** Finds the customer by e-mail at the location, or creates one; the same e-mail in a file is one customer. */
+async function customerFor(trx: Db, location: Location, row: CheckedRow['row'], at: string): Promise<number> {
+  if (row.customer_email) {
+    const existing = await trx.selectFrom('customers').select('id').where('locationId', '=', location.id).where('email', '=', row.customer_email).executeTakeFirst();
+    if (existing) return existing.id;
+  }
+  const created = await trx
+    .insertInto('customers')
+    .values({
+      locationId: location.id,
+      name: row.customer_name,
+      email: row.customer_email,
+      phone: row.customer_phone,
+      addressLine1: '',
+      addressLine2: '',
+      city: '',
+      region: '',
+      postalCode: '',
+      notes: '',
+      createdAt: at,
+    })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  return created.id;
+}
+
+async function vehicleFor(trx: Db, location: Location, customerId: number, row: CheckedRow['row']): Promise<number> {
+  const vehicle = { year: row.vehicle_year, make: row.vehicle_make, model: row.vehicle_model };
+  const existing = await trx
+    .selectFrom('vehicles')
+    .select('id')
+    .where('customerId', '=', customerId)
+    .where('year', '=', vehicle.year)
+    .where('make', '=', vehicle.make)
+    .where('model', '=', vehicle.model)
+    .executeTakeFirst();
+  if (existing) return existing.id;
+  const created = await trx
+    .insertInto('vehicles')
+    .values({ ...vehicle, customerId, locationId: location.id, bodyStyle: row.vehicle_body_style, notes: '' })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  return created.id;
+}
+
+/** Writes checked rows as builds of the location, in file order; call inside one transaction. */
+export async function writeImport(trx: Db, location: Location, rows: CheckedRow[], actorId: number, at: string): Promise<number> {
+  for (const { row, items, leadTechnicianId, line } of rows) {
+    const customerId = await customerFor(trx, location, row, at);
+    const vehicleId = await vehicleFor(trx, location, customerId, row);
+    const { sequence, number } = await nextBuildNumber(trx, location);
+    const build = await trx
+      .insertInto('builds')
+      .values({
+        locationId: location.id,
+        sequence,
+        number,
+        customerId,
+        vehicleId,
+        status: row.status,
+        leadTechnicianId,
+        bookedFor: row.booked_for || null,
+        startedAt: null,
+        deliveredAt: row.delivered_on ? localEvening(row.delivered_on, location.timeZone) : null,
+        laborHours: row.labor_hours,
+        laborRateCents: location.laborRateCents,
+        laborCents: 0,
+        partsPriceCents: 0,
+        partsCostCents: 0,
+        totalCents: 0,
+        notes: row.notes,
+        createdAt: at,
+        updatedAt: at,
+        createdBy: actorId,
+      })
+      .returning('id')
+      .executeTakeFirstOrThrow();
+    if (items.length > 0) {
+      await trx
+        .insertInto('buildItems')
+        .values(items.map((i) => ({ buildId: build.id, catalogItemId: i.catalogItemId, sku: i.sku, quantity: i.quantity, serialNumber: i.serialNumber, unitPriceCents: i.unitPriceCents, unitCostCents: i.unitCostCents, createdAt: at })))
+        .execute();
+    }
+    await recomputeTotals(trx, build.id);
+    await addBuildEvent(trx, { buildId: build.id, at, actorId, kind: 'status', toStatus: row.status, note: `Imported from line ${line}` });
+    await writeAudit(trx, { at, actorId, action: 'build.import', entity: 'build', entityId: build.id, after: { number, line, ...row } });
+  }
+  return rows.length;
+}

@@ -1,0 +1,61 @@
+import type { Db } from '@busbar/db';
+import type { Expression, SqlBool } from 'kysely';
+import type { CustomerBody, CustomerView, Page } from '@busbar/shared';
+import { contains } from './search.ts';
+
+const CUSTOMER_COLUMNS = [
+  'id', 'locationId', 'name', 'email', 'phone', 'addressLine1', 'addressLine2', 'city', 'region', 'postalCode', 'notes', 'version',
+] as const;
+
+type CustomerFields = Omit<CustomerBody, 'locationId'>;
+
+export interface CustomerFilter {
+  /** The locations whose customers the person may read, narrowed by the request's filter. */
+  locationIds: number[];
+  q?: string | undefined;
+  /** Where the person may read each contact field, and so may search by it. */
+  emailLocationIds: number[];
+  phoneLocationIds: number[];
+  page: number;
+  pageSize: number;
+}
+
+/** Customers by name; a search matches the name, or e-mail and phone where the person reads them. */
+export async function listCustomers(db: Db, filter: CustomerFilter): Promise<Page<CustomerView>> {
+  const { page, pageSize, q } = filter;
+  if (filter.locationIds.length === 0) return { items: [], total: 0, page, pageSize };
+  let query = db.selectFrom('customers').where('locationId', 'in', filter.locationIds);
+  if (q) {
+    query = query.where((eb) => {
+      const terms: Expression<SqlBool>[] = [contains('name', q)];
+      if (filter.emailLocationIds.length > 0) terms.push(eb.and([contains('email', q), eb('locationId', 'in', filter.emailLocationIds)]));
+      if (filter.phoneLocationIds.length > 0) terms.push(eb.and([contains('phone', q), eb('locationId', 'in', filter.phoneLocationIds)]));
+      return eb.or(terms);
+    });
+  }
+  const [items, count] = await Promise.all([
+    query.select(CUSTOMER_COLUMNS).orderBy('name').orderBy('id').limit(pageSize).offset((page - 1) * pageSize).execute(),
+    query.select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow(),
+  ]);
+  return { items, total: Number(count.n), page, pageSize };
+}
+
+export function findCustomer(db: Db, id: number): Promise<CustomerView | undefined> {
+  return db.selectFrom('customers').select(CUSTOMER_COLUMNS).where('id', '=', id).executeTakeFirst();
+}
+
+export async function insertCustomer(db: Db, body: CustomerBody, createdAt: string): Promise<number> {
+  const row = await db.insertInto('customers').values({ ...body, createdAt }).returning('id').executeTakeFirstOrThrow();
+  return row.id;
+}
+
+/** Writes an edit made against `version`; false when the customer has changed since. */
+export async function updateCustomer(db: Db, id: number, version: number, fields: CustomerFields): Promise<boolean> {
+  const result = await db
+    .updateTable('customers')
+    .set((eb) => ({ ...fields, version: eb('version', '+', 1) }))
+    .where('id', '=', id)
+    .where('version', '=', version)
+    .executeTakeFirst();
+  return result.numUpdatedRows > 0n;
+}

@@ -1,0 +1,110 @@
+import { subject } from '@casl/ability';
+import { buildItemAdd, buildItemParams, buildItemUpdate, idParams, versionQuery } from '@busbar/shared';
+import { Router } from 'express';
+import { authorizeBuildChange, buildDetail, loadBuild } from '../access/builds.ts';
+import type { Viewer } from '../access/viewer.ts';
+import type { AppContext } from '../context.ts';
+import { conflict, HttpError, notFound } from '../errors.ts';
+import { viewerOf } from '../middleware/session.ts';
+import { validate } from '../middleware/validate.ts';
+import { writeAudit } from '../queries/audit.ts';
+import { addBuildEvent, changeBuild, recomputeTotals, serialHolder } from '../queries/build-changes.ts';
+import type { Db } from '@busbar/db';
+
+const invalid = (field: string, message: string) => new HttpError(400, 'invalid', message, { [field]: message });
+
+/** A serial number is required for serialized components, refused for others, and unique per SKU. */
+async function checkSerial(db: Db, viewer: Viewer, item: { sku: string; serialized: boolean }, quantity: number, serialNumber: string | null, itemId = 0) {
+  if (!item.serialized) {
+    if (serialNumber) throw invalid('serialNumber', 'This component has no serial numbers');
+    return;
+  }
+  if (quantity !== 1) throw invalid('quantity', 'Serialized components are added one unit at a time');
+  if (!serialNumber) throw invalid('serialNumber', 'Enter the serial number of this unit');
+  const holder = await serialHolder(db, item.sku, serialNumber, itemId);
+  if (holder) {
+    const where = viewer.ability.can('read', subject('Build', { ...holder })) ? `build ${holder.number}` : 'another build';
+    const message = `Serial number ${serialNumber} of ${item.sku} is already recorded on ${where}`;
+    throw conflict(message, { serialNumber: message });
+  }
+}
+
+/** The components installed in a build, each change versioned against the build. */
+export function buildItemsRouter({ db, now }: AppContext): Router {
+  const router = Router();
+
+  /** Runs an item change as one versioned build change, with its totals, audit and, after delivery, a correction event. */
+  async function itemChange(viewer: Viewer, buildId: number, version: number, correction: boolean, audit: { action: string; before?: unknown; after?: unknown; note: string }, change: (trx: Db, at: string) => Promise<void>) {
+    await db.transaction().execute(async (trx) => {
+      const at = now().toISOString();
+      await changeBuild(trx, buildId, version, at);
+      await change(trx, at);
+      await recomputeTotals(trx, buildId);
+      if (correction) await addBuildEvent(trx, { buildId, at, actorId: viewer.id, kind: 'correction', note: audit.note });
+      await writeAudit(trx, { at, actorId: viewer.id, action: audit.action, entity: 'build', entityId: buildId, before: audit.before, after: audit.after });
+    });
+  }
+
+  router.post(
+    '/:id/items',
+    validate({ params: idParams, body: buildItemAdd }, async ({ params, body }, req, res) => {
+      const viewer = viewerOf(req);
+      const build = await loadBuild(db, viewer, params.id);
+      const correction = authorizeBuildChange(viewer, build, 'update', 'Component added after delivery');
+      const item = await db.selectFrom('catalogItems').selectAll().where('id', '=', body.catalogItemId).executeTakeFirst();
+      if (!item) throw invalid('catalogItemId', 'Choose a component from the catalog');
+      if (!item.active) throw invalid('catalogItemId', 'This component is no longer offered');
+      await checkSerial(db, viewer, { sku: item.sku, serialized: !!item.serialized }, body.quantity, body.serialNumber);
+      const line = { sku: item.sku, quantity: body.quantity, serialNumber: body.serialNumber, unitPriceCents: item.unitPriceCents, unitCostCents: item.unitCostCents };
+      const note = `Added ${item.sku}${body.serialNumber ? ` #${body.serialNumber}` : ` × ${body.quantity}`} after delivery`;
+      await itemChange(viewer, build.id, body.version, correction, { action: 'build.item.add', after: line, note }, async (trx, at) => {
+        await trx.insertInto('buildItems').values({ ...line, buildId: build.id, catalogItemId: item.id, createdAt: at }).execute();
+      });
+      res.status(201).json(await buildDetail(db, viewer, build.id));
+    }),
+  );
+
+  router.patch(
+    '/:id/items/:itemId',
+    validate({ params: buildItemParams, body: buildItemUpdate }, async ({ params, body }, req, res) => {
+      const viewer = viewerOf(req);
+      const build = await loadBuild(db, viewer, params.id);
+      const correction = authorizeBuildChange(viewer, build, 'update', 'Component changed after delivery');
+      const line = await db
+        .selectFrom('buildItems as i')
+        .innerJoin('catalogItems as c', 'c.id', 'i.catalogItemId')
+        .select(['i.id', 'i.sku', 'i.quantity', 'i.serialNumber', 'c.serialized'])
+        .where('i.id', '=', params.itemId)
+        .where('i.buildId', '=', build.id)
+        .executeTakeFirst();
+      if (!line) throw notFound('component on this build');
+      const quantity = body.quantity ?? line.quantity;
+      const serialNumber = body.serialNumber === undefined ? line.serialNumber : body.serialNumber;
+      await checkSerial(db, viewer, { sku: line.sku, serialized: !!line.serialized }, quantity, serialNumber, line.id);
+      const before = { sku: line.sku, quantity: line.quantity, serialNumber: line.serialNumber };
+      const note = `Changed ${line.sku} after delivery`;
+      await itemChange(viewer, build.id, body.version, correction, { action: 'build.item.update', before, after: { sku: line.sku, quantity, serialNumber }, note }, async (trx) => {
+        await trx.updateTable('buildItems').set({ quantity, serialNumber }).where('id', '=', line.id).execute();
+      });
+      res.json(await buildDetail(db, viewer, build.id));
+    }),
+  );
+
+  router.delete(
+    '/:id/items/:itemId',
+    validate({ params: buildItemParams, query: versionQuery }, async ({ params, query }, req, res) => {
+      const viewer = viewerOf(req);
+      const build = await loadBuild(db, viewer, params.id);
+      const correction = authorizeBuildChange(viewer, build, 'update', 'Component removed after delivery');
+      const line = await db.selectFrom('buildItems').selectAll().where('id', '=', params.itemId).where('buildId', '=', build.id).executeTakeFirst();
+      if (!line) throw notFound('component on this build');
+      const note = `Removed ${line.sku}${line.serialNumber ? ` #${line.serialNumber}` : ''} after delivery`;
+      await itemChange(viewer, build.id, query.version, correction, { action: 'build.item.remove', before: line, note }, async (trx) => {
+        await trx.deleteFrom('buildItems').where('id', '=', line.id).execute();
+      });
+      res.json(await buildDetail(db, viewer, build.id));
+    }),
+  );
+
+  return router;
+}

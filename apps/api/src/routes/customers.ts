@@ -1,0 +1,89 @@
+import { subject } from '@casl/ability';
+import { customerBody, customerQuery, customerUpdate, idParams, type AppAbility } from '@busbar/shared';
+import { Router } from 'express';
+import { locationsWhere, readable } from '../access/fields.ts';
+import type { AppContext } from '../context.ts';
+import { forbidden, notFound, stale } from '../errors.ts';
+import { viewerOf } from '../middleware/session.ts';
+import { validate } from '../middleware/validate.ts';
+import { writeAudit } from '../queries/audit.ts';
+import { findCustomer, insertCustomer, listCustomers, updateCustomer } from '../queries/customers.ts';
+import { listLocations } from '../queries/locations.ts';
+import { vehiclesOf } from '../queries/vehicles.ts';
+
+/** Of these locations, those where the person reads a customer's field. */
+const readingField = (ability: AppAbility, field: string, locationIds: number[]) =>
+  locationIds.filter((locationId) => ability.can('read', subject('Customer', { locationId }), field));
+
+/** Customers of the locations a person may see, without the contact details they may not read. */
+export function customersRouter({ db, now }: AppContext): Router {
+  const router = Router();
+
+  router.get(
+    '/',
+    validate({ query: customerQuery }, async ({ query }, req, res) => {
+      const { ability } = viewerOf(req);
+      if (!ability.can('read', 'Customer')) throw forbidden();
+      const visible = locationsWhere(ability, 'read', 'Customer', (await listLocations(db)).map((l) => l.id));
+      const locationIds = query.locationId ? visible.filter((id) => id === query.locationId) : visible;
+      const page = await listCustomers(db, {
+        q: query.q,
+        page: query.page,
+        pageSize: query.pageSize,
+        locationIds,
+        emailLocationIds: readingField(ability, 'email', locationIds),
+        phoneLocationIds: readingField(ability, 'phone', locationIds),
+      });
+      res.json({ ...page, items: page.items.map((c) => readable(ability, 'Customer', c)) });
+    }),
+  );
+
+  router.get(
+    '/:id',
+    validate({ params: idParams }, async ({ params }, req, res) => {
+      const { ability } = viewerOf(req);
+      const customer = await findCustomer(db, params.id);
+      if (!customer || !ability.can('read', subject('Customer', { ...customer }))) throw notFound('customer');
+      const vehicles = (await vehiclesOf(db, customer.id))
+        .filter((v) => ability.can('read', subject('Vehicle', { ...v })))
+        .map((v) => readable(ability, 'Vehicle', v));
+      res.json({ ...readable(ability, 'Customer', customer), vehicles });
+    }),
+  );
+
+  router.post(
+    '/',
+    validate({ body: customerBody }, async ({ body }, req, res) => {
+      const viewer = viewerOf(req);
+      const location = (await listLocations(db)).find((l) => l.id === body.locationId);
+      if (!location || !viewer.ability.can('read', subject('Location', { ...location }))) throw notFound('location');
+      if (!viewer.ability.can('create', subject('Customer', { locationId: location.id }))) throw forbidden('You cannot add customers at this location');
+      const customer = await db.transaction().execute(async (trx) => {
+        const at = now().toISOString();
+        const after = (await findCustomer(trx, await insertCustomer(trx, body, at)))!;
+        await writeAudit(trx, { at, actorId: viewer.id, action: 'customer.create', entity: 'customer', entityId: after.id, after });
+        return after;
+      });
+      res.status(201).json(readable(viewer.ability, 'Customer', customer));
+    }),
+  );
+
+  router.put(
+    '/:id',
+    validate({ params: idParams, body: customerUpdate }, async ({ params, body: { version, ...fields } }, req, res) => {
+      const viewer = viewerOf(req);
+      const customer = await db.transaction().execute(async (trx) => {
+        const before = await findCustomer(trx, params.id);
+        if (!before || !viewer.ability.can('read', subject('Customer', { ...before }))) throw notFound('customer');
+        if (!viewer.ability.can('update', subject('Customer', { ...before }))) throw forbidden('You cannot change customers at this location');
+        if (!(await updateCustomer(trx, before.id, version, fields))) throw stale();
+        const after = (await findCustomer(trx, before.id))!;
+        await writeAudit(trx, { at: now().toISOString(), actorId: viewer.id, action: 'customer.update', entity: 'customer', entityId: before.id, before, after });
+        return after;
+      });
+      res.json(readable(viewer.ability, 'Customer', customer));
+    }),
+  );
+
+  return router;
+}

@@ -1,0 +1,19 @@
+import type { Insertable } from 'kysely';
+import type { Db } from '../connect.ts';
+import type { Database } from '../schema/index.ts';
+
+/** Rows per statement: well under SQLite's limit of bound values even for the widest table. */
+const CHUNK_ROWS = 300;
+
+/** Inserts many rows with one multi-row statement per chunk. */
+export async function insertInChunks<T extends keyof Database & string>(db: Db, table: T, rows: Insertable<Database[T]>[]): Promise<void> {
+  for (let start = 0; start < rows.length; start += CHUNK_ROWS) {
+    await db.insertInto(table).values(rows.slice(start, start + CHUNK_ROWS)).execute();
+  }
+}
+
+/** The largest id in a table so far, so generated rows can carry their ids from the start. */
+export async function lastId(db: Db, table: 'customers' | 'vehicles' | 'builds'): Promise<number> {
+  const row = await db.selectFrom(table).select((eb) => eb.fn.max('id').as('id')).executeTakeFirst();
+  return Number(row?.id ?? 0);
+}

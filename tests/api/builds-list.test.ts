@@ -1,0 +1,82 @@
+import type { BuildDetail, BuildView } from '@busbar/shared';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { demoIds, startHarness, type Agent, type Harness } from '../support/api-harness.ts';
+import { addParts, createBuild, moveThrough } from '../support/build-fixtures.ts';
+import { SIGN_INS } from '../support/staff-fixtures.ts';
+
+let h: Harness;
+let lead: Agent;
+let owner: Agent;
+let ids: Awaited<ReturnType<typeof demoIds>>;
+let builds: BuildDetail[];
+
+beforeAll(async () => {
+  h = await startHarness();
+  ids = await demoIds(h.db);
+  const parts = await addParts(h.db);
+  lead = await h.signedIn(SIGN_INS.lead);
+  owner = await h.signedIn(SIGN_INS.owner);
+  const tech = ids.user(SIGN_INS.tech);
+  const den = ids.location('DEN');
+  builds = [
+    await createBuild(h.db, lead, den, { leadTechnicianId: tech, bookedFor: '2026-05-02' }),
+    await createBuild(h.db, lead, den, { bookedFor: '2026-06-10' }),
+    await createBuild(h.db, lead, den, { leadTechnicianId: tech, bookedFor: '2026-07-20' }),
+  ];
+  builds[1] = await moveThrough(lead, builds[1]!, ['quoted']);
+  const withSerial = await lead.post(`/api/builds/${builds[2]!.id}/items`).send({ version: builds[2]!.version, catalogItemId: parts.battery.id, quantity: 1, serialNumber: 'KSTR-4471-B' });
+  builds[2] = withSerial.body;
+  await createBuild(h.db, await h.signedIn(SIGN_INS.lead2), ids.location('AVL'), { bookedFor: '2026-06-11' });
+});
+afterAll(() => h.close());
+
+const numbers = async (agent: Agent, query: string) => {
+  const res = await agent.get(`/api/builds?${query}`);
+  expect(res.status).toBe(200);
+  return (res.body.items as BuildView[]).map((b) => b.number);
+};
+
+describe('the build list', () => {
+  it('filters by status, one or several', async () => {
+    expect(await numbers(lead, 'status=quoted')).toEqual(['DEN-00002']);
+    expect(await numbers(lead, 'status=quoted&status=draft&sort=number&order=asc')).toEqual(['DEN-00001', 'DEN-00002', 'DEN-00003']);
+  });
+
+  it('filters by lead technician, location and booked date range', async () => {
+    expect(await numbers(lead, `technicianId=${ids.user(SIGN_INS.tech)}&sort=number&order=asc`)).toEqual(['DEN-00001', 'DEN-00003']);
+    expect(await numbers(owner, `locationId=${ids.location('AVL')}`)).toEqual(['AVL-00001']);
+    expect(await numbers(owner, 'from=2026-06-01&to=2026-06-30&sort=number&order=asc')).toEqual(['AVL-00001', 'DEN-00002']);
+  });
+
+  it('searches build numbers, customer names and serial numbers', async () => {
+    expect(await numbers(lead, 'q=00003')).toEqual(['DEN-00003']);
+    expect(await numbers(lead, `q=${encodeURIComponent(builds[1]!.customerName)}`)).toEqual(['DEN-00002']);
+    expect(await numbers(lead, 'q=4471')).toEqual(['DEN-00003']);
+    expect(await numbers(lead, 'q=%25')).toEqual([]);
+  });
+
+  it('sorts and pages', async () => {
+    expect(await numbers(owner, 'sort=bookedFor&order=desc')).toEqual(['DEN-00003', 'AVL-00001', 'DEN-00002', 'DEN-00001']);
+    const page = await owner.get('/api/builds?sort=number&order=asc&page=2&pageSize=3');
+    expect(page.body).toMatchObject({ total: 4, page: 2, pageSize: 3 });
+    expect(page.body.items.map((b: BuildView) => b.number)).toEqual(['DEN-00003']);
+  });
+
+  it('rejects filters it does not know, naming them', async () => {
+    const res = await lead.get('/api/builds?status=finished&sort=price&colour=red');
+    expect(res.status).toBe(400);
+    expect(Object.keys(res.body.error.fields).sort()).toEqual(['colour', 'sort', 'status']);
+  });
+});
+
+describe('finding a serial number', () => {
+  it('finds an installed unit by the start of its serial number, within the locations the person may see', async () => {
+    const found = await lead.get('/api/serials?q=kstr-44');
+    expect(found.body).toEqual([
+      expect.objectContaining({ serialNumber: 'KSTR-4471-B', buildNumber: 'DEN-00003', locationCode: 'DEN', status: 'draft' }),
+    ]);
+    expect((await (await h.signedIn(SIGN_INS.lead2)).get('/api/serials?q=KSTR')).body).toEqual([]);
+    expect((await (await h.signedIn(SIGN_INS.warranty)).get('/api/serials?q=KSTR')).body).toHaveLength(1);
+    expect((await lead.get('/api/serials?q=K')).body.error.fields).toEqual({ q: 'Enter at least 2 characters' });
+  });
+});
