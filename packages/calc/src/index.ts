@@ -1,2 +1,54 @@
 export { buildTotals, type BuildTotals, type PricedLine } from './build-totals.ts';
 export { addWorkdays, DAY_MS, dayOfIso, isoDay, localDay, localMoment, monthOf, weekday } from './local-time.ts';
+export { ampacityAwgForMm2, conductorAmpacityA, INSULATION_RATINGS_C, type AmpacityInput, type InsulationRatingC } from './ampacity.ts';
+export {
+  bankNominalV,
+  BATTERY_CHEMISTRIES,
+  capacityForUsableAh,
+  CHEMISTRIES,
+  DEFAULT_RATED_HOURS,
+  hoursToRefill,
+  peukertRuntimeH,
+  usableCapacity,
+  type BankSpec,
+  type Chemistry,
+  type ChemistryData,
+  type PeukertInput,
+  type RefillInput,
+  type UsableCapacity,
+} from './batteries.ts';
+export { conductorResistanceOhmsPerM, voltageDrop, type VoltageDrop, type VoltageDropInput } from './conductors.ts';
+export { dailyEnergy, inverterInputA, type DailyEnergy, type EnergyOptions, type InverterInput, type Load } from './energy.ts';
+export { FUSE_MAX_OF_AMPACITY, FUSE_MIN_OF_LOAD, selectFuseA, STANDARD_FUSE_RATINGS_A, type FuseRequest } from './fuses.ts';
+export { evaluatePlan } from './plan.ts';
+export { STARTER_SPARE_FRACTION } from './plan-bank.ts';
+export { MAX_DROP_PERCENT } from './plan-circuits.ts';
+export type {
+  CheckedConductor,
+  CircuitResult,
+  DayKind,
+  Finding,
+  FindingCode,
+  HourState,
+  PlanBank,
+  PlanCircuit,
+  PlanInput,
+  PlanLoad,
+  PlanResult,
+  PlanTrip,
+  SimulatedBank,
+  Verdict,
+} from './plan-types.ts';
+export { SAFETY_CAUTION } from './safety.ts';
+export { selectConductor, type ConductorChoice, type ConductorRequest } from './select-conductor.ts';
+export { AWG_SIZES, conductorLabel, conductorSizes, MM2_SIZES, type Awg, type ConductorSize, type Gauge, type Mm2 } from './sizes.ts';
+export {
+  combinedLossFraction,
+  CONTROLLER_HARVEST,
+  PVWATTS_V5_LOSS_FRACTION,
+  PVWATTS_V5_LOSSES,
+  solarDailyWh,
+  type SolarController,
+  type SolarInput,
+} from './solar.ts';
+export { awgAreaMm2, awgCircularMils, circularMilsToMm2, feetToMeters, metersToFeet, mm2ToCircularMils } from './units.ts';
