@@ -17,3 +17,23 @@ export function scopeLabel(a: AssignmentView): string {
 export function assignmentLabel(a: AssignmentView): string {
   return `${ROLE_LABELS[a.role]} · ${scopeLabel(a)}`;
 }
+
+const dollars = new Intl.NumberFormat('en-US', { style: 'currency', currency: 'USD' });
+
+/** Integer cents as dollars, e.g. 123456 → "$1,234.56". */
+export function formatMoney(cents: number): string {
+  return dollars.format(cents / 100);
+}
+
+/** A calendar date (YYYY-MM-DD), or the viewer's day of a moment, in words, e.g. "Jun 20, 2026". */
+export function formatDate(isoDate: string | null, empty = '—'): string {
+  return isoDate ? dayjs(isoDate).format('MMM D, YYYY') : empty;
+}
+
+/** Hours with at most two decimals, e.g. 6.5 → "6.5 h". */
+export function formatHours(hours: number): string {
+  return `${Number(hours.toFixed(2))} h`;
+}
+
+/** Date pickers show "Jun 20, 2026" and also take a typed ISO date (2026-06-20). */
+export const DATE_FORMATS = ['MMM D, YYYY', 'YYYY-MM-DD'];

@@ -16,3 +16,12 @@ export const listAudit = (query: PageRequest & { entity?: string }) =>
   request<Page<AuditEntry>>('/audit', { query: { ...query } });
 
 export const listOutbox = (query: PageRequest) => request<Page<MailEntry>>('/outbox', { query: { ...query } });
+
+/** People who may lead a build at a location. */
+export interface TechnicianOption {
+  id: number;
+  name: string;
+}
+
+export const listTechnicians = (locationId: number) =>
+  request<TechnicianOption[]>(`/locations/${locationId}/technicians`);

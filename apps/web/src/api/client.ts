@@ -13,7 +13,8 @@ export class ApiError extends Error {
   }
 }
 
-type Query = Record<string, string | number | undefined | null>;
+/** Query values; a list repeats its key (`status=a&status=b`). */
+type Query = Record<string, string | number | boolean | readonly string[] | undefined | null>;
 
 interface RequestOptions {
   method?: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
@@ -40,7 +41,8 @@ function csrfToken(): string | undefined {
 function urlOf(path: string, query: Query = {}): string {
   const params = new URLSearchParams();
   for (const [key, value] of Object.entries(query)) {
-    if (value !== undefined && value !== null && value !== '') params.set(key, String(value));
+    if (Array.isArray(value)) for (const item of value) params.append(key, item);
+    else if (value !== undefined && value !== null && value !== '') params.set(key, String(value));
   }
   const search = params.toString();
   return `/api${path}${search ? `?${search}` : ''}`;
@@ -93,4 +95,9 @@ export async function request<T>(path: string, options: RequestOptions = {}): Pr
 export function messageOf(error: unknown): string {
   if (error instanceof ApiError) return error.message;
   return 'Something went wrong in Busbar. Reload the page and try again.';
+}
+
+/** True for the answer to a change made against an old version of a record (someone saved first). */
+export function isStale(error: unknown): error is ApiError {
+  return error instanceof ApiError && error.status === 409 && error.code === 'stale';
 }

@@ -62,12 +62,14 @@ export function usePagedList<T, Filters extends object>(
   );
 
   function replaceQuery(query: LocationQueryRaw) {
-    for (const [key, value] of Object.entries(query)) if (value === undefined || value === '') delete query[key];
+    for (const [key, value] of Object.entries(query)) {
+      if (value === undefined || value === '' || (Array.isArray(value) && value.length === 0)) delete query[key];
+    }
     void router.replace({ query });
   }
 
   /** Changes filters in the address bar; any filter change goes back to the first page. */
-  function setFilters(changes: Partial<Record<keyof Filters, string | number | undefined>>) {
+  function setFilters(changes: Partial<Record<keyof Filters, string | number | string[] | undefined>>) {
     replaceQuery({ ...route.query, ...changes, page: undefined });
   }
 

@@ -1,9 +1,24 @@
-import { AuditOutlined, HomeOutlined, MailOutlined, TeamOutlined } from '@ant-design/icons-vue';
+import {
+  AppstoreOutlined,
+  AuditOutlined,
+  BarcodeOutlined,
+  ContactsOutlined,
+  HomeOutlined,
+  MailOutlined,
+  ShopOutlined,
+  TeamOutlined,
+  ToolOutlined,
+} from '@ant-design/icons-vue';
 import type { Component } from 'vue';
 
 /** The main menu; each entry opens the route of the same name, whose meta says who may use it. */
 export const NAVIGATION: { route: string; label: string; icon: Component }[] = [
   { route: 'overview', label: 'Overview', icon: HomeOutlined },
+  { route: 'builds', label: 'Builds', icon: ToolOutlined },
+  { route: 'customers', label: 'Customers', icon: ContactsOutlined },
+  { route: 'serials', label: 'Find a serial', icon: BarcodeOutlined },
+  { route: 'catalog', label: 'Catalog', icon: AppstoreOutlined },
+  { route: 'vendors', label: 'Vendors', icon: ShopOutlined },
   { route: 'staff', label: 'Staff', icon: TeamOutlined },
   { route: 'outbox', label: 'Outbox', icon: MailOutlined },
   { route: 'audit', label: 'Audit log', icon: AuditOutlined },

@@ -1,0 +1,29 @@
+import { BUILD_SORTS, BUILD_STATUSES, type BuildStatus } from '@busbar/shared';
+import type { LocationQuery } from 'vue-router';
+import type { BuildSort } from '../../api/builds.ts';
+import { positiveInt } from '../../composables/usePagedList.ts';
+
+const isoDate = (value: unknown) => (typeof value === 'string' && /^\d{4}-\d{2}-\d{2}$/.test(value) ? value : undefined);
+
+/** The build list's filters and order as the address bar holds them; anything unknown is dropped. */
+export function readBuildFilters(query: LocationQuery) {
+  const statuses = ([] as unknown[]).concat(query.status ?? []);
+  const q = typeof query.q === 'string' ? query.q.trim() : '';
+  return {
+    status: BUILD_STATUSES.filter((s) => statuses.includes(s)) as BuildStatus[],
+    locationId: positiveInt(query.locationId),
+    technicianId: positiveInt(query.technicianId),
+    from: isoDate(query.from),
+    to: isoDate(query.to),
+    q: q || undefined,
+    sort: (BUILD_SORTS.find((s) => s === query.sort) ?? 'updatedAt') as BuildSort,
+    order: query.order === 'asc' ? ('asc' as const) : ('desc' as const),
+  };
+}
+
+export type BuildFilters = ReturnType<typeof readBuildFilters>;
+
+/** Whether any filter narrows the list (the order does not count). */
+export function isFiltered(f: BuildFilters): boolean {
+  return f.status.length > 0 || Boolean(f.locationId || f.technicianId || f.from || f.to || f.q);
+}
