@@ -1,7 +1,7 @@
 import type { BuildDetail } from '@busbar/shared';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { demoIds, startHarness, type Agent, type Harness } from '../support/api-harness.ts';
-import { addParts, createBuild } from '../support/build-fixtures.ts';
+import { addParts, createBuild, moveThrough } from '../support/build-fixtures.ts';
 import { addCatalogItem } from '../support/catalog-fixtures.ts';
 import { SIGN_INS } from '../support/staff-fixtures.ts';
 
@@ -23,12 +23,9 @@ const add = (agent: Agent, build: BuildDetail, body: object) => agent.post(`/api
 const itemCount = async () => Number((await h.db.selectFrom('buildItems').select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow()).n);
 
 describe('components of a build', () => {
-  it('asks a serialized component for its serial number, one unit at a time', async () => {
+  it('takes a serialized component one unit at a time, and refuses other bad lines, writing nothing', async () => {
     const build = await createBuild(h.db, lead, ids.location('DEN'));
     const before = await itemCount();
-    expect((await add(lead, build, { catalogItemId: parts.battery.id, quantity: 1 })).body.error.fields).toEqual({
-      serialNumber: 'Enter the serial number of this unit',
-    });
     expect((await add(lead, build, { catalogItemId: parts.battery.id, quantity: 2, serialNumber: 'A-1' })).body.error.fields).toEqual({
       quantity: 'Serialized components are added one unit at a time',
     });
@@ -40,6 +37,25 @@ describe('components of a build', () => {
       catalogItemId: 'Choose a component from the catalog',
     });
     expect(await itemCount()).toBe(before);
+  });
+
+  it('lets a planned unit wait for its serial number until the build leaves the bay', async () => {
+    const tech = ids.user(SIGN_INS.tech);
+    let build = await createBuild(h.db, lead, ids.location('DEN'), { leadTechnicianId: tech, bookedFor: '2026-06-16' });
+    const planned = await add(lead, build, { catalogItemId: parts.battery.id, quantity: 1 });
+    expect(planned.status).toBe(201);
+    expect(planned.body.items[0]).toMatchObject({ serialized: true, serialNumber: null });
+    build = await moveThrough(lead, planned.body, ['quoted', 'booked', 'in_bay']);
+    const out = await lead.post(`/api/builds/${build.id}/status`).send({ version: build.version, to: 'quality_check' });
+    expect(out.status).toBe(400);
+    expect(out.body.error.fields).toEqual({ to: `Record the serial numbers first: ${parts.battery.sku}` });
+    const fitted = await lead.patch(`/api/builds/${build.id}/items/${build.items[0]!.id}`).send({ version: build.version, serialNumber: 'LFP-FIT-1' });
+    expect(fitted.body.items[0].serialNumber).toBe('LFP-FIT-1');
+    build = await moveThrough(lead, fitted.body, ['quality_check']);
+    // At the final check a unit goes in only with its serial number.
+    expect((await add(lead, build, { catalogItemId: parts.charger.id, quantity: 1 })).body.error.fields).toEqual({
+      serialNumber: 'Enter the serial number of this unit',
+    });
   });
 
   it('refuses a serial number already installed for the same SKU anywhere, naming the build only to those who may see it', async () => {

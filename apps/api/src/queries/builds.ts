@@ -67,14 +67,15 @@ export function findBuild(db: Db, id: number): Promise<BuildRow | undefined> {
   return buildsWithNames(db).where('b.id', '=', id).executeTakeFirst();
 }
 
-export function buildItems(db: Db, buildId: number): Promise<Required<BuildItemView>[]> {
-  return db
+export async function buildItems(db: Db, buildId: number): Promise<Required<BuildItemView>[]> {
+  const rows = await db
     .selectFrom('buildItems as i')
     .innerJoin('catalogItems as ci', 'ci.id', 'i.catalogItemId')
-    .select(['i.id', 'i.catalogItemId', 'i.sku', 'ci.name', 'ci.category', 'i.quantity', 'i.serialNumber', 'i.unitPriceCents', 'i.unitCostCents'])
+    .select(['i.id', 'i.catalogItemId', 'i.sku', 'ci.name', 'ci.category', 'i.quantity', 'ci.serialized', 'i.serialNumber', 'i.unitPriceCents', 'i.unitCostCents'])
     .where('i.buildId', '=', buildId)
     .orderBy('i.id')
     .execute();
+  return rows.map((row) => ({ ...row, serialized: row.serialized === 1 }));
 }
 
 export function buildEvents(db: Db, buildId: number): Promise<BuildEventView[]> {

@@ -1,5 +1,5 @@
 import { subject } from '@casl/ability';
-import { buildItemAdd, buildItemParams, buildItemUpdate, idParams, versionQuery } from '@busbar/shared';
+import { buildItemAdd, buildItemParams, buildItemUpdate, idParams, SERIAL_MAY_WAIT, versionQuery } from '@busbar/shared';
 import { Router } from 'express';
 import { authorizeBuildChange, buildDetail, loadBuild } from '../access/builds.ts';
 import type { Viewer } from '../access/viewer.ts';
@@ -9,18 +9,25 @@ import { viewerOf } from '../middleware/session.ts';
 import { validate } from '../middleware/validate.ts';
 import { writeAudit } from '../queries/audit.ts';
 import { addBuildEvent, changeBuild, recomputeTotals, serialHolder } from '../queries/build-changes.ts';
+import type { BuildRow } from '../queries/builds.ts';
 import type { Db } from '@busbar/db';
 
 const invalid = (field: string, message: string) => new HttpError(400, 'invalid', message, { [field]: message });
 
-/** A serial number is required for serialized components, refused for others, and unique per SKU. */
-async function checkSerial(db: Db, viewer: Viewer, item: { sku: string; serialized: boolean }, quantity: number, serialNumber: string | null, itemId = 0) {
+/**
+ * A serialized component is one unit per line and needs its serial number once the build leaves the
+ * bay; other components take none. A serial number is unique per SKU across the network.
+ */
+async function checkSerial(db: Db, viewer: Viewer, build: BuildRow, item: { sku: string; serialized: boolean }, quantity: number, serialNumber: string | null, itemId = 0) {
   if (!item.serialized) {
     if (serialNumber) throw invalid('serialNumber', 'This component has no serial numbers');
     return;
   }
   if (quantity !== 1) throw invalid('quantity', 'Serialized components are added one unit at a time');
-  if (!serialNumber) throw invalid('serialNumber', 'Enter the serial number of this unit');
+  if (!serialNumber) {
+    if (SERIAL_MAY_WAIT.includes(build.status)) return;
+    throw invalid('serialNumber', 'Enter the serial number of this unit');
+  }
   const holder = await serialHolder(db, item.sku, serialNumber, itemId);
   if (holder) {
     const where = viewer.ability.can('read', subject('Build', { ...holder })) ? `build ${holder.number}` : 'another build';
@@ -54,7 +61,7 @@ export function buildItemsRouter({ db, now }: AppContext): Router {
       const item = await db.selectFrom('catalogItems').selectAll().where('id', '=', body.catalogItemId).executeTakeFirst();
       if (!item) throw invalid('catalogItemId', 'Choose a component from the catalog');
       if (!item.active) throw invalid('catalogItemId', 'This component is no longer offered');
-      await checkSerial(db, viewer, { sku: item.sku, serialized: !!item.serialized }, body.quantity, body.serialNumber);
+      await checkSerial(db, viewer, build, { sku: item.sku, serialized: !!item.serialized }, body.quantity, body.serialNumber);
       const line = { sku: item.sku, quantity: body.quantity, serialNumber: body.serialNumber, unitPriceCents: item.unitPriceCents, unitCostCents: item.unitCostCents };
       const note = `Added ${item.sku}${body.serialNumber ? ` #${body.serialNumber}` : ` × ${body.quantity}`} after delivery`;
       await itemChange(viewer, build.id, body.version, correction, { action: 'build.item.add', after: line, note }, async (trx, at) => {
@@ -80,7 +87,7 @@ export function buildItemsRouter({ db, now }: AppContext): Router {
       if (!line) throw notFound('component on this build');
       const quantity = body.quantity ?? line.quantity;
       const serialNumber = body.serialNumber === undefined ? line.serialNumber : body.serialNumber;
-      await checkSerial(db, viewer, { sku: line.sku, serialized: !!line.serialized }, quantity, serialNumber, line.id);
+      await checkSerial(db, viewer, build, { sku: line.sku, serialized: !!line.serialized }, quantity, serialNumber, line.id);
       const before = { sku: line.sku, quantity: line.quantity, serialNumber: line.serialNumber };
       const note = `Changed ${line.sku} after delivery`;
       await itemChange(viewer, build.id, body.version, correction, { action: 'build.item.update', before, after: { sku: line.sku, quantity, serialNumber }, note }, async (trx) => {

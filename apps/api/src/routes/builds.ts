@@ -9,7 +9,7 @@ import { viewerOf } from '../middleware/session.ts';
 import { validate } from '../middleware/validate.ts';
 import { writeAudit } from '../queries/audit.ts';
 import { addBuildEvent, changeBuild, recomputeTotals } from '../queries/build-changes.ts';
-import { listBuilds, nextBuildNumber } from '../queries/builds.ts';
+import { buildItems, listBuilds, nextBuildNumber } from '../queries/builds.ts';
 
 const invalid = (field: string, message: string) => new HttpError(400, 'invalid', message, { [field]: message });
 
@@ -104,6 +104,10 @@ export function buildsRouter({ db, now }: AppContext): Router {
       if (!viewer.ability.can(transition.action, subject('Build', { ...row }))) throw forbidden('You cannot make this change of status');
       if (body.to === 'booked' && !row.bookedFor) throw invalid('to', 'Set the booked date before booking');
       if (body.to === 'in_bay' && !row.leadTechnicianId) throw invalid('to', 'Choose a lead technician before the build goes in the bay');
+      if (body.to === 'quality_check' || body.to === 'delivered') {
+        const missing = (await buildItems(db, row.id)).filter((i) => i.serialized && !i.serialNumber).map((i) => i.sku);
+        if (missing.length > 0) throw invalid('to', `Record the serial numbers first: ${missing.join(', ')}`);
+      }
       await db.transaction().execute(async (trx) => {
         const at = now().toISOString();
         await changeBuild(trx, row.id, body.version, at, {

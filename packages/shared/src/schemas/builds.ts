@@ -35,6 +35,9 @@ export const BUILD_TRANSITIONS: readonly { from: BuildStatus; to: BuildStatus; a
   })),
 ];
 
+/** Statuses in which a serialized unit may wait for its serial number: planned, or being fitted. */
+export const SERIAL_MAY_WAIT: readonly BuildStatus[] = ['draft', 'quoted', 'booked', 'in_bay'];
+
 /** The transition from one status to another, if the workflow allows it at all. */
 export function findTransition(from: BuildStatus, to: BuildStatus) {
   return BUILD_TRANSITIONS.find((t) => t.from === from && t.to === to);
@@ -116,6 +119,8 @@ export interface BuildItemView {
   name: string;
   category: Category;
   quantity: number;
+  /** Whether each unit carries a serial number (from the catalog item). */
+  serialized: boolean;
   serialNumber: string | null;
   unitPriceCents?: number;
   unitCostCents?: number;
