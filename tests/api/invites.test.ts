@@ -1,4 +1,3 @@
-import { DEMO_PASSWORD } from '@busbar/db';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { demoIds, startHarness, type Harness } from '../support/api-harness.ts';
 import { freshEmail, SIGN_INS, tokenOf } from '../support/staff-fixtures.ts';

@@ -3,8 +3,9 @@ import { BUILD_STATUS_LABELS, buildCreate, buildQuery, buildStatusChange, buildU
 import { Router } from 'express';
 import { authorizeBuildChange, buildDetail, buildLocations, buildView, loadBuild } from '../access/builds.ts';
 import { checkBuildReferences } from '../access/build-references.ts';
+import { locationToAddAt } from '../access/locations.ts';
 import type { AppContext } from '../context.ts';
-import { forbidden, HttpError, notFound } from '../errors.ts';
+import { forbidden, HttpError } from '../errors.ts';
 import { viewerOf } from '../middleware/session.ts';
 import { validate } from '../middleware/validate.ts';
 import { writeAudit } from '../queries/audit.ts';
@@ -37,9 +38,7 @@ export function buildsRouter({ db, now }: AppContext): Router {
     '/',
     validate({ body: buildCreate }, async ({ body }, req, res) => {
       const viewer = viewerOf(req);
-      const location = await db.selectFrom('locations').selectAll().where('id', '=', body.locationId).executeTakeFirst();
-      if (!location || !viewer.ability.can('read', subject('Location', { ...location }))) throw notFound('location');
-      if (!viewer.ability.can('create', subject('Build', { locationId: location.id }))) throw forbidden('You cannot book builds at this location');
+      const location = await locationToAddAt(db, viewer, body.locationId, 'Build', 'You cannot book builds at this location');
       await checkBuildReferences(db, location.id, body);
       const id = await db.transaction().execute(async (trx) => {
         const at = now().toISOString();

@@ -2,6 +2,7 @@ import { subject } from '@casl/ability';
 import { customerBody, customerQuery, customerUpdate, idParams, type AppAbility } from '@busbar/shared';
 import { Router } from 'express';
 import { locationsWhere, readable } from '../access/fields.ts';
+import { locationToAddAt } from '../access/locations.ts';
 import type { AppContext } from '../context.ts';
 import { forbidden, notFound, stale } from '../errors.ts';
 import { viewerOf } from '../middleware/session.ts';
@@ -55,9 +56,7 @@ export function customersRouter({ db, now }: AppContext): Router {
     '/',
     validate({ body: customerBody }, async ({ body }, req, res) => {
       const viewer = viewerOf(req);
-      const location = (await listLocations(db)).find((l) => l.id === body.locationId);
-      if (!location || !viewer.ability.can('read', subject('Location', { ...location }))) throw notFound('location');
-      if (!viewer.ability.can('create', subject('Customer', { locationId: location.id }))) throw forbidden('You cannot add customers at this location');
+      await locationToAddAt(db, viewer, body.locationId, 'Customer', 'You cannot add customers at this location');
       const customer = await db.transaction().execute(async (trx) => {
         const at = now().toISOString();
         const after = (await findCustomer(trx, await insertCustomer(trx, body, at)))!;

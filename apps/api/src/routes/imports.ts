@@ -1,8 +1,7 @@
-import { subject } from '@casl/ability';
 import { importBuildsBody, type ImportResult } from '@busbar/shared';
 import { Router } from 'express';
 import type { AppContext } from '../context.ts';
-import { forbidden, notFound } from '../errors.ts';
+import { locationToAddAt } from '../access/locations.ts';
 import { checkImport } from '../imports/check-rows.ts';
 import { writeImport } from '../imports/write-rows.ts';
 import { viewerOf } from '../middleware/session.ts';
@@ -15,9 +14,7 @@ export function importsRouter({ db, now }: AppContext): Router {
     '/builds',
     validate({ body: importBuildsBody }, async ({ body }, req, res) => {
       const viewer = viewerOf(req);
-      const location = await db.selectFrom('locations').select(['id', 'code', 'timeZone', 'laborRateCents']).where('id', '=', body.locationId).executeTakeFirst();
-      if (!location || !viewer.ability.can('read', subject('Location', { ...location }))) throw notFound('location');
-      if (!viewer.ability.can('create', subject('Build', { locationId: location.id }))) throw forbidden('You cannot add builds at this location');
+      const location = await locationToAddAt(db, viewer, body.locationId, 'Build', 'You cannot add builds at this location');
       const { results, rows } = await checkImport(db, location.id, body.csv);
       const ok = results.length > 0 && rows.length === results.length && results.every((r) => Object.keys(r.errors).length === 0);
       let created = 0;
