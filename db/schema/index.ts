@@ -9,6 +9,8 @@ import type { VendorsTable } from './vendors.ts';
 import type { InvitesTable } from './invites.ts';
 import type { LocationsTable } from './locations.ts';
 import type { MailLogTable } from './mail-log.ts';
+import type { PowerPlanRevisionsTable } from './power-plan-revisions.ts';
+import type { PowerPlansTable } from './power-plans.ts';
 import type { RegionsTable } from './regions.ts';
 import type { RoleAssignmentsTable } from './role-assignments.ts';
 import type { SessionsTable } from './sessions.ts';
@@ -30,4 +32,6 @@ export interface Database {
   builds: BuildsTable;
   buildItems: BuildItemsTable;
   buildEvents: BuildEventsTable;
+  powerPlans: PowerPlansTable;
+  powerPlanRevisions: PowerPlanRevisionsTable;
 }

@@ -100,6 +100,26 @@ describe('defineRulesFor', () => {
     expect(accountantAndClerk.can('read', build(3), 'totalCents')).toBe(true);
   });
 
+  it('lets technicians and leads make and change power plans at their shop, and the readers only read them', () => {
+    const plan = (locationId: number) => subject('Plan', { locationId });
+    for (const role of ['technician', 'location_lead'] as const) {
+      const ability = abilityOf(at(role, 1));
+      for (const action of ['read', 'create', 'update'] as const) {
+        expect(ability.can(action, plan(1))).toBe(true);
+        expect(ability.can(action, plan(2))).toBe(false);
+      }
+    }
+    const readers = [abilityOf(at('warranty_clerk', 1)), abilityOf(region1('regional_manager')), abilityOf(region1('accountant'))];
+    for (const ability of readers) {
+      expect(ability.can('read', plan(1))).toBe(true);
+      expect(ability.can('read', plan(3))).toBe(false);
+      for (const action of ['create', 'update'] as const) expect(ability.can(action, plan(1))).toBe(false);
+    }
+    expect(abilityOf(network('accountant')).can('read', plan(3))).toBe(true);
+    expect(abilityOf(network('owner')).can('update', plan(3))).toBe(true);
+    expect(abilityOf().can('read', plan(1))).toBe(false);
+  });
+
   it('rejects an unknown role instead of granting nothing silently', () => {
     const unknown = { ...at('technician', 1), role: 'janitor' } as unknown as RuleAssignment;
     expect(() => defineRulesFor({ id: 1, assignments: [unknown] })).toThrow(/Unknown role/);

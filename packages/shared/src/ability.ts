@@ -17,7 +17,8 @@ export type Subject =
   | 'Vehicle'
   | 'Build'
   | 'Claim'
-  | 'Report';
+  | 'Report'
+  | 'Plan';
 
 /** A subject is named by type, or is a record tagged with CASL's `subject(type, row)`. */
 export type AppAbility = MongoAbility<[Action, Subject | ForcedSubject<Exclude<Subject, 'all'>>]>;
@@ -68,7 +69,7 @@ const grantsByRole: Record<Role, (b: Builder, a: RuleAssignment, person: RulePer
     const at = atLocations(a);
     can('read', 'Region', { id: a.regionId });
     can('read', 'Location', { id: { $in: a.locationIds } });
-    can('read', ['Build', 'Customer', 'Vehicle', 'Claim', 'Report'], at);
+    can('read', ['Build', 'Customer', 'Vehicle', 'Claim', 'Report', 'Plan'], at);
     can('approve', 'Claim', at);
     can('read', ['CatalogItem', 'Vendor']);
     can('read', 'RoleAssignment', at);
@@ -79,7 +80,7 @@ const grantsByRole: Record<Role, (b: Builder, a: RuleAssignment, person: RulePer
   location_lead({ can }, a) {
     const at = atLocations(a);
     can('read', 'Location', { id: { $in: a.locationIds } });
-    can(['read', 'create', 'update'], ['Build', 'Customer', 'Vehicle', 'Claim'], at);
+    can(['read', 'create', 'update'], ['Build', 'Customer', 'Vehicle', 'Claim', 'Plan'], at);
     can('plan', 'Build', at);
     can(['approve', 'send'], 'Claim', at);
     can('read', ['CatalogItem', 'Vendor']);
@@ -92,13 +93,14 @@ const grantsByRole: Record<Role, (b: Builder, a: RuleAssignment, person: RulePer
     can('read', 'Location', { id: { $in: a.locationIds } });
     can('read', ['Build', 'Customer', 'Vehicle'], at);
     can('update', 'Build', { ...at, leadTechnicianId: person.id });
+    can(['read', 'create', 'update'], 'Plan', at);
     can('read', ['CatalogItem', 'Vendor']);
   },
 
   warranty_clerk({ can }, a) {
     const at = atLocations(a);
     can('read', 'Location', { id: { $in: a.locationIds } });
-    can('read', ['Build', 'Customer', 'Vehicle'], at);
+    can('read', ['Build', 'Customer', 'Vehicle', 'Plan'], at);
     can(['read', 'create', 'update', 'send'], 'Claim', at);
     can('read', ['CatalogItem', 'Vendor']);
   },
@@ -107,7 +109,7 @@ const grantsByRole: Record<Role, (b: Builder, a: RuleAssignment, person: RulePer
     const at = atLocations(a);
     can('read', 'Region', a.scope === 'region' ? { id: a.regionId } : undefined);
     can('read', 'Location', a.scope === 'network' ? undefined : { id: { $in: a.locationIds } });
-    can('read', ['Build', 'Customer', 'Vehicle', 'Claim', 'Report'], at);
+    can('read', ['Build', 'Customer', 'Vehicle', 'Claim', 'Report', 'Plan'], at);
     can('export', 'Report', at);
     can('read', ['CatalogItem', 'Vendor']);
   },

@@ -9,3 +9,4 @@ export * from './schemas/catalog.ts';
 export * from './schemas/customers.ts';
 export * from './schemas/builds.ts';
 export * from './schemas/imports.ts';
+export * from './schemas/plans.ts';
