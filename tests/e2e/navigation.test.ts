@@ -9,7 +9,7 @@ afterAll(async () => {
   await e2e?.close();
 });
 
-const NAV = ['Overview', 'Builds', 'Customers', 'Find a serial', 'Catalog', 'Vendors', 'Staff', 'Outbox', 'Audit log'] as const;
+const NAV = ['Overview', 'Builds', 'Quick plans', 'Customers', 'Find a serial', 'Catalog', 'Vendors', 'Staff', 'Outbox', 'Audit log'] as const;
 type Item = (typeof NAV)[number];
 const WORK: Item[] = ['Overview', 'Builds', 'Customers', 'Find a serial', 'Catalog', 'Vendors'];
 
@@ -17,9 +17,10 @@ const WORK: Item[] = ['Overview', 'Builds', 'Customers', 'Find a serial', 'Catal
 const expected: Record<string, Item[]> = {
   'owner@demo.busbar.test': [...NAV],
   'regional@demo.busbar.test': [...WORK, 'Staff'],
-  'lead@demo.busbar.test': [...WORK, 'Staff'],
-  'lead2@demo.busbar.test': [...WORK, 'Staff'],
-  'tech@demo.busbar.test': WORK,
+  // Quick plans are for those who plan systems with customers: leads and technicians.
+  'lead@demo.busbar.test': [...WORK, 'Quick plans', 'Staff'],
+  'lead2@demo.busbar.test': [...WORK, 'Quick plans', 'Staff'],
+  'tech@demo.busbar.test': [...WORK, 'Quick plans'],
   'warranty@demo.busbar.test': WORK,
   'accountant@demo.busbar.test': WORK,
 };

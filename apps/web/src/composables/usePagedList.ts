@@ -92,5 +92,12 @@ export function usePagedList<T, Filters extends object>(
     showTotal: (total: number, [from, to]: [number, number]) => `${from}–${to} of ${total}`,
   }));
 
-  return { request, result, loading, error, load, setFilters, onTableChange, pagination };
+  /** The rows and paging for the list's Table (`v-bind`); its `change` goes to `onTableChange`. */
+  const table = computed(() => ({
+    dataSource: result.value?.items ?? [],
+    loading: loading.value,
+    pagination: pagination.value,
+  }));
+
+  return { request, loading, error, load, setFilters, onTableChange, table };
 }

@@ -7,6 +7,7 @@ import {
   MailOutlined,
   ShopOutlined,
   TeamOutlined,
+  ThunderboltOutlined,
   ToolOutlined,
 } from '@ant-design/icons-vue';
 import type { Component } from 'vue';
@@ -15,6 +16,7 @@ import type { Component } from 'vue';
 export const NAVIGATION: { route: string; label: string; icon: Component }[] = [
   { route: 'overview', label: 'Overview', icon: HomeOutlined },
   { route: 'builds', label: 'Builds', icon: ToolOutlined },
+  { route: 'plans', label: 'Quick plans', icon: ThunderboltOutlined },
   { route: 'customers', label: 'Customers', icon: ContactsOutlined },
   { route: 'serials', label: 'Find a serial', icon: BarcodeOutlined },
   { route: 'catalog', label: 'Catalog', icon: AppstoreOutlined },
