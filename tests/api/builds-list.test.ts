@@ -80,3 +80,15 @@ describe('finding a serial number', () => {
     expect((await lead.get('/api/serials?q=K')).body.error.fields).toEqual({ q: 'Enter at least 2 characters' });
   });
 });
+
+describe('builds with and without a power plan', () => {
+  it('filters on whether a build has a plan', async () => {
+    const planned = builds[0]!;
+    await h.db
+      .insertInto('powerPlans')
+      .values({ buildId: planned.id, locationId: planned.locationId, name: planned.number, input: '{}', result: '{}', version: 1, createdBy: ids.user(SIGN_INS.lead), createdAt: 'x', updatedAt: 'x', updatedBy: ids.user(SIGN_INS.lead) })
+      .execute();
+    expect(await numbers(lead, 'hasPlan=true')).toEqual([planned.number]);
+    expect(await numbers(lead, 'hasPlan=false&sort=number&order=asc')).toEqual(['DEN-00002', 'DEN-00003']);
+  });
+});

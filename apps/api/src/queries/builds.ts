@@ -42,6 +42,10 @@ export async function listBuilds(db: Db, locationIds: number[], query: BuildQuer
     if (query.technicianId) conditions.push(eb('b.leadTechnicianId', '=', query.technicianId));
     if (query.from) conditions.push(eb('b.bookedFor', '>=', query.from));
     if (query.to) conditions.push(eb('b.bookedFor', '<=', query.to));
+    if (query.hasPlan) {
+      const planned = eb.exists(eb.selectFrom('powerPlans as p').select('p.id').whereRef('p.buildId', '=', 'b.id'));
+      conditions.push(query.hasPlan === 'true' ? planned : eb.not(planned));
+    }
     if (query.q) {
       const q = query.q;
       const bySerial = eb.exists(

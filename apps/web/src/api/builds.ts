@@ -19,6 +19,7 @@ export interface BuildFilter {
   from?: string;
   to?: string;
   q?: string;
+  hasPlan?: 'true' | 'false';
   sort?: BuildSort;
   order?: 'asc' | 'desc';
   page?: number;

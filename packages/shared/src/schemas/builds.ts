@@ -106,6 +106,8 @@ export const buildQuery = z.strictObject({
   from: isoDate.optional(),
   to: isoDate.optional(),
   q: z.string().trim().max(100).optional(),
+  /** Only builds with (true) or without (false) a power plan. */
+  hasPlan: z.enum(['true', 'false']).optional(),
   sort: z.enum(BUILD_SORTS).default('updatedAt'),
   order: z.enum(['asc', 'desc']).default('desc'),
   ...pageQuery,
