@@ -69,3 +69,19 @@ describe('health, regions, locations and the outbox', () => {
     expect(res.body).toEqual({ error: { code: 'not_found', message: 'No such API route' } });
   });
 });
+
+describe('list routes without parameters', () => {
+  it('refuse a query parameter they do not take, naming it', async () => {
+    const h = await startHarness();
+    try {
+      const owner = await h.signedIn(SIGN_INS.owner);
+      for (const path of ['/api/regions?colour=red', '/api/locations?colour=red']) {
+        const res = await owner.get(path);
+        expect(res.status).toBe(400);
+        expect(res.body.error.fields).toEqual({ colour: 'Unknown field' });
+      }
+    } finally {
+      await h.close();
+    }
+  });
+});

@@ -1,5 +1,5 @@
 import { subject } from '@casl/ability';
-import { auditQuery, idParams, outboxQuery, type AppAbility, type Subject } from '@busbar/shared';
+import { auditQuery, idParams, noQuery, outboxQuery, type AppAbility, type Subject } from '@busbar/shared';
 import { Router, type Request } from 'express';
 import type { AppContext } from '../context.ts';
 import { forbidden, notFound } from '../errors.ts';
@@ -20,15 +20,21 @@ function authorize(req: Request, action: 'read', on: Subject): AppAbility {
 export function adminRouter({ db }: AppContext): Router {
   const router = Router();
 
-  router.get('/regions', async (req, res) => {
-    const { ability } = viewerOf(req);
-    res.json((await listRegions(db)).filter((r) => ability.can('read', subject('Region', { ...r }))));
-  });
+  router.get(
+    '/regions',
+    validate({ query: noQuery }, async (_input, req, res) => {
+      const { ability } = viewerOf(req);
+      res.json((await listRegions(db)).filter((r) => ability.can('read', subject('Region', { ...r }))));
+    }),
+  );
 
-  router.get('/locations', async (req, res) => {
-    const { ability } = viewerOf(req);
-    res.json((await listLocations(db)).filter((l) => ability.can('read', subject('Location', { ...l }))));
-  });
+  router.get(
+    '/locations',
+    validate({ query: noQuery }, async (_input, req, res) => {
+      const { ability } = viewerOf(req);
+      res.json((await listLocations(db)).filter((l) => ability.can('read', subject('Location', { ...l }))));
+    }),
+  );
 
   router.get(
     '/locations/:id/technicians',

@@ -4,6 +4,9 @@ import { z } from 'zod';
 export const idSchema = z.coerce.number().int().positive();
 export const idParams = z.strictObject({ id: idSchema });
 
+/** For routes that take no query: any parameter is an unknown field. */
+export const noQuery = z.strictObject({});
+
 export const emailSchema = z
   .string()
   .trim()
