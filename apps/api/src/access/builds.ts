@@ -3,14 +3,8 @@ import { subject } from '@casl/ability';
 import type { BuildDetail, BuildView } from '@busbar/shared';
 import { conflict, forbidden, HttpError, notFound } from '../errors.ts';
 import { buildEvents, buildItems, findBuild, type BuildRow } from '../queries/builds.ts';
-import { locationsWhere, readable } from './fields.ts';
+import { readable } from './fields.ts';
 import type { Viewer } from './viewer.ts';
-
-/** Every location where the person may do `action` on builds. */
-export async function buildLocations(db: Db, viewer: Viewer, action: 'read' | 'create' = 'read'): Promise<number[]> {
-  const ids = (await db.selectFrom('locations').select('id').execute()).map((l) => l.id);
-  return locationsWhere(viewer.ability, action, 'Build', ids);
-}
 
 /** A build the person may read, or 404 — also for a build of a location they cannot see. */
 export async function loadBuild(db: Db, viewer: Viewer, id: number): Promise<BuildRow> {

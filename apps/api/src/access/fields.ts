@@ -1,3 +1,4 @@
+import type { Db } from '@busbar/db';
 import { subject } from '@casl/ability';
 import type { AppAbility, Subject } from '@busbar/shared';
 
@@ -16,6 +17,7 @@ export function readable<T extends object>(ability: AppAbility, type: Exclude<Su
 }
 
 /** Ids of the locations where the person may do `action` on records of `type`. */
-export function locationsWhere(ability: AppAbility, action: 'read' | 'create' | 'update' | 'plan', type: Exclude<Subject, 'all'>, locationIds: number[]): number[] {
-  return locationIds.filter((locationId) => ability.can(action, subject(type, { locationId })));
+export async function locationsWhere(db: Db, ability: AppAbility, action: 'read' | 'create', type: Exclude<Subject, 'all'>): Promise<number[]> {
+  const ids = (await db.selectFrom('locations').select('id').execute()).map((l) => l.id);
+  return ids.filter((locationId) => ability.can(action, subject(type, { locationId })));
 }

@@ -4,14 +4,7 @@ import { subject } from '@casl/ability';
 import type { PlanView } from '@busbar/shared';
 import { HttpError, notFound } from '../errors.ts';
 import { findPlan, type PlanRow } from '../queries/plans.ts';
-import { locationsWhere } from './fields.ts';
 import type { Viewer } from './viewer.ts';
-
-/** Every location where the person may do `action` on plans. */
-export async function planLocations(db: Db, viewer: Viewer, action: 'read' | 'create'): Promise<number[]> {
-  const ids = (await db.selectFrom('locations').select('id').execute()).map((l) => l.id);
-  return locationsWhere(viewer.ability, action, 'Plan', ids);
-}
 
 export const canOnPlan = (viewer: Viewer, action: 'read' | 'create' | 'update', plan: { locationId: number }) =>
   viewer.ability.can(action, subject('Plan', { ...plan }));

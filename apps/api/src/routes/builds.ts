@@ -1,7 +1,8 @@
 import { subject } from '@casl/ability';
 import { BUILD_STATUS_LABELS, buildCreate, buildQuery, buildStatusChange, buildUpdate, findTransition, idParams } from '@busbar/shared';
 import { Router } from 'express';
-import { authorizeBuildChange, buildDetail, buildLocations, buildView, loadBuild } from '../access/builds.ts';
+import { authorizeBuildChange, buildDetail, buildView, loadBuild } from '../access/builds.ts';
+import { locationsWhere } from '../access/fields.ts';
 import { checkBuildReferences } from '../access/build-references.ts';
 import { locationToAddAt } from '../access/locations.ts';
 import type { AppContext } from '../context.ts';
@@ -22,7 +23,7 @@ export function buildsRouter({ db, now }: AppContext): Router {
     '/',
     validate({ query: buildQuery }, async ({ query }, req, res) => {
       const viewer = viewerOf(req);
-      const page = await listBuilds(db, await buildLocations(db, viewer), query);
+      const page = await listBuilds(db, await locationsWhere(db, viewer.ability, 'read', 'Build'), query);
       res.json({ ...page, items: page.items.map((row) => buildView(viewer, row)) });
     }),
   );

@@ -9,7 +9,6 @@ import { viewerOf } from '../middleware/session.ts';
 import { validate } from '../middleware/validate.ts';
 import { writeAudit } from '../queries/audit.ts';
 import { findCustomer, insertCustomer, listCustomers, updateCustomer } from '../queries/customers.ts';
-import { listLocations } from '../queries/locations.ts';
 import { vehiclesOf } from '../queries/vehicles.ts';
 
 /** Of these locations, those where the person reads a customer's field. */
@@ -25,7 +24,7 @@ export function customersRouter({ db, now }: AppContext): Router {
     validate({ query: customerQuery }, async ({ query }, req, res) => {
       const { ability } = viewerOf(req);
       if (!ability.can('read', 'Customer')) throw forbidden();
-      const visible = locationsWhere(ability, 'read', 'Customer', (await listLocations(db)).map((l) => l.id));
+      const visible = await locationsWhere(db, ability, 'read', 'Customer');
       const locationIds = query.locationId ? visible.filter((id) => id === query.locationId) : visible;
       const page = await listCustomers(db, {
         q: query.q,

@@ -3,7 +3,8 @@ import { idParams, planAttachBody, quickPlanCreate, quickPlanQuery, quickPlanUpd
 import { Router } from 'express';
 import { authorizeBuildChange } from '../access/builds.ts';
 import { locationToAddAt } from '../access/locations.ts';
-import { canOnPlan, evaluateInput, loadPlan, planLocations, planView } from '../access/plans.ts';
+import { locationsWhere } from '../access/fields.ts';
+import { canOnPlan, evaluateInput, loadPlan, planView } from '../access/plans.ts';
 import type { AppContext } from '../context.ts';
 import { conflict, forbidden, HttpError } from '../errors.ts';
 import { viewerOf } from '../middleware/session.ts';
@@ -22,7 +23,7 @@ export function plansRouter({ db, now }: AppContext): Router {
   router.get(
     '/',
     validate({ query: quickPlanQuery }, async ({ query }, req, res) => {
-      const locationIds = (await planLocations(db, viewerOf(req), 'read')).filter((id) => !query.locationId || id === query.locationId);
+      const locationIds = (await locationsWhere(db, viewerOf(req).ability, 'read', 'Plan')).filter((id) => !query.locationId || id === query.locationId);
       res.json((await listQuickPlans(db, locationIds)).map(planView));
     }),
   );

@@ -1,6 +1,6 @@
 import { serialQuery } from '@busbar/shared';
 import { Router } from 'express';
-import { buildLocations } from '../access/builds.ts';
+import { locationsWhere } from '../access/fields.ts';
 import type { AppContext } from '../context.ts';
 import { viewerOf } from '../middleware/session.ts';
 import { validate } from '../middleware/validate.ts';
@@ -12,7 +12,7 @@ export function serialsRouter({ db }: AppContext): Router {
   router.get(
     '/',
     validate({ query: serialQuery }, async ({ query }, req, res) => {
-      res.json(await findSerials(db, await buildLocations(db, viewerOf(req)), query.q));
+      res.json(await findSerials(db, await locationsWhere(db, viewerOf(req).ability, 'read', 'Build'), query.q));
     }),
   );
   return router;
