@@ -18,6 +18,9 @@ export const forbidden = (message = 'You do not have permission to do that') => 
 export const conflict = (message: string, fields?: Record<string, string>) =>
   new HttpError(409, 'conflict', message, fields);
 
+/** A 400 naming the one field at fault, with the same message overall and on the field. */
+export const invalidField = (field: string, message: string) => new HttpError(400, 'invalid', message, { [field]: message });
+
 /** An edit made against an old version of a record (optimistic locking). */
 export const stale = () =>
   new HttpError(409, 'stale', 'Someone changed this since you opened it. Reload to see their changes.');

@@ -4,7 +4,7 @@ import { Router } from 'express';
 import { authorizeBuildChange, buildDetail, loadBuild } from '../access/builds.ts';
 import type { Viewer } from '../access/viewer.ts';
 import type { AppContext } from '../context.ts';
-import { conflict, HttpError, notFound } from '../errors.ts';
+import { conflict, invalidField, notFound } from '../errors.ts';
 import { viewerOf } from '../middleware/session.ts';
 import { validate } from '../middleware/validate.ts';
 import { writeAudit } from '../queries/audit.ts';
@@ -12,21 +12,19 @@ import { addBuildEvent, changeBuild, recomputeTotals, serialHolder } from '../qu
 import type { BuildRow } from '../queries/builds.ts';
 import type { Db } from '@busbar/db';
 
-const invalid = (field: string, message: string) => new HttpError(400, 'invalid', message, { [field]: message });
-
 /**
  * A serialized component is one unit per line and needs its serial number once the build leaves the
  * bay; other components take none. A serial number is unique per SKU across the network.
  */
 async function checkSerial(db: Db, viewer: Viewer, build: BuildRow, item: { sku: string; serialized: boolean }, quantity: number, serialNumber: string | null, itemId = 0) {
   if (!item.serialized) {
-    if (serialNumber) throw invalid('serialNumber', 'This component has no serial numbers');
+    if (serialNumber) throw invalidField('serialNumber', 'This component has no serial numbers');
     return;
   }
-  if (quantity !== 1) throw invalid('quantity', 'Serialized components are added one unit at a time');
+  if (quantity !== 1) throw invalidField('quantity', 'Serialized components are added one unit at a time');
   if (!serialNumber) {
     if (SERIAL_MAY_WAIT.includes(build.status)) return;
-    throw invalid('serialNumber', 'Enter the serial number of this unit');
+    throw invalidField('serialNumber', 'Enter the serial number of this unit');
   }
   const holder = await serialHolder(db, item.sku, serialNumber, itemId);
   if (holder) {
@@ -59,8 +57,8 @@ export function buildItemsRouter({ db, now }: AppContext): Router {
       const build = await loadBuild(db, viewer, params.id);
       const correction = authorizeBuildChange(viewer, build, 'update', 'Component added after delivery');
       const item = await db.selectFrom('catalogItems').selectAll().where('id', '=', body.catalogItemId).executeTakeFirst();
-      if (!item) throw invalid('catalogItemId', 'Choose a component from the catalog');
-      if (!item.active) throw invalid('catalogItemId', 'This component is no longer offered');
+      if (!item) throw invalidField('catalogItemId', 'Choose a component from the catalog');
+      if (!item.active) throw invalidField('catalogItemId', 'This component is no longer offered');
       await checkSerial(db, viewer, build, { sku: item.sku, serialized: !!item.serialized }, body.quantity, body.serialNumber);
       const line = { sku: item.sku, quantity: body.quantity, serialNumber: body.serialNumber, unitPriceCents: item.unitPriceCents, unitCostCents: item.unitCostCents };
       const note = `Added ${item.sku}${body.serialNumber ? ` #${body.serialNumber}` : ` × ${body.quantity}`} after delivery`;

@@ -6,14 +6,12 @@ import { locationsWhere } from '../access/fields.ts';
 import { checkBuildReferences } from '../access/build-references.ts';
 import { locationToAddAt } from '../access/locations.ts';
 import type { AppContext } from '../context.ts';
-import { forbidden, HttpError } from '../errors.ts';
+import { forbidden, invalidField } from '../errors.ts';
 import { viewerOf } from '../middleware/session.ts';
 import { validate } from '../middleware/validate.ts';
 import { writeAudit } from '../queries/audit.ts';
 import { addBuildEvent, changeBuild, recomputeTotals } from '../queries/build-changes.ts';
 import { buildItems, listBuilds, nextBuildNumber } from '../queries/builds.ts';
-
-const invalid = (field: string, message: string) => new HttpError(400, 'invalid', message, { [field]: message });
 
 /** Builds of the locations a person may see: list, detail, booking, edits and the status workflow. */
 export function buildsRouter({ db, now }: AppContext): Router {
@@ -100,13 +98,13 @@ export function buildsRouter({ db, now }: AppContext): Router {
       const viewer = viewerOf(req);
       const row = await loadBuild(db, viewer, params.id);
       const transition = findTransition(row.status, body.to);
-      if (!transition) throw invalid('to', `A build cannot go from ${BUILD_STATUS_LABELS[row.status]} to ${BUILD_STATUS_LABELS[body.to]}`);
+      if (!transition) throw invalidField('to', `A build cannot go from ${BUILD_STATUS_LABELS[row.status]} to ${BUILD_STATUS_LABELS[body.to]}`);
       if (!viewer.ability.can(transition.action, subject('Build', { ...row }))) throw forbidden('You cannot make this change of status');
-      if (body.to === 'booked' && !row.bookedFor) throw invalid('to', 'Set the booked date before booking');
-      if (body.to === 'in_bay' && !row.leadTechnicianId) throw invalid('to', 'Choose a lead technician before the build goes in the bay');
+      if (body.to === 'booked' && !row.bookedFor) throw invalidField('to', 'Set the booked date before booking');
+      if (body.to === 'in_bay' && !row.leadTechnicianId) throw invalidField('to', 'Choose a lead technician before the build goes in the bay');
       if (body.to === 'quality_check' || body.to === 'delivered') {
         const missing = (await buildItems(db, row.id)).filter((i) => i.serialized && !i.serialNumber).map((i) => i.sku);
-        if (missing.length > 0) throw invalid('to', `Record the serial numbers first: ${missing.join(', ')}`);
+        if (missing.length > 0) throw invalidField('to', `Record the serial numbers first: ${missing.join(', ')}`);
       }
       await db.transaction().execute(async (trx) => {
         const at = now().toISOString();

@@ -6,7 +6,7 @@ import { locationToAddAt } from '../access/locations.ts';
 import { locationsWhere } from '../access/fields.ts';
 import { canOnPlan, evaluateInput, loadPlan, planView } from '../access/plans.ts';
 import type { AppContext } from '../context.ts';
-import { conflict, forbidden, HttpError } from '../errors.ts';
+import { conflict, forbidden, invalidField } from '../errors.ts';
 import { viewerOf } from '../middleware/session.ts';
 import { validate } from '../middleware/validate.ts';
 import { writeAudit } from '../queries/audit.ts';
@@ -78,10 +78,7 @@ export function plansRouter({ db, now }: AppContext): Router {
       const plan = await loadPlan(db, viewer, params.id);
       if (plan.buildId !== null) throw attachedConflict();
       const build = await findBuild(db, body.buildId);
-      if (!build || build.locationId !== plan.locationId) {
-        const message = 'Choose a build at the location of the plan';
-        throw new HttpError(400, 'invalid', message, { buildId: message });
-      }
+      if (!build || build.locationId !== plan.locationId) throw invalidField('buildId', 'Choose a build at the location of the plan');
       const afterDelivery = `Quick plan "${plan.name}" attached after delivery`;
       const correction = authorizeBuildChange(viewer, build, 'update', afterDelivery);
       if (!canOnPlan(viewer, 'update', plan)) throw forbidden('You cannot change plans at this location');
