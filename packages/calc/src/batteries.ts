@@ -14,15 +14,22 @@ export interface ChemistryData {
   chargeEfficiency: number;
   /** Charge current the bank usually wants, as multiples of its Ah rating. */
   chargeRateC: { min: number; max: number };
+  /** Charging voltage per 12 V of system voltage (absorption), V. */
+  absorptionV: number;
+  /** Lead-acid: above this state of charge (0–1) the bank accepts at most acceptC × its rating per hour. */
+  taper?: { knee: number; acceptC: number };
 }
 
 // Cell voltages and depths of discharge as commonly given (2.0 V and 50 % for lead-acid, 3.2 V and
-// 80–100 % for LiFePO4, from memory); exponents, efficiencies and charge rates are common practice,
-// no source.
+// 80–100 % for LiFePO4, from memory); absorption voltages as makers commonly set them (from memory);
+// exponents, efficiencies, charge rates and the lead-acid taper (the last 20 % takes about four hours
+// whatever the charger) are common practice, no source.
+const LEAD_ACID_TAPER = { knee: 0.8, acceptC: 0.05 };
+
 export const BATTERY_CHEMISTRIES: Record<Chemistry, ChemistryData> = {
-  lifepo4: { label: 'LiFePO4', cellV: 3.2, defaultDepthOfDischarge: 0.8, peukertExponent: 1, chargeEfficiency: 0.95, chargeRateC: { min: 0.2, max: 0.5 } },
-  agm: { label: 'AGM', cellV: 2, defaultDepthOfDischarge: 0.5, peukertExponent: 1.1, chargeEfficiency: 0.9, chargeRateC: { min: 0.1, max: 0.3 } },
-  flooded: { label: 'flooded lead-acid', cellV: 2, defaultDepthOfDischarge: 0.5, peukertExponent: 1.25, chargeEfficiency: 0.85, chargeRateC: { min: 0.1, max: 0.2 } },
+  lifepo4: { label: 'LiFePO4', cellV: 3.2, defaultDepthOfDischarge: 0.8, peukertExponent: 1, chargeEfficiency: 0.95, chargeRateC: { min: 0.2, max: 0.5 }, absorptionV: 14.4 },
+  agm: { label: 'AGM', cellV: 2, defaultDepthOfDischarge: 0.5, peukertExponent: 1.1, chargeEfficiency: 0.9, chargeRateC: { min: 0.1, max: 0.3 }, absorptionV: 14.7, taper: LEAD_ACID_TAPER },
+  flooded: { label: 'flooded lead-acid', cellV: 2, defaultDepthOfDischarge: 0.5, peukertExponent: 1.25, chargeEfficiency: 0.85, chargeRateC: { min: 0.1, max: 0.2 }, absorptionV: 14.8, taper: LEAD_ACID_TAPER },
 };
 
 /** Lead-acid capacity is rated at the 20-hour discharge (common practice, no source). */
@@ -52,58 +59,22 @@ export function peukertRuntimeH({ capacityAh, ratedHours, currentA, exponent }: 
   return ratedHours * (capacityAh / (currentA * ratedHours)) ** exponent;
 }
 
-export interface BankSpec {
-  chemistry: Chemistry;
-  /** 0–1; the chemistry's default when absent. */
-  depthOfDischarge?: number;
-  peukertExponent?: number;
-  ratedHours?: number;
+/** Peukert's law per hour: drawing currentA for an hour takes drawnAh × (I × H / C)^(k − 1) of the rating, the rated-time form above rearranged (a full bank lasts t hours, so each hour takes C / t); never less than drawn. */
+export function peukertDrawAh({ drawnAh, currentA, capacityAh, ratedHours, exponent }: PeukertInput & { drawnAh: number }): number {
+  if (currentA <= 0 || exponent === 1) return drawnAh;
+  return drawnAh * Math.max(1, ((currentA * ratedHours) / capacityAh) ** (exponent - 1));
 }
 
-export interface UsableCapacity {
-  /** What the bank delivers at the average draw: the Peukert capacity, never more than the rating. */
-  effectiveCapacityAh: number;
-  usableAh: number;
-  depthOfDischarge: number;
-}
-
-function specOf(bank: BankSpec) {
-  checkOneOf('chemistry', bank.chemistry, CHEMISTRIES);
-  const data = BATTERY_CHEMISTRIES[bank.chemistry];
-  const spec = {
-    depthOfDischarge: bank.depthOfDischarge ?? data.defaultDepthOfDischarge,
-    exponent: bank.peukertExponent ?? data.peukertExponent,
-    ratedHours: bank.ratedHours ?? DEFAULT_RATED_HOURS,
-  };
-  checkNumber('depthOfDischarge', spec.depthOfDischarge, { above: 0, max: 1 });
-  checkNumber('peukertExponent', spec.exponent, { min: 1, max: 2 });
-  checkNumber('ratedHours', spec.ratedHours, { above: 0 });
-  return spec;
-}
-
-/** Usable capacity at the allowed depth of discharge, lead-acid reduced by Peukert's law at the average draw (never raised above the rating). */
-export function usableCapacity(bank: BankSpec & { capacityAh: number; averageCurrentA: number }): UsableCapacity {
-  const { depthOfDischarge, exponent, ratedHours } = specOf(bank);
-  checkNumber('capacityAh', bank.capacityAh, { above: 0 });
-  checkNumber('averageCurrentA', bank.averageCurrentA, { min: 0 });
-  // An exponent of 1 is no Peukert effect; skipping it keeps the rating exact.
-  const peukertAh =
-    bank.averageCurrentA > 0 && exponent > 1
-      ? bank.averageCurrentA * peukertRuntimeH({ capacityAh: bank.capacityAh, ratedHours, currentA: bank.averageCurrentA, exponent })
-      : bank.capacityAh;
-  const effectiveCapacityAh = Math.min(bank.capacityAh, peukertAh);
-  return { effectiveCapacityAh, usableAh: effectiveCapacityAh * depthOfDischarge, depthOfDischarge };
-}
-
-/** Smallest rating whose usable capacity (as usableCapacity computes it) covers usableAh: Peukert's law solved for C. */
-export function capacityForUsableAh(bank: BankSpec & { usableAh: number; averageCurrentA: number }): number {
-  const { depthOfDischarge, exponent, ratedHours } = specOf(bank);
-  checkNumber('usableAh', bank.usableAh, { min: 0 });
-  checkNumber('averageCurrentA', bank.averageCurrentA, { min: 0 });
-  const effectiveAh = bank.usableAh / depthOfDischarge;
-  if (bank.averageCurrentA === 0 || effectiveAh === 0 || exponent === 1) return effectiveAh;
-  const ratedCurrentAh = bank.averageCurrentA * ratedHours;
-  return Math.max(effectiveAh, ratedCurrentAh * (effectiveAh / ratedCurrentAh) ** (1 / exponent));
+/**
+ * Share of its rated capacity a battery delivers at an air temperature, °C. Lead-acid loses about
+ * 0.8 % per °C below 25 °C (about 80 % at 0 °C, 64 % at −20 °C; from memory), never taken below
+ * 30 %; LiFePO4 is taken at its rating (its charging in the cold is the hazard, handled apart).
+ */
+export function coldCapacityFactor(chemistry: Chemistry, temperatureC: number): number {
+  checkOneOf('chemistry', chemistry, CHEMISTRIES);
+  checkNumber('temperatureC', temperatureC, { min: -60, max: 80 });
+  if (chemistry === 'lifepo4') return 1;
+  return Math.min(1, Math.max(0.3, 1 - 0.008 * (25 - temperatureC)));
 }
 
 export interface RefillInput {
@@ -112,15 +83,19 @@ export interface RefillInput {
   chargeEfficiency: number;
   /** Loads running while charging; 0 when absent. */
   loadA?: number;
+  /** Lead-acid: the last tailAh go in at no more than acceptA. */
+  taper?: { tailAh: number; acceptA: number };
 }
 
-/** Hours of charging to put back refillAh: refill / (charger A × charge efficiency − load A) (charge balance); null when the charger cannot gain on the loads. */
-export function hoursToRefill({ refillAh, chargerA, chargeEfficiency, loadA = 0 }: RefillInput): number | null {
+/** Hours of charging to put back refillAh: refill / (charger A × charge efficiency − load A) (charge balance), the taper's tail at its own rate; null when the charger cannot gain on the loads. */
+export function hoursToRefill({ refillAh, chargerA, chargeEfficiency, loadA = 0, taper }: RefillInput): number | null {
   checkNumber('refillAh', refillAh, { min: 0 });
   checkNumber('chargerA', chargerA, { min: 0 });
   checkNumber('chargeEfficiency', chargeEfficiency, { above: 0, max: 1 });
   checkNumber('loadA', loadA, { min: 0 });
   const netA = chargerA * chargeEfficiency - loadA;
   if (refillAh === 0) return 0;
-  return netA > 0 ? refillAh / netA : null;
+  if (netA <= 0) return null;
+  const tailAh = Math.min(refillAh, taper?.tailAh ?? 0);
+  return (refillAh - tailAh) / netA + (tailAh > 0 ? tailAh / Math.min(netA, taper!.acceptA) : 0);
 }

@@ -51,3 +51,21 @@ export function inverterInputA({ acW, batteryV, efficiency }: InverterInput): nu
   checkNumber('efficiency', efficiency, { above: 0, max: 1 });
   return acW / (batteryV * efficiency);
 }
+
+export interface DcdcInput {
+  outputA: number;
+  /** The charger's output voltage (the house bank's charging voltage), V. */
+  outputV: number;
+  /** The voltage at the charger's input, V; the lowest it runs at gives the largest current. */
+  inputV: number;
+  efficiency: number;
+}
+
+/** Current a DC-DC charger draws from the starter side: I_in = V_out × I_out / (η × V_in) (power balance). */
+export function dcdcInputA({ outputA, outputV, inputV, efficiency }: DcdcInput): number {
+  checkNumber('outputA', outputA, { min: 0 });
+  checkNumber('outputV', outputV, { above: 0 });
+  checkNumber('inputV', inputV, { above: 0 });
+  checkNumber('efficiency', efficiency, { above: 0, max: 1 });
+  return (outputV * outputA) / (efficiency * inputV);
+}

@@ -7,8 +7,14 @@ export const STANDARD_FUSE_RATINGS_A = [
 
 /** A fuse at least this many times the load does not open in normal running (common practice, no source). */
 export const FUSE_MIN_OF_LOAD = 1.25;
-/** A fuse at most this many times the conductor's amperage protects it (33 CFR 183.455, circuits under 50 V). */
+/** A fitted fuse at most this many times the conductor's amperage still protects it: the hard ceiling (33 CFR 183.455, circuits under 50 V). */
 export const FUSE_MAX_OF_AMPACITY = 1.5;
+
+/** Smallest standard rating ≥ 125 % of the load; null past the largest. */
+export function fuseForLoadA(loadA: number): number | null {
+  checkNumber('loadA', loadA, { above: 0 });
+  return STANDARD_FUSE_RATINGS_A.find((ratingA) => ratingA >= FUSE_MIN_OF_LOAD * loadA) ?? null;
+}
 
 export interface FuseRequest {
   loadA: number;
@@ -16,11 +22,9 @@ export interface FuseRequest {
   conductorAmpacityA: number;
 }
 
-/** Smallest standard rating ≥ 125 % of the load and ≤ 150 % of the conductor's (derated) amperage (33 CFR 183.455); null when none lies between. */
+/** The fuse Busbar recommends: the smallest standard rating ≥ 125 % of the load, if it is within the conductor's (derated) amperage, stricter than the 150 % 33 CFR 183.455 allows; null otherwise. */
 export function selectFuseA({ loadA, conductorAmpacityA }: FuseRequest): number | null {
-  checkNumber('loadA', loadA, { above: 0 });
   checkNumber('conductorAmpacityA', conductorAmpacityA, { above: 0 });
-  const minA = FUSE_MIN_OF_LOAD * loadA;
-  const maxA = FUSE_MAX_OF_AMPACITY * conductorAmpacityA;
-  return STANDARD_FUSE_RATINGS_A.find((ratingA) => ratingA >= minA && ratingA <= maxA) ?? null;
+  const fuseA = fuseForLoadA(loadA);
+  return fuseA !== null && fuseA <= conductorAmpacityA ? fuseA : null;
 }

@@ -4,27 +4,31 @@ export { ampacityAwgForMm2, conductorAmpacityA, INSULATION_RATINGS_C, type Ampac
 export {
   bankNominalV,
   BATTERY_CHEMISTRIES,
-  capacityForUsableAh,
   CHEMISTRIES,
+  coldCapacityFactor,
   DEFAULT_RATED_HOURS,
   hoursToRefill,
+  peukertDrawAh,
   peukertRuntimeH,
-  usableCapacity,
-  type BankSpec,
   type Chemistry,
   type ChemistryData,
   type PeukertInput,
   type RefillInput,
-  type UsableCapacity,
 } from './batteries.ts';
-export { conductorResistanceOhmsPerM, voltageDrop, type VoltageDrop, type VoltageDropInput } from './conductors.ts';
-export { dailyEnergy, inverterInputA, type DailyEnergy, type EnergyOptions, type InverterInput, type Load } from './energy.ts';
-export { FUSE_MAX_OF_AMPACITY, FUSE_MIN_OF_LOAD, selectFuseA, STANDARD_FUSE_RATINGS_A, type FuseRequest } from './fuses.ts';
+export { conductorResistanceOhmsPerM, copperResistanceAt, voltageDrop, type ConductorCondition, type VoltageDrop, type VoltageDropInput } from './conductors.ts';
+export { dailyEnergy, dcdcInputA, inverterInputA, type DailyEnergy, type DcdcInput, type EnergyOptions, type InverterInput, type Load } from './energy.ts';
+export { FUSE_MAX_OF_AMPACITY, FUSE_MIN_OF_LOAD, fuseForLoadA, selectFuseA, STANDARD_FUSE_RATINGS_A, type FuseRequest } from './fuses.ts';
 export { evaluatePlan } from './plan.ts';
 export { STARTER_SPARE_FRACTION } from './plan-bank.ts';
 export { MAX_DROP_PERCENT } from './plan-circuits.ts';
+export * from './plan-defaults.ts';
+export { MAX_PROTECTION_DISTANCE_MM } from './plan-protection.ts';
+export { COMMON_BANK_AH, COMMON_CHARGER_A } from './sized.ts';
 export type {
+  BankRecommendation,
+  BatteryName,
   CheckedConductor,
+  CircuitLink,
   CircuitResult,
   DayKind,
   Finding,
@@ -35,19 +39,27 @@ export type {
   PlanInput,
   PlanLoad,
   PlanResult,
+  PlanStock,
   PlanTrip,
+  ProtectionPoint,
   SimulatedBank,
+  SizedChoice,
   Verdict,
 } from './plan-types.ts';
 export { SAFETY_CAUTION } from './safety.ts';
-export { selectConductor, type ConductorChoice, type ConductorRequest } from './select-conductor.ts';
+export { MIN_RECOMMENDED_SIZE, selectConductor, type ConductorChoice, type ConductorRequest } from './select-conductor.ts';
 export { AWG_SIZES, conductorLabel, conductorSizes, MM2_SIZES, type Awg, type ConductorSize, type Gauge, type Mm2 } from './sizes.ts';
 export {
   combinedLossFraction,
-  CONTROLLER_HARVEST,
+  controllerHarvest,
+  MODULE_POWER_COEFFICIENT_PER_C,
+  MODULE_RISE_C,
+  moduleTemperatureFactor,
+  MPPT_HARVEST,
   PVWATTS_V5_LOSS_FRACTION,
   PVWATTS_V5_LOSSES,
   solarDailyWh,
+  type HarvestInput,
   type SolarController,
   type SolarInput,
 } from './solar.ts';

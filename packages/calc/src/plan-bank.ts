@@ -1,84 +1,131 @@
-import { BATTERY_CHEMISTRIES, capacityForUsableAh, usableCapacity, type Chemistry } from './batteries.ts';
-import { simulateDeficitsAh, type HourlyFlows } from './plan-profile.ts';
-import type { DayKind, PlanInput, SimulatedBank } from './plan-types.ts';
+import { BATTERY_CHEMISTRIES, coldCapacityFactor, DEFAULT_RATED_HOURS, type Chemistry } from './batteries.ts';
+import { houseChemistry, RECOMMENDED_CHEMISTRY, type PlanParts } from './plan-parts.ts';
+import { simulateDeficitsAh, type BankPhysics, type HourlyFlows } from './plan-profile.ts';
+import type { BankRecommendation, DayKind, PlanBank, PlanInput, PlanStock, SimulatedBank, SizedChoice } from './plan-types.ts';
+import { COMMON_BANK_AH, COMMON_CHARGER_A, sizeToBuy } from './sized.ts';
 
-/** Share of a starter battery's rating loads may take and still leave a sure start (common practice, no source). */
+/** Share of a starter battery's capacity loads may take and still leave a sure start (common practice, no source). */
 export const STARTER_SPARE_FRACTION = 0.2;
-/** House chemistry Busbar recommends when none is planned: the deepest usable share (common practice, no source). */
-export const RECOMMENDED_CHEMISTRY: Chemistry = 'lifepo4';
 // A starter battery is taken as flooded lead-acid.
 const STARTER_CHEMISTRY: Chemistry = 'flooded';
 const MAX_CHARGER_A = 2000;
-// Rounding up must not turn 125.000000001 Ah into 126.
+const MAX_BANK_AH = 1_000_000;
 const ceil = (x: number) => Math.ceil(x - 1e-9);
 
 /** The plan laid out for simulation. */
 export interface TripModel {
   plan: PlanInput;
+  parts: PlanParts;
   days: DayKind[];
   flows: HourlyFlows;
-  averageLoadA: number;
+  stock?: PlanStock;
 }
 
-/** The house chemistry planned, or the one Busbar recommends. */
-export function houseChemistry(plan: PlanInput): Chemistry {
-  return plan.bank?.chemistry ?? RECOMMENDED_CHEMISTRY;
+type BankSpec = Pick<PlanBank, 'chemistry' | 'depthOfDischarge' | 'peukertExponent' | 'ratedHours'>;
+
+/** How a bank of a chemistry and rating behaves on the trip's coldest day. */
+function physicsOf(spec: BankSpec, ratedAh: number, lowestC: number): BankPhysics & { depthOfDischarge: number } {
+  const data = BATTERY_CHEMISTRIES[spec.chemistry];
+  const capacityAh = ratedAh * coldCapacityFactor(spec.chemistry, lowestC);
+  return {
+    capacityAh,
+    chargeEfficiency: data.chargeEfficiency,
+    depthOfDischarge: spec.depthOfDischarge ?? data.defaultDepthOfDischarge,
+    peukert: { capacityAh: ratedAh, ratedHours: spec.ratedHours ?? DEFAULT_RATED_HOURS, exponent: spec.peukertExponent ?? data.peukertExponent },
+    taper: data.taper && { kneeDeficitAh: (1 - data.taper.knee) * capacityAh, acceptAhPerHour: data.taper.acceptC * ratedAh },
+  };
 }
 
-/** Deepest draw the loads make on the starter battery alone, the alternator refilling it within any hour of driving (common practice, no source). */
-export function starterDrawAh({ days, flows }: TripModel): number {
-  const chargeEfficiency = BATTERY_CHEMISTRIES[STARTER_CHEMISTRY].chargeEfficiency;
-  return Math.max(0, ...simulateDeficitsAh({ days, flows, capacityAh: Infinity, drivingChargeA: Infinity, chargeEfficiency }));
+/** What the loads take from the starter battery alone, with the alternator's recharge while driving. */
+export interface StarterDraw {
+  /** Deepest draw once trips in a row settle, Ah. */
+  deepestAh: number;
+  /** Trips in a row settle: the drives put back what the loads take (lead-acid's slow last 20 % included). */
+  refilled: boolean;
+  /** What the battery may give and still start the engine, Ah. */
+  spareAh: number;
 }
 
-/** Smallest house bank (rated Ah) that stays above its floor over the trip with the plan's own charging. */
-export function minimumBankAh({ plan, days, flows, averageLoadA }: TripModel): number {
-  const chemistry = houseChemistry(plan);
-  const demandAh = simulateDeficitsAh({
-    days,
-    flows,
-    capacityAh: Infinity,
-    drivingChargeA: plan.dcdcCharger?.outputA ?? 0,
-    chargeEfficiency: BATTERY_CHEMISTRIES[chemistry].chargeEfficiency,
-  });
-  const spec = plan.bank ?? { chemistry };
-  // At least 1 Ah, so that a bank wanted for other reasons (an inverter) still has a size.
-  return Math.max(1, ceil(capacityForUsableAh({ ...spec, usableAh: Math.max(0, ...demandAh), averageCurrentA: averageLoadA })));
+const MAX_LAPS = 30;
+const SETTLED_AH = 0.01;
+
+/** The loads on the starter battery over trips in a row, each starting where the last ended, until they settle or the draw passes what the battery holds. */
+export function starterDraw({ plan, parts, days, flows }: TripModel): StarterDraw {
+  const physics = physicsOf({ chemistry: STARTER_CHEMISTRY }, plan.starterBattery.capacityAh, parts.lowestC);
+  const spareAh = physics.capacityAh * STARTER_SPARE_FRACTION;
+  let deepestAh = 0;
+  let endAh = 0;
+  for (let lap = 0; lap < MAX_LAPS; lap++) {
+    const deficits = simulateDeficitsAh({ ...physics, capacityAh: Infinity, days, flows, drivingChargeA: parts.starterRechargeA, startDeficitAh: endAh });
+    deepestAh = Math.max(deepestAh, ...deficits);
+    const settled = lap > 0 && deficits.at(-1)! - endAh < SETTLED_AH;
+    endAh = deficits.at(-1)!;
+    if (settled) return { deepestAh, refilled: true, spareAh };
+    if (deepestAh > physics.capacityAh) break;
+  }
+  return { deepestAh, refilled: false, spareAh };
+}
+
+function deepestAh(model: TripModel, spec: BankSpec, ratedAh: number, chargerA: number): { deepestAh: number; usableAh: number } {
+  const { depthOfDischarge, ...physics } = physicsOf(spec, ratedAh, model.parts.lowestC);
+  const deficits = simulateDeficitsAh({ ...physics, days: model.days, flows: model.flows, drivingChargeA: chargerA });
+  return { deepestAh: Math.max(0, ...deficits), usableAh: physics.capacityAh * depthOfDischarge };
+}
+
+/** Smallest house bank (rated Ah, whole) of the planned or recommended kind that stays above its floor over the trip with the plan's own charging. */
+export function minimumBankAh(model: TripModel): number {
+  const spec = model.plan.bank ?? { chemistry: houseChemistry(model.plan) };
+  const chargerA = model.plan.dcdcCharger?.outputA ?? 0;
+  const carries = (ratedAh: number) => {
+    const run = deepestAh(model, spec, ratedAh, chargerA);
+    return run.deepestAh <= run.usableAh + 1e-9;
+  };
+  // A bigger bank never runs lower in share (Peukert eases, the floor rises), so search by halving.
+  let high = 1;
+  while (!carries(high) && high < MAX_BANK_AH) high *= 2;
+  let low = 1;
+  while (low < high) {
+    const mid = Math.floor((low + high) / 2);
+    if (carries(mid)) high = mid;
+    else low = mid + 1;
+  }
+  return low;
+}
+
+/** The bank Busbar recommends: the minimum rounded up to a size the shop can buy; self-heating LiFePO4 for a trip below freezing. */
+export function recommendBank(model: TripModel, minimumAh: number): BankRecommendation {
+  const chemistry = houseChemistry(model.plan);
+  const sized = sizeToBuy(minimumAh, model.stock?.bankAh?.[chemistry], COMMON_BANK_AH);
+  return { ...sized, chemistry, selfHeating: chemistry === 'lifepo4' && model.parts.lowestC < 0 };
 }
 
 /** The battery whose hour-by-hour state the plan shows, with the charging it gets while driving. */
 export interface BankRun {
   bank: SimulatedBank;
+  physics: BankPhysics;
   drivingChargeA: number;
-  chargeEfficiency: number;
   deficitsAh: number[];
 }
 
-/** Simulates the planned bank; else the starter battery when it suffices; else the recommended minimum bank. */
-export function runBank(model: TripModel, starterSuffices: boolean, recommendedAh: number): BankRun {
-  const { plan } = model;
-  let bank: SimulatedBank;
-  let drivingChargeA = plan.dcdcCharger?.outputA ?? 0;
-  if (!plan.bank && starterSuffices) {
-    const ratedAh = plan.starterBattery.capacityAh;
-    const usableAh = ratedAh * STARTER_SPARE_FRACTION;
-    bank = { source: 'starter', chemistry: STARTER_CHEMISTRY, ratedAh, effectiveCapacityAh: ratedAh, usableAh, floorPercent: 100 - 100 * STARTER_SPARE_FRACTION };
-    drivingChargeA = Infinity;
-  } else {
-    const spec = plan.bank ?? { chemistry: RECOMMENDED_CHEMISTRY, capacityAh: recommendedAh };
-    const usable = usableCapacity({ ...spec, averageCurrentA: model.averageLoadA });
-    bank = {
-      source: plan.bank ? 'planned' : 'recommended',
-      chemistry: spec.chemistry,
-      ratedAh: spec.capacityAh,
-      effectiveCapacityAh: usable.effectiveCapacityAh,
-      usableAh: usable.usableAh,
-      floorPercent: 100 - 100 * usable.depthOfDischarge,
-    };
-  }
-  const chargeEfficiency = BATTERY_CHEMISTRIES[bank.chemistry].chargeEfficiency;
-  const deficitsAh = simulateDeficitsAh({ ...model, capacityAh: bank.effectiveCapacityAh, drivingChargeA, chargeEfficiency });
-  return { bank, drivingChargeA, chargeEfficiency, deficitsAh };
+/** Simulates the planned bank; else the starter battery when it suffices; else the recommended bank. */
+export function runBank(model: TripModel, starterSuffices: boolean, recommended: BankRecommendation): BankRun {
+  const { plan, parts } = model;
+  const starter = !plan.bank && starterSuffices;
+  const spec: BankSpec = starter ? { chemistry: STARTER_CHEMISTRY } : (plan.bank ?? { chemistry: RECOMMENDED_CHEMISTRY });
+  const ratedAh = starter ? plan.starterBattery.capacityAh : (plan.bank?.capacityAh ?? recommended.size);
+  const { depthOfDischarge, ...physics } = physicsOf(spec, ratedAh, parts.lowestC);
+  const usableShare = starter ? STARTER_SPARE_FRACTION : depthOfDischarge;
+  const drivingChargeA = starter ? parts.starterRechargeA : (plan.dcdcCharger?.outputA ?? 0);
+  const bank: SimulatedBank = {
+    source: starter ? 'starter' : plan.bank ? 'planned' : 'recommended',
+    chemistry: spec.chemistry,
+    ratedAh,
+    effectiveCapacityAh: physics.capacityAh,
+    usableAh: physics.capacityAh * usableShare,
+    floorPercent: 100 - 100 * usableShare,
+  };
+  const deficitsAh = simulateDeficitsAh({ ...physics, days: model.days, flows: model.flows, drivingChargeA });
+  return { bank, physics, drivingChargeA, deficitsAh };
 }
 
 /** Index of the trip's last driving hour, or -1 when the trip has no driving. */
@@ -88,12 +135,11 @@ export function lastDriveHourIndex({ days, flows }: TripModel): number {
 }
 
 // A trip repeats, so a bank that ends the last drive short starts the next trip short.
-/** DC-DC current to recommend: the smallest whole amperes that refill the bank by the end of the trip's last drive, at least the chemistry's minimum charge rate; null for a starter battery or a trip without driving. */
-export function recommendedChargerA(model: TripModel, run: BankRun): number | null {
+/** DC-DC charger to recommend: the smallest whole amperes that refill the bank by the end of the trip's last drive, at least the chemistry's minimum charge rate, rounded up to a size to buy; null for a starter battery, a trip without driving, or when no charger refills it (a lead-acid bank's taper). */
+export function recommendCharger(model: TripModel, run: BankRun): SizedChoice | null {
   const index = lastDriveHourIndex(model);
   if (run.bank.source === 'starter' || index < 0) return null;
-  const refilledWith = (chargerA: number) =>
-    simulateDeficitsAh({ ...model, capacityAh: run.bank.effectiveCapacityAh, drivingChargeA: chargerA, chargeEfficiency: run.chargeEfficiency })[index]! <= 1e-9;
+  const refilledWith = (chargerA: number) => simulateDeficitsAh({ ...run.physics, days: model.days, flows: model.flows, drivingChargeA: chargerA })[index]! <= 1e-9;
   if (!refilledWith(MAX_CHARGER_A)) return null;
   let low = 0;
   let high = MAX_CHARGER_A;
@@ -102,5 +148,6 @@ export function recommendedChargerA(model: TripModel, run: BankRun): number | nu
     if (refilledWith(mid)) high = mid;
     else low = mid + 1;
   }
-  return Math.max(low, ceil(BATTERY_CHEMISTRIES[run.bank.chemistry].chargeRateC.min * run.bank.ratedAh));
+  const minimum = Math.max(low, ceil(BATTERY_CHEMISTRIES[run.bank.chemistry].chargeRateC.min * run.bank.ratedAh));
+  return sizeToBuy(minimum, model.stock?.chargerA, COMMON_CHARGER_A);
 }

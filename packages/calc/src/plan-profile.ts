@@ -1,9 +1,12 @@
+import { peukertDrawAh } from './batteries.ts';
 import { loadWattHours } from './energy.ts';
+import type { PlanParts } from './plan-parts.ts';
 import type { DayKind, PlanInput, PlanTrip } from './plan-types.ts';
-import { CONTROLLER_HARVEST, solarDailyWh } from './solar.ts';
+import { solarDailyWh } from './solar.ts';
 
 // The day Busbar models, hour by hour (see evaluatePlan's notes):
-// - each load's daily energy spread evenly over its active hours (all 24 by default);
+// - each load's daily energy spread evenly over its active hours (all 24 by default), the
+//   inverter's idle draw over the hours any AC load may run;
 // - solar over 06:00–18:00 shaped as half a sine, peaking at noon;
 // - driving from driveStartHour (09:00 by default) for driveHoursPerDay, part hours pro rata;
 // - shore power from 18:00 on parked days, past midnight into the same day's early hours.
@@ -11,8 +14,9 @@ const SOLAR_START_HOUR = 6;
 const SOLAR_HOURS = 12;
 const DEFAULT_DRIVE_START_HOUR = 9;
 const SHORE_START_HOUR = 18;
+const ALL_HOURS = Array.from({ length: 24 }, (_, hour) => hour);
 
-const solarShape = Array.from({ length: 24 }, (_, hour) => {
+const solarShape = ALL_HOURS.map((hour) => {
   const t = hour + 0.5 - SOLAR_START_HOUR;
   return t > 0 && t < SOLAR_HOURS ? Math.sin((Math.PI * t) / SOLAR_HOURS) : 0;
 });
@@ -21,6 +25,8 @@ const solarShapeSum = solarShape.reduce((a, b) => a + b, 0);
 /** Ah per hour of the day (index 0–23) before the battery's charge efficiency. */
 export interface HourlyFlows {
   loadAh: number[];
+  /** Current while every load that may run in the hour runs at once, A: what Peukert's law is applied at. */
+  runningA: number[];
   solarAh: number[];
   /** Share of each hour spent driving on a driving day. */
   driveShare: number[];
@@ -36,44 +42,65 @@ export function tripDays(trip: PlanTrip): DayKind[] {
 const overlap = (hour: number, start: number, length: number) => (hour < start ? 0 : Math.min(1, Math.max(0, start + length - hour)));
 
 /** The plan's loads and sources as Ah in each hour of a day. */
-export function hourlyFlows(plan: PlanInput): HourlyFlows {
+export function hourlyFlows(plan: PlanInput, parts: PlanParts): HourlyFlows {
   const loadAh = Array<number>(24).fill(0);
-  for (const load of plan.loads) {
-    const hours = load.activeHours ?? Array.from({ length: 24 }, (_, hour) => hour);
-    const perHourAh = loadWattHours(load, plan.inverter?.efficiency ?? 1) / hours.length / plan.systemV;
-    for (const hour of hours) loadAh[hour]! += perHourAh;
-  }
-  const solarAhPerDay = plan.solar ? (solarDailyWh(plan.solar) * CONTROLLER_HARVEST[plan.solar.controller]) / plan.systemV : 0;
+  const runningA = Array<number>(24).fill(0);
+  const efficiency = plan.inverter?.efficiency ?? 1;
+  const spread = (hours: number[], wattHours: number, runningW: number) => {
+    for (const hour of hours) {
+      loadAh[hour]! += wattHours / hours.length / plan.systemV;
+      runningA[hour]! += runningW / plan.systemV;
+    }
+  };
+  for (const load of plan.loads) spread(load.activeHours ?? ALL_HOURS, loadWattHours(load, efficiency), load.ac ? load.watts / efficiency : load.watts);
+  if (parts.inverterOnHours.length > 0) spread(parts.inverterOnHours, parts.inverterIdleW * parts.inverterOnHours.length, parts.inverterIdleW);
+  const solarAhPerDay = plan.solar ? (solarDailyWh(plan.solar) * parts.solarShare) / plan.systemV : 0;
   const driveStart = plan.trip.driveStartHour ?? DEFAULT_DRIVE_START_HOUR;
   const shoreHours = plan.shoreCharger?.hoursPerParkedDay ?? 0;
   const shoreA = plan.shoreCharger?.outputA ?? 0;
   return {
     loadAh,
+    runningA,
     solarAh: solarShape.map((share) => (solarAhPerDay * share) / solarShapeSum),
-    driveShare: loadAh.map((_, hour) => overlap(hour, driveStart, plan.trip.driveHoursPerDay)),
-    shoreAh: loadAh.map((_, hour) => shoreA * overlap((hour - SHORE_START_HOUR + 24) % 24, 0, shoreHours)),
+    driveShare: ALL_HOURS.map((hour) => overlap(hour, driveStart, plan.trip.driveHoursPerDay)),
+    shoreAh: ALL_HOURS.map((hour) => shoreA * overlap((hour - SHORE_START_HOUR + 24) % 24, 0, shoreHours)),
   };
 }
 
-export interface Simulation {
-  days: DayKind[];
-  flows: HourlyFlows;
+/** How a battery takes and gives charge in the simulation. */
+export interface BankPhysics {
   /** The bank's full point, Ah; Infinity to see the whole demand. */
   capacityAh: number;
-  /** DC-DC (or alternator) current while driving; Infinity refills within the hour. */
-  drivingChargeA: number;
   chargeEfficiency: number;
+  /** Peukert's law at each hour's running current; absent: draws count as drawn. */
+  peukert?: { capacityAh: number; ratedHours: number; exponent: number };
+  /** Lead-acid: within kneeDeficitAh of full the bank takes at most acceptAhPerHour. */
+  taper?: { kneeDeficitAh: number; acceptAhPerHour: number };
 }
 
-/** Ah below full at the end of each hour of the trip, starting full; never below empty. */
-export function simulateDeficitsAh({ days, flows, capacityAh, drivingChargeA, chargeEfficiency }: Simulation): number[] {
+export interface Simulation extends BankPhysics {
+  days: DayKind[];
+  flows: HourlyFlows;
+  /** DC-DC (or alternator) current while driving. */
+  drivingChargeA: number;
+  /** Ah below full at the start; 0 (full) when absent. */
+  startDeficitAh?: number;
+}
+
+/** Ah below full at the end of each hour of the trip; never below empty. */
+export function simulateDeficitsAh({ days, flows, capacityAh, chargeEfficiency, peukert, taper, drivingChargeA, startDeficitAh = 0 }: Simulation): number[] {
   const deficits: number[] = [];
-  let deficitAh = 0;
+  const drawFactor = flows.runningA.map((currentA) => (peukert ? peukertDrawAh({ drawnAh: 1, currentA, ...peukert }) : 1));
+  let deficitAh = startDeficitAh;
   for (const kind of days) {
     for (let hour = 0; hour < 24; hour++) {
       const driveShare = kind === 'driving' ? flows.driveShare[hour]! : 0;
-      const sourceAh = flows.solarAh[hour]! + (kind === 'parked' ? flows.shoreAh[hour]! : 0) + (driveShare > 0 ? driveShare * drivingChargeA : 0);
-      deficitAh = Math.min(capacityAh, Math.max(0, deficitAh + flows.loadAh[hour]! - sourceAh * chargeEfficiency));
+      const sourceAh = flows.solarAh[hour]! + (kind === 'parked' ? flows.shoreAh[hour]! : 0) + driveShare * drivingChargeA;
+      const netAh = sourceAh * chargeEfficiency - flows.loadAh[hour]! * drawFactor[hour]!;
+      // Charging runs at full rate down to the taper's knee, then at most at the taper's rate.
+      const bulkAh = taper ? Math.max(0, deficitAh - taper.kneeDeficitAh) : Infinity;
+      const gainAh = netAh <= bulkAh ? netAh : bulkAh + (1 - bulkAh / netAh) * Math.min(netAh, taper!.acceptAhPerHour);
+      deficitAh = Math.min(capacityAh, Math.max(0, deficitAh - gainAh));
       deficits.push(deficitAh);
     }
   }

@@ -40,9 +40,35 @@ export function solarDailyWh({ arrayW, peakSunHours, lossFraction = PVWATTS_V5_L
 
 export type SolarController = 'mppt' | 'pwm';
 
+/** Share of the array's energy an MPPT converter passes to the battery (common practice, no source). */
+export const MPPT_HARVEST = 0.95;
+
+export interface HarvestInput {
+  controller: SolarController;
+  /** The panels' maximum-power voltage, V. */
+  panelVmp: number;
+  /** The battery's voltage while it charges, V. */
+  batteryV: number;
+}
+
 /**
- * Share of the array's energy a charge controller passes to the battery (common practice, no
- * source): an MPPT converter loses a few percent; a PWM controller holds the panel at battery
- * voltage, well below its maximum-power voltage.
+ * Share of the array's energy the controller passes to the battery. A PWM controller connects the
+ * panel straight to the battery, so the panel works at battery voltage with about its maximum-power
+ * current: it delivers P × V_battery / V_mp (power balance). An MPPT converter delivers MPPT_HARVEST.
  */
-export const CONTROLLER_HARVEST: Record<SolarController, number> = { mppt: 0.95, pwm: 0.75 };
+export function controllerHarvest({ controller, panelVmp, batteryV }: HarvestInput): number {
+  checkNumber('panelVmp', panelVmp, { above: 0 });
+  checkNumber('batteryV', batteryV, { above: 0 });
+  return controller === 'mppt' ? MPPT_HARVEST : Math.min(1, batteryV / panelVmp);
+}
+
+/** PVWatts v5's temperature coefficient of power for a standard module, per °C (from memory). */
+export const MODULE_POWER_COEFFICIENT_PER_C = -0.0047;
+/** How far a module in full sun runs above the air, °C (from memory: about 25 °C at 800 W/m²). */
+export const MODULE_RISE_C = 25;
+
+/** Share of rated power a module gives at an air temperature: 1 + γ × (T_module − 25 °C), the module taken MODULE_RISE_C above the air; never above 1, so a cold day is not credited. */
+export function moduleTemperatureFactor(airC: number): number {
+  checkNumber('airC', airC, { min: -60, max: 80 });
+  return Math.min(1, 1 + MODULE_POWER_COEFFICIENT_PER_C * (airC + MODULE_RISE_C - 25));
+}

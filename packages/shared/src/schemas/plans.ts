@@ -1,4 +1,4 @@
-import { AWG_SIZES, INSULATION_RATINGS_C, MM2_SIZES, type PlanInput, type PlanResult } from '@busbar/calc';
+import { AWG_SIZES, CIRCUIT_LINKS, INSULATION_RATINGS_C, MM2_SIZES, type PlanInput, type PlanResult } from '@busbar/calc';
 import { z } from 'zod';
 import { idSchema } from './common.ts';
 
@@ -45,28 +45,43 @@ const load = z.strictObject({
     .optional(),
 });
 
-const circuit = z.strictObject({
-  from: text('start of the circuit'),
-  to: text('end of the circuit'),
-  oneWayLengthM: quantity('Length', 'm', { above: 0, max: 100 }),
-  currentA: quantity('Current', 'A', { above: 0, max: 1000 }),
-  critical: z.boolean({ error: 'Say whether the circuit is critical' }),
-  insulationC: z.literal(INSULATION_RATINGS_C, { error: `Choose an insulation rating: ${INSULATION_RATINGS_C.join(', ')} °C` }),
-  engineSpace: z.boolean({ error: 'Say whether the circuit runs in the engine space' }).optional(),
-  bundledConductors: quantity('Conductors in the bundle', '', { min: 1, max: 100, integer: true }).optional(),
-  size: conductorSize.optional(),
-  fuseA: quantity('Fuse', 'A', { above: 0, max: 1000 }).optional(),
-});
+const battery = z.enum(['house', 'starter'], { error: 'Choose the house or the starter battery' });
+const fuseDistance = quantity('Distance of the fuse from the battery', 'mm', { min: 0, max: 5000 });
+
+const circuit = z
+  .strictObject({
+    from: text('start of the circuit'),
+    to: text('end of the circuit'),
+    oneWayLengthM: quantity('Length', 'm', { above: 0, max: 100 }),
+    currentA: quantity('Current', 'A', { above: 0, max: 1000 }).optional(),
+    link: z.enum(CIRCUIT_LINKS, { error: 'Choose what the circuit feeds' }).optional(),
+    critical: z.boolean({ error: 'Say whether the circuit is critical' }),
+    insulationC: z.literal(INSULATION_RATINGS_C, { error: `Choose an insulation rating: ${INSULATION_RATINGS_C.join(', ')} °C` }),
+    engineSpace: z.boolean({ error: 'Say whether the circuit runs in the engine space' }).optional(),
+    bundledConductors: quantity('Conductors in the bundle', '', { min: 1, max: 100, integer: true }).optional(),
+    sheathed: z.boolean({ error: 'Say whether the conductor is sheathed' }).optional(),
+    fromBattery: battery.optional(),
+    toBattery: battery.optional(),
+    fuseFromBatteryMm: fuseDistance.optional(),
+    fuseToBatteryMm: fuseDistance.optional(),
+    size: conductorSize.optional(),
+    fuseA: quantity('Fuse', 'A', { above: 0, max: 1000 }).optional(),
+  })
+  .refine((c) => c.link !== undefined || c.currentA !== undefined, { message: 'Enter the current', path: ['currentA'] });
 
 /** The inputs of a power plan as `evaluatePlan` (packages/calc) takes them; the form and the API check with it. */
 export const planInputSchema = z.strictObject({
   systemV: z.literal([12, 24], { error: 'Choose a 12 V or a 24 V system' }),
   gauge: z.enum(['awg', 'mm2'], { error: 'Choose AWG or mm² for the conductors' }),
+  conductorTemperatureC: quantity('Conductor temperature', '°C', { min: 20, max: 105 }).optional(),
+  tinnedCopper: z.boolean({ error: 'Say whether the conductors are tinned' }).optional(),
   loads: z.array(load, { error: 'List the loads' }).max(60, 'At most 60 loads'),
   inverter: z
     .strictObject({
       ratedW: quantity('Inverter rating', 'W', { above: 0, max: 10_000 }),
       efficiency: quantity('Inverter efficiency', '', { min: 0.5, max: 1 }),
+      cutoffV: quantity('Inverter cutoff', 'V', { min: 8, max: 30 }).optional(),
+      idleW: quantity('Inverter idle draw', 'W', { min: 0, max: 200 }).optional(),
     })
     .optional(),
   bank: z
@@ -76,16 +91,33 @@ export const planInputSchema = z.strictObject({
       depthOfDischarge: quantity('Depth of discharge', '', { above: 0, max: 1 }).optional(),
       peukertExponent: quantity('Peukert exponent', '', { min: 1, max: 2 }).optional(),
       ratedHours: quantity('Rated hours', 'h', { above: 0, max: 100 }).optional(),
+      selfHeating: z.boolean({ error: 'Say whether the bank heats itself' }).optional(),
     })
     .optional(),
-  starterBattery: z.strictObject({ capacityAh: quantity('Starter battery capacity', 'Ah', { above: 0, max: 5000 }) }),
-  dcdcCharger: z.strictObject({ outputA: quantity('Charger output', 'A', { above: 0, max: 1000 }) }).optional(),
+  starterBattery: z.strictObject({
+    capacityAh: quantity('Starter battery capacity', 'Ah', { above: 0, max: 5000 }),
+    rechargeA: quantity('Alternator charge into the starter battery', 'A', { above: 0, max: 500 }).optional(),
+  }),
+  alternator: z
+    .strictObject({
+      ratedA: quantity('Alternator rating', 'A', { above: 0, max: 1000 }),
+      vehicleLoadA: quantity("Vehicle's own load", 'A', { min: 0, max: 1000 }).optional(),
+    })
+    .optional(),
+  dcdcCharger: z
+    .strictObject({
+      outputA: quantity('Charger output', 'A', { above: 0, max: 1000 }),
+      efficiency: quantity('Charger efficiency', '', { min: 0.5, max: 1 }).optional(),
+      minInputV: quantity('Lowest input voltage', 'V', { min: 8, max: 30 }).optional(),
+    })
+    .optional(),
   solar: z
     .strictObject({
       arrayW: quantity('Array power', 'W', { above: 0, max: 10_000 }),
       peakSunHours: quantity('Peak sun hours', 'h', { min: 0, max: 12 }),
       controller: z.enum(['mppt', 'pwm'], { error: 'Choose an MPPT or a PWM controller' }),
       lossFraction: quantity('System losses', '', { min: 0, max: 0.9 }).optional(),
+      panelVmp: quantity('Panel maximum-power voltage', 'V', { min: 10, max: 100 }).optional(),
     })
     .optional(),
   shoreCharger: z
@@ -99,6 +131,8 @@ export const planInputSchema = z.strictObject({
     daysDriving: quantity('Days driving', '', { min: 0, max: 60, integer: true }),
     driveHoursPerDay: quantity('Drive hours a day', 'h', { min: 0, max: 24 }),
     driveStartHour: hourOfDay.optional(),
+    lowestC: quantity('Lowest temperature', '°C', { min: -50, max: 60 }).optional(),
+    highestC: quantity('Highest temperature', '°C', { min: -50, max: 60 }).optional(),
   }),
   circuits: z.array(circuit, { error: 'List the circuits' }).max(40, 'At most 40 circuits'),
 });
