@@ -83,23 +83,24 @@ describe('metric conductors read at an AWG size no larger than themselves', () =
 });
 
 // Source: 33 CFR 183.455 — overcurrent protection under 50 V at most 150 % of the conductor's
-// Table 5 amperage (CHECKS.md [P]). Busbar applies it to the derated amperage.
+// Table 5 amperage (CHECKS.md [P]). Busbar applies it to the derated amperage, as the hard ceiling
+// for a fitted fuse; what it recommends stays within the conductor's amperage (stricter).
 describe('fuse protects its conductor, 33 CFR 183.455', () => {
-  it('never chooses a fuse above 150 % of the amperage, for any size, rating and load', () => {
+  it('never recommends a fuse above the amperage, for any size, rating and load', () => {
     for (const [, , amperes] of cells) {
       for (const share of [0.2, 0.5, 0.8, 1]) {
         const fuseA = selectFuseA({ loadA: amperes * share, conductorAmpacityA: amperes });
         if (share === 0.5) expect(fuseA).not.toBeNull();
         if (fuseA === null) continue;
-        expect(fuseA).toBeLessThanOrEqual(1.5 * amperes);
+        expect(fuseA).toBeLessThanOrEqual(amperes);
         expect(fuseA).toBeGreaterThanOrEqual(1.25 * amperes * share);
       }
     }
   });
 
-  it('takes 70 A for 50 A on 10 AWG at 105 °C (60 A: fuse between 62.5 and 90 A) and none for 70 A', () => {
-    expect(selectFuseA({ loadA: 50, conductorAmpacityA: 60 })).toBe(70);
-    expect(selectFuseA({ loadA: 70, conductorAmpacityA: 60 })).toBeNull();
+  it('recommends no fuse for 50 A on 10 AWG at 105 °C (60 A): the 70 A it needs is above the wire, though within 150 % (90 A)', () => {
+    expect(selectFuseA({ loadA: 40, conductorAmpacityA: 60 })).toBe(50);
+    expect(selectFuseA({ loadA: 50, conductorAmpacityA: 60 })).toBeNull();
   });
 
   it('flags a fitted fuse above 150 % of its wire in a plan, and accepts one at or below it', () => {
@@ -112,9 +113,30 @@ describe('fuse protects its conductor, 33 CFR 183.455', () => {
       // 16 AWG at 105 °C: 25 A (Table 5), so at most 37.5 A.
       circuits: [{ from: 'Fuse panel', to: 'Pump', oneWayLengthM: 2, currentA: 8, critical: false, insulationC: 105, size: { awg: '16' }, fuseA }],
     });
-    expect(evaluatePlan(plan(40)).findings.map((f) => f.code)).toContain('fuse-does-not-protect-wire');
+    expect(evaluatePlan(plan(40)).findings).toContainEqual(expect.objectContaining({ code: 'fuse-does-not-protect-wire', severity: 'critical' }));
     expect(evaluatePlan(plan(35)).findings.map((f) => f.code)).not.toContain('fuse-does-not-protect-wire');
     expect(evaluatePlan(plan(35)).circuits[0]?.maxFuseA).toBeCloseTo(37.5, 9);
+    // Between 100 % and 150 % of the wire: a warning, not a refusal.
+    expect(evaluatePlan(plan(35)).findings).toEqual([expect.objectContaining({ code: 'fuse-above-wire-rating', severity: 'warning' })]);
+    expect(evaluatePlan(plan(25)).findings).toEqual([]);
+  });
+});
+
+// Source: 33 CFR 183.425(e) (CHECKS.md [P]): a conductor installed separately is at least 16 AWG.
+describe('smallest conductor, 33 CFR 183.425(e)', () => {
+  const plan = (size?: { awg: '18' }, sheathed?: boolean): PlanInput => ({
+    systemV: 12,
+    gauge: 'awg',
+    loads: [],
+    starterBattery: { capacityAh: 70 },
+    trip: { daysParked: 1, daysDriving: 0, driveHoursPerDay: 0 },
+    circuits: [{ from: 'Fuse panel', to: 'Reading light', oneWayLengthM: 1, currentA: 0.5, critical: false, insulationC: 105, size, sheathed }],
+  });
+
+  it('recommends 16 AWG for the smallest load, and warns of a fitted 18 AWG run on its own', () => {
+    expect(evaluatePlan(plan()).circuits[0]?.recommended?.size).toEqual({ awg: '16' });
+    expect(evaluatePlan(plan({ awg: '18' })).findings.map((f) => f.code)).toEqual(['conductor-below-minimum']);
+    expect(evaluatePlan(plan({ awg: '18' }, true)).findings).toEqual([]);
   });
 });
 

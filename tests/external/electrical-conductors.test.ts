@@ -1,4 +1,4 @@
-import { AWG_SIZES, awgCircularMils, conductorResistanceOhmsPerM, feetToMeters, MM2_SIZES, selectConductor, voltageDrop, type Awg, type Mm2 } from '@busbar/calc';
+import { awgAreaMm2, AWG_SIZES, awgCircularMils, conductorResistanceOhmsPerM, feetToMeters, MM2_SIZES, selectConductor, voltageDrop, type Awg, type Mm2 } from '@busbar/calc';
 import { describe, expect, it } from 'vitest';
 
 const METRES_PER_KFT = 304.8; // 1,000 international feet
@@ -36,12 +36,52 @@ describe('conductor resistance', () => {
   });
 
   it.each(MM2_SIZES)('reads %s mm² from IEC 60228 Table 3, class 5 (20 °C)', (mm2) => {
-    expect(conductorResistanceOhmsPerM({ mm2 }) * 1000).toBeCloseTo(IEC_60228_CLASS_5_OHMS_PER_KM[mm2], 9);
+    expect(conductorResistanceOhmsPerM({ mm2 }, { temperatureC: 20 }) * 1000).toBeCloseTo(IEC_60228_CLASS_5_OHMS_PER_KM[mm2], 9);
   });
 
   it.each(AWG_SIZES)('gives %s AWG the area of NEC Table 8 within 0.5 % (from memory)', (awg) => {
     const published = NEC_TABLE_8_CIRCULAR_MILS[awg];
     expect(Math.abs(awgCircularMils(awg) - published) / published).toBeLessThan(0.005);
+  });
+});
+
+// Source: IEC 60228 Annex B (CHECKS.md [P]): R_t = R_20 × (234.5 + t) / 254.5 for copper; 75 °C
+// gives × 1.216. Every conductor is computed at one temperature, 75 °C unless the plan says.
+describe('conductors at one temperature (IEC 60228 Annex B)', () => {
+  it.each(MM2_SIZES)('moves %s mm² from 20 °C to 75 °C by × 1.216', (mm2) => {
+    const ratio = conductorResistanceOhmsPerM({ mm2 }) / conductorResistanceOhmsPerM({ mm2 }, { temperatureC: 20 });
+    expect(ratio).toBeCloseTo(1.216, 3);
+  });
+
+  it('moves AWG from Table 8’s 75 °C to 20 °C by the same law', () => {
+    expect(conductorResistanceOhmsPerM({ awg: '10' }) / conductorResistanceOhmsPerM({ awg: '10' }, { temperatureC: 20 })).toBeCloseTo(1.216, 3);
+  });
+
+  // From memory: annealed copper is 1/58 Ω·mm²/m at 20 °C (IEC 60028). Resistance × area compares
+  // the two tables for the same copper area at the same temperature.
+  const ohmMm2PerKm = (size: { awg: Awg } | { mm2: Mm2 }, temperatureC: number) =>
+    conductorResistanceOhmsPerM(size, { temperatureC }) * 1000 * ('awg' in size ? awgAreaMm2(size.awg) : size.mm2);
+
+  it.each(AWG_SIZES)('has %s AWG within 3 % of annealed copper at 20 °C (stranding adds about 2 %)', (awg) => {
+    expect(ohmMm2PerKm({ awg }, 20) / (1000 / 58)).toBeGreaterThan(0.99);
+    expect(ohmMm2PerKm({ awg }, 20) / (1000 / 58)).toBeLessThan(1.03);
+  });
+
+  it.each(MM2_SIZES)('has %s mm² at least as resistive per area as AWG at the same temperature, never the 18 % lower it read at 20 °C', (mm2) => {
+    // IEC 60228 lists maximum resistances, 10–16 % above annealed copper, so the metric path is the
+    // more cautious one at one temperature; mixing 20 °C with 75 °C made it the less cautious one.
+    const awgMean = AWG_SIZES.reduce((sum, awg) => sum + ohmMm2PerKm({ awg }, 75), 0) / AWG_SIZES.length;
+    expect(ohmMm2PerKm({ mm2 }, 75) / awgMean).toBeGreaterThan(1);
+    expect(ohmMm2PerKm({ mm2 }, 75) / awgMean).toBeLessThan(1.16);
+    expect(ohmMm2PerKm({ mm2 }, 20) / awgMean).toBeLessThan(0.95);
+  });
+
+  it('makes tinned copper a few percent more resistive than plain (IEC 60228 Table 3; NEC Table 8 coated)', () => {
+    for (const size of [...AWG_SIZES.map((awg) => ({ awg })), ...MM2_SIZES.map((mm2) => ({ mm2 }))]) {
+      const ratio = conductorResistanceOhmsPerM(size, { tinned: true }) / conductorResistanceOhmsPerM(size);
+      expect(ratio).toBeGreaterThan(1.01);
+      expect(ratio).toBeLessThan(1.07);
+    }
   });
 });
 
