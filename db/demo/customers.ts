@@ -20,8 +20,18 @@ const STREETS = [
 ] as const;
 const MAIL_DOMAINS = ['postbox.test', 'fernmail.test', 'quillnet.test', 'harbormail.test'] as const;
 
-/** Where each shop is, for its customers' addresses and phone numbers. */
-const AREAS: Record<string, { state: string; areaCode: string; zipPrefix: string }> = {
+/** Where a shop is, for its customers' addresses and phone numbers; a Canadian area's prefix is a postal district (e.g. T2P). */
+export interface Area {
+  state: string;
+  areaCode: string;
+  zipPrefix: string;
+  country?: 'CA';
+  /** The city customers give, when it is not simply the shop's name. */
+  city?: string;
+}
+
+/** The demo shops' areas, by location code. */
+export const DEMO_AREAS: Record<string, Area> = {
   DEN: { state: 'CO', areaCode: '303', zipPrefix: '802' },
   BOI: { state: 'ID', areaCode: '208', zipPrefix: '837' },
   PDX: { state: 'OR', areaCode: '503', zipPrefix: '972' },
@@ -46,10 +56,13 @@ export interface DemoCustomer {
 
 const slug = (text: string) => text.toLowerCase().replace(/[^a-z0-9]+/g, '.').replace(/^\.|\.$/g, '');
 
+const postalCode = (random: Random, area: Area) =>
+  area.country === 'CA'
+    ? `${area.zipPrefix} ${between(random, 1, 9)}${pick(random, [...'ABCEGHJKLMNPRSTVWXYZ'])}${between(random, 0, 9)}`
+    : `${area.zipPrefix}${String(between(random, 1, 99)).padStart(2, '0')}`;
+
 /** A new customer of the shop in `city`; some leave no e-mail, phone or address. */
-export function newCustomer(random: Random, locationCode: string, city: string): DemoCustomer {
-  const area = AREAS[locationCode];
-  if (!area) throw new Error(`no demo area for ${locationCode}`);
+export function newCustomer(random: Random, area: Area, city: string): DemoCustomer {
   const business = chance(random, 0.08);
   const name = business ? `${pick(random, BUSINESS_NAMES)} ${pick(random, BUSINESS_TRADES)}` : `${pick(random, FIRST)} ${pick(random, LAST)}`;
   const email = business ? `office@${slug(name).replace(/\./g, '-')}.test` : `${slug(name)}${between(random, 1, 99)}@${pick(random, MAIL_DOMAINS)}`;
@@ -62,7 +75,7 @@ export function newCustomer(random: Random, locationCode: string, city: string):
     addressLine2: hasAddress && chance(random, 0.1) ? `Unit ${between(random, 1, 40)}` : '',
     city: hasAddress ? city : '',
     region: hasAddress ? area.state : '',
-    postalCode: hasAddress ? `${area.zipPrefix}${String(between(random, 1, 99)).padStart(2, '0')}` : '',
+    postalCode: hasAddress ? postalCode(random, area) : '',
     notes: business ? 'Fleet account: invoice monthly.' : '',
   };
 }

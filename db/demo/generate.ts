@@ -14,6 +14,22 @@ export interface DemoOptions {
   seed?: number;
   /** Also two years of vendors, catalog, customers and builds up to `now` (see history.ts). */
   history?: boolean;
+  /** Regions and locations instead of the demo's own (a generated network, see network-shops.ts). */
+  network?: { regions: readonly NetworkRegion[]; locations: readonly NetworkLocation[] };
+}
+
+export interface NetworkRegion {
+  code: string;
+  name: string;
+}
+
+export interface NetworkLocation {
+  region: string;
+  code: string;
+  name: string;
+  timeZone: string;
+  laborRateCents: number;
+  royaltyBasisPoints: number;
 }
 
 interface StaffSeed {
@@ -24,22 +40,29 @@ interface StaffSeed {
   location?: string;
 }
 
-/** The named demo sign-ins plus generated staff: every shop has a lead, technicians and a clerk. */
-function demoStaff(random: () => number): StaffSeed[] {
-  const staff: StaffSeed[] = [...DEMO_SIGN_INS];
+/** The named demo sign-ins (those whose place exists) plus generated staff: every shop has a lead, technicians and a clerk. */
+function demoStaff(random: () => number, regions: readonly NetworkRegion[], locations: readonly NetworkLocation[]): StaffSeed[] {
+  const exists = (s: StaffSeed) =>
+    (!s.region || regions.some((r) => r.code === s.region)) && (!s.location || locations.some((l) => l.code === s.location));
+  const staff: StaffSeed[] = DEMO_SIGN_INS.filter(exists);
   const taken = new Set(staff.map((s) => s.email));
   const person = (role: Role, place: { region?: string; location?: string }) => {
-    for (;;) {
+    // A large network runs out of name pairs: past a few tries, a number tells namesakes apart.
+    for (let tries = 1; ; tries++) {
       const name = `${pick(random, FIRST_NAMES)} ${pick(random, LAST_NAMES)}`;
-      const email = `${name.toLowerCase().replace(' ', '.')}@demo.busbar.test`;
+      const local = name.toLowerCase().replace(' ', '.');
+      let email = `${local}@demo.busbar.test`;
+      for (let n = 2; tries > 20 && taken.has(email); n++) email = `${local}${n}@demo.busbar.test`;
       if (taken.has(email)) continue;
       taken.add(email);
       staff.push({ email, name, role, ...place });
       return;
     }
   };
-  person('regional_manager', { region: 'EAST' });
-  for (const location of DEMO_LOCATIONS) {
+  for (const region of regions) {
+    if (!staff.some((s) => s.region === region.code)) person('regional_manager', { region: region.code });
+  }
+  for (const location of locations) {
     const has = (role: Role) => staff.some((s) => s.location === location.code && s.role === role);
     if (!has('location_lead')) person('location_lead', { location: location.code });
     const technicians = 2 + Math.floor(random() * 3) - (has('technician') ? 1 : 0);
@@ -54,14 +77,15 @@ export async function seedDemoNetwork(db: Db, options: DemoOptions): Promise<voi
   const seed = options.seed ?? 20261202;
   const random = seededRandom(seed);
   const createdAt = options.now.toISOString();
+  const { regions, locations } = options.network ?? { regions: DEMO_REGIONS, locations: DEMO_LOCATIONS };
   await db.transaction().execute(async (trx) => {
     const regionIds = new Map<string, number>();
-    for (const region of DEMO_REGIONS) {
+    for (const region of regions) {
       const row = await trx.insertInto('regions').values(region).returning('id').executeTakeFirstOrThrow();
       regionIds.set(region.code, row.id);
     }
     const locationIds = new Map<string, number>();
-    for (const { region, ...location } of DEMO_LOCATIONS) {
+    for (const { region, ...location } of locations) {
       const row = await trx
         .insertInto('locations')
         .values({ ...location, regionId: regionIds.get(region)! })
@@ -69,7 +93,7 @@ export async function seedDemoNetwork(db: Db, options: DemoOptions): Promise<voi
         .executeTakeFirstOrThrow();
       locationIds.set(location.code, row.id);
     }
-    for (const person of demoStaff(random)) {
+    for (const person of demoStaff(random, regions, locations)) {
       const user = await trx
         .insertInto('users')
         .values({ email: person.email, name: person.name, passwordHash: options.passwordHash, status: 'active', createdAt })

@@ -13,8 +13,9 @@ import type { Role } from '@busbar/shared';
 import type { Db } from '../connect.ts';
 import { DEMO_CATALOG, SERIALIZED_CATEGORIES } from './catalog.ts';
 import { historyRows, type CatalogEntry } from './history-rows.ts';
-import { insertInChunks, lastId } from './insert.ts';
-import { LOCATION_PROFILES } from './profiles.ts';
+import { DEMO_AREAS, type Area } from './customers.ts';
+import { insertInChunks, nextIds } from './insert.ts';
+import { LOCATION_PROFILES, type LocationProfile } from './profiles.ts';
 import { seededRandom } from './random.ts';
 import { simulateShop, type Shop } from './shop-history.ts';
 import { DEMO_VENDORS } from './vendors.ts';
@@ -24,22 +25,23 @@ export interface HistoryOptions {
   seed: number;
 }
 
-/** The demo locations with their leads and technicians, as the staff part of the generator left them. */
-async function loadShops(db: Db): Promise<Shop[]> {
+/** The locations with their leads and technicians, as the staff part of the generator left them. */
+export async function loadShops(db: Db, profiles: Record<string, LocationProfile>, areas: Record<string, Area>): Promise<Shop[]> {
   const locations = await db.selectFrom('locations').select(['id', 'code', 'name', 'timeZone', 'laborRateCents']).orderBy('id').execute();
   const staff = await db.selectFrom('roleAssignments').select(['userId', 'role', 'locationId']).orderBy('id').execute();
   const holders = (locationId: number, role: Role) => staff.filter((s) => s.locationId === locationId && s.role === role).map((s) => s.userId);
   return locations.map((location) => {
-    const profile = LOCATION_PROFILES[location.code];
+    const profile = profiles[location.code];
+    const area = areas[location.code];
     const [leadId] = holders(location.id, 'location_lead');
     const technicianIds = holders(location.id, 'technician');
-    if (!profile || leadId === undefined || technicianIds.length === 0) throw new Error(`${location.code} is not a staffed demo shop`);
-    return { ...location, leadId, technicianIds, profile };
+    if (!profile || !area || leadId === undefined || technicianIds.length === 0) throw new Error(`${location.code} is not a staffed demo shop`);
+    return { ...location, leadId, technicianIds, profile, area };
   });
 }
 
 /** Inserts the vendors and the catalog; answers each item by SKU. */
-async function insertCatalog(db: Db): Promise<Map<string, CatalogEntry>> {
+export async function insertCatalog(db: Db): Promise<Map<string, CatalogEntry>> {
   const vendorIds = new Map<string, { id: number; serialPrefix: string }>();
   for (const { code, serialPrefix, ...vendor } of DEMO_VENDORS) {
     const row = await db.insertInto('vendors').values(vendor).returning('id').executeTakeFirstOrThrow();
@@ -64,16 +66,10 @@ export async function seedDemoHistory(db: Db, options: HistoryOptions): Promise<
   // Its own stream, so the staff drawn from the same seed stay as they were.
   const random = seededRandom(options.seed ^ 0x5eed_b00c);
   const nowMs = options.now.getTime();
-  const shops = await loadShops(db);
+  const shops = await loadShops(db, LOCATION_PROFILES, DEMO_AREAS);
   const catalog = await insertCatalog(db);
   const simulated = shops.map((shop) => simulateShop(random, shop, nowMs));
-  const sim = { customers: simulated.flatMap((s) => s.customers), builds: simulated.flatMap((s) => s.builds) };
-  const firstId = {
-    customer: (await lastId(db, 'customers')) + 1,
-    vehicle: (await lastId(db, 'vehicles')) + 1,
-    build: (await lastId(db, 'builds')) + 1,
-  };
-  const rows = historyRows(random, sim, catalog, firstId, nowMs);
+  const rows = historyRows(random, { builds: simulated.flatMap((s) => s.builds) }, catalog, await nextIds(db), nowMs);
   await insertInChunks(db, 'customers', rows.customers);
   await insertInChunks(db, 'vehicles', rows.vehicles);
   await insertInChunks(db, 'builds', rows.builds);

@@ -1,4 +1,4 @@
-import { newCustomer, type DemoCustomer } from './customers.ts';
+import { newCustomer, type Area, type DemoCustomer } from './customers.ts';
 import { between, chance, poisson, weighted, type Random } from './draw.ts';
 import { designJob, type Job } from './jobs.ts';
 import { localDay, monthOf, weekday } from '@busbar/calc';
@@ -17,6 +17,8 @@ export interface Shop {
   leadId: number;
   technicianIds: number[];
   profile: LocationProfile;
+  /** Where the shop's customers live, for their addresses and phone numbers. */
+  area: Area;
 }
 
 export interface SimCustomer extends DemoCustomer {
@@ -54,22 +56,29 @@ function customerFor(random: Random, shop: Shop, customers: SimCustomer[], creat
     customer.vehicles.push(vehicle);
     return { customer, vehicle };
   }
-  const customer: SimCustomer = { ...newCustomer(random, shop.code, shop.name), shop, createdAt, vehicles: [] };
+  const customer: SimCustomer = { ...newCustomer(random, shop.area, shop.area.city ?? shop.name), shop, createdAt, vehicles: [] };
   const vehicle: SimVehicle = { ...newVehicle(random, new Date(createdAt).getUTCFullYear()), customer };
   customer.vehicles.push(vehicle);
   customers.push(customer);
   return { customer, vehicle };
 }
 
-/** Every build the shop took in its last two years (or since it opened), day by day up to the clock. */
-export function simulateShop(random: Random, shop: Shop, nowMs: number): { customers: SimCustomer[]; builds: SimBuild[] } {
+/**
+ * The shop's history as it happens, one local day at a time over the last `historyDays` (days
+ * before it opened stay empty): each step answers the builds taken that day. New customers join
+ * `customers`, where later builds find them again.
+ */
+export function* shopDays(random: Random, shop: Shop, nowMs: number, historyDays: number, customers: SimCustomer[]): Generator<SimBuild[]> {
   const { profile, timeZone } = shop;
   const today = localDay(timeZone, nowMs);
   const openedDay = today - profile.openedDaysAgo;
   const mix = JOB_KINDS.map((kind) => [kind, profile.jobMix[kind]] as const);
-  const customers: SimCustomer[] = [];
-  const builds: SimBuild[] = [];
-  for (let day = today - Math.min(HISTORY_DAYS, profile.openedDaysAgo); day <= today; day++) {
+  for (let day = today - historyDays; day <= today; day++) {
+    const builds: SimBuild[] = [];
+    if (day < openedDay) {
+      yield builds;
+      continue;
+    }
     // A new shop takes a few months to fill its calendar.
     const rampUp = Math.min(1, 0.35 + (0.65 * (day - openedDay)) / 120);
     const mean = ((profile.weeklyBuilds * MONTH_FACTORS[monthOf(day)]! * WEEKDAY_FACTORS[weekday(day)]!) / WEEKDAY_TOTAL) * rampUp;
@@ -91,6 +100,14 @@ export function simulateShop(random: Random, shop: Shop, nowMs: number): { custo
         bookedForDay: timeline.bookedForDay,
       });
     }
+    yield builds;
   }
+}
+
+/** Every build the shop took in its last two years (or since it opened), day by day up to the clock. */
+export function simulateShop(random: Random, shop: Shop, nowMs: number): { customers: SimCustomer[]; builds: SimBuild[] } {
+  const customers: SimCustomer[] = [];
+  const builds: SimBuild[] = [];
+  for (const day of shopDays(random, shop, nowMs, HISTORY_DAYS, customers)) builds.push(...day);
   return { customers, builds };
 }

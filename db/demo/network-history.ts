@@ -1,0 +1,95 @@
+/**
+ * A network of any size with the demo's kind of history (shop-history.ts, history-rows.ts), for
+ * measuring Busbar at scale: streamed a week at a time into SQLite through prepared statements,
+ * one transaction a week, with the secondary indexes built once at the end (bulk.ts).
+ */
+import SQLite from 'better-sqlite3';
+import { migrateToLatest, openDatabase } from '../connect.ts';
+import { bulkInserter, dropSecondaryIndexes } from './bulk.ts';
+import { seedDemoNetwork } from './generate.ts';
+import { historyRowMaker, type HistoryRows } from './history-rows.ts';
+import { insertCatalog, loadShops } from './history.ts';
+import { nextIds } from './insert.ts';
+import { generateNetwork } from './network-shops.ts';
+import { seededRandom } from './random.ts';
+import { shopDays, type SimBuild, type SimCustomer } from './shop-history.ts';
+
+export interface NetworkOptions {
+  file: string;
+  locations: number;
+  years: number;
+  now: Date;
+  passwordHash: string;
+  seed?: number;
+  /** Called after each week: days simulated of `totalDays`, builds written so far; `indexing` once the rows are in. */
+  onProgress?: (progress: { days: number; totalDays: number; builds: number; indexing: boolean }) => void;
+}
+
+export interface NetworkCounts {
+  locations: number;
+  customers: number;
+  vehicles: number;
+  builds: number;
+  buildItems: number;
+  buildEvents: number;
+  auditLog: number;
+}
+
+const DAYS_PER_BATCH = 7;
+const TABLES = ['customers', 'vehicles', 'builds', 'buildItems', 'buildEvents', 'auditLog'] as const satisfies readonly (keyof HistoryRows)[];
+
+/** Fills a freshly created database file with a generated network and its history up to `now`. */
+export async function seedNetwork(options: NetworkOptions): Promise<NetworkCounts> {
+  const seed = options.seed ?? 20261202;
+  const historyDays = Math.round(options.years * 365.25);
+  const network = generateNetwork(seededRandom(seed ^ 0x0b5e_7a11), options.locations, historyDays);
+  const db = openDatabase(options.file);
+  await migrateToLatest(db);
+  await seedDemoNetwork(db, { passwordHash: options.passwordHash, now: options.now, seed, network });
+  const catalog = await insertCatalog(db);
+  const shops = await loadShops(db, network.profiles, network.areas);
+  const firstId = await nextIds(db);
+  await db.destroy();
+
+  const sqlite = new SQLite(options.file);
+  sqlite.pragma('journal_mode = off');
+  sqlite.pragma('synchronous = off');
+  sqlite.pragma('cache_size = -262144');
+  sqlite.pragma('foreign_keys = off');
+  const restoreIndexes = dropSecondaryIndexes(sqlite);
+  const insert = Object.fromEntries(TABLES.map((table) => [table, bulkInserter(sqlite, table)])) as Record<(typeof TABLES)[number], (rows: readonly object[]) => void>;
+  const counts: NetworkCounts = { locations: shops.length, customers: 0, vehicles: 0, builds: 0, buildItems: 0, buildEvents: 0, auditLog: 0 };
+  const writeWeek = sqlite.transaction((rows: HistoryRows) => {
+    for (const table of TABLES) {
+      insert[table](rows[table]);
+      counts[table] += rows[table].length;
+    }
+  });
+
+  const random = seededRandom(seed ^ 0x5eed_b00c);
+  const nowMs = options.now.getTime();
+  const makeRows = historyRowMaker(random, catalog, firstId, nowMs, { audit: true });
+  const days = shops.map((shop) => shopDays(random, shop, nowMs, historyDays, [] as SimCustomer[]));
+  const totalDays = historyDays + 1;
+  for (let day = 0, open = days.length; open > 0; ) {
+    const week: SimBuild[] = [];
+    for (let n = 0; n < DAYS_PER_BATCH && open > 0; n++, day++) {
+      open = 0;
+      for (const shop of days) {
+        const next = shop.next();
+        if (!next.done) {
+          open++;
+          week.push(...next.value);
+        }
+      }
+    }
+    writeWeek(makeRows(week));
+    options.onProgress?.({ days: Math.min(day, totalDays), totalDays, builds: counts.builds, indexing: false });
+  }
+  options.onProgress?.({ days: totalDays, totalDays, builds: counts.builds, indexing: true });
+  restoreIndexes();
+  sqlite.pragma('foreign_keys = on');
+  sqlite.pragma('journal_mode = wal');
+  sqlite.close();
+  return counts;
+}

@@ -1,0 +1,113 @@
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { openDatabase, seedNetwork, type Db, type NetworkCounts } from '@busbar/db';
+import { sql } from 'kysely';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { generateNetwork } from '../../db/demo/network-shops.ts';
+import { seededRandom } from '../../db/demo/random.ts';
+
+const now = new Date('2026-06-15T15:00:00Z');
+const dir = mkdtempSync(join(tmpdir(), 'busbar-network-'));
+let db: Db;
+let counts: NetworkCounts;
+
+beforeAll(async () => {
+  const file = join(dir, 'busbar.sqlite');
+  counts = await seedNetwork({ file, locations: 3, years: 1, now, passwordHash: 'scrypt$10$8$1$x$y' });
+  db = openDatabase(file);
+}, 60_000);
+afterAll(async () => {
+  await db.destroy();
+  rmSync(dir, { recursive: true, force: true });
+});
+
+const count = async (table: string) => Number((await sql<{ n: number }>`select count(*) as n from ${sql.table(table)}`.execute(db)).rows[0]!.n);
+
+describe('generated network, 3 locations × 1 year', () => {
+  it('has the three shops, each with a lead, technicians and a clerk, and about 1,000 builds a year each', async () => {
+    const shops = await db
+      .selectFrom('locations as l')
+      .select(['l.code', 'l.timeZone'])
+      .select((eb) => [
+        eb.selectFrom('builds as b').whereRef('b.locationId', '=', 'l.id').select((e) => e.fn.countAll<number>().as('n')).as('builds'),
+        eb.selectFrom('roleAssignments as r').whereRef('r.locationId', '=', 'l.id').where('r.role', '=', 'location_lead').select((e) => e.fn.countAll<number>().as('n')).as('leads'),
+        eb.selectFrom('roleAssignments as r').whereRef('r.locationId', '=', 'l.id').where('r.role', '=', 'technician').select((e) => e.fn.countAll<number>().as('n')).as('technicians'),
+        eb.selectFrom('roleAssignments as r').whereRef('r.locationId', '=', 'l.id').where('r.role', '=', 'warranty_clerk').select((e) => e.fn.countAll<number>().as('n')).as('clerks'),
+      ])
+      .orderBy('l.id')
+      .execute();
+    expect(shops.map((s) => s.code)).toEqual(['DEN', 'BOI', 'PDX']);
+    for (const shop of shops) {
+      expect(shop.builds).toBeGreaterThan(500);
+      expect(shop.builds).toBeLessThan(2000);
+      expect([shop.leads, shop.clerks]).toEqual([1, 1]);
+      expect(shop.technicians).toBeGreaterThanOrEqual(2);
+    }
+    // Denver stays the busiest of the three, as in the demo.
+    expect(Math.max(...shops.map((s) => Number(s.builds)))).toBe(Number(shops[0]!.builds));
+    expect(counts.builds).toBe(shops.reduce((sum, s) => sum + Number(s.builds), 0));
+    expect(counts.builds).toBe(await count('builds'));
+    expect(counts.buildItems).toBe(await count('build_items'));
+    expect(counts.auditLog).toBe(await count('audit_log'));
+    expect(counts.buildItems / counts.builds).toBeGreaterThan(7);
+  });
+
+  it('reaches back one year and not past the clock', async () => {
+    const range = await db.selectFrom('builds').select((eb) => [eb.fn.min('createdAt').as('first'), eb.fn.max('createdAt').as('last')]).executeTakeFirstOrThrow();
+    const yearAgo = now.getTime() - 365.25 * 86_400_000;
+    expect(Date.parse(range.first!)).toBeGreaterThanOrEqual(yearAgo - 2 * 86_400_000);
+    expect(Date.parse(range.first!)).toBeLessThan(yearAgo + 14 * 86_400_000);
+    expect(Date.parse(range.last!)).toBeLessThanOrEqual(now.getTime());
+    expect(Date.parse(range.last!)).toBeGreaterThan(now.getTime() - 3 * 86_400_000);
+    const late = await db.selectFrom('buildEvents').select('id').where('at', '>', now.toISOString()).execute();
+    expect(late).toEqual([]);
+  });
+
+  it('numbers builds per shop without gaps and never repeats a serial number of a SKU', async () => {
+    const numbering = await sql<{ code: string; n: number; top: number; numbers: number }>`
+      select l.code, count(*) as n, max(b.sequence) as top, count(distinct b.number) as numbers
+      from builds b join locations l on l.id = b.location_id group by l.code`.execute(db);
+    for (const row of numbering.rows) expect([row.top, row.numbers]).toEqual([row.n, row.n]);
+    const serials = await sql<{ n: number; distinct: number }>`
+      select count(*) as n, count(distinct sku || ' ' || serial_number) as "distinct" from build_items where serial_number is not null`.execute(db);
+    expect(serials.rows[0]!.n).toBeGreaterThan(1000);
+    expect(serials.rows[0]!.distinct).toBe(serials.rows[0]!.n);
+  });
+
+  it('points every build at a location, customer, vehicle and technician of its own shop', async () => {
+    const strays = await sql<{ id: number }>`
+      select b.id from builds b
+      left join locations l on l.id = b.location_id
+      left join customers c on c.id = b.customer_id and c.location_id = b.location_id
+      left join vehicles v on v.id = b.vehicle_id and v.customer_id = b.customer_id
+      left join role_assignments r on r.user_id = b.lead_technician_id and r.location_id = b.location_id and r.role = 'technician'
+      where l.id is null or c.id is null or v.id is null or r.id is null`.execute(db);
+    expect(strays.rows).toEqual([]);
+    const { rows } = await sql<{ foreign_key_check: unknown }>`pragma foreign_key_check`.execute(db);
+    expect(rows).toEqual([]);
+  });
+
+  it('keeps the secondary indexes and the demo sign-ins', async () => {
+    const indexes = await sql<{ name: string }>`select name from sqlite_master where type = 'index' and sql is not null`.execute(db);
+    expect(indexes.rows.map((r) => r.name)).toEqual(expect.arrayContaining(['build_items_serial', 'builds_location_status', 'customers_location']));
+    const emails = (await db.selectFrom('users').select('email').execute()).map((u) => u.email);
+    expect(emails).toEqual(expect.arrayContaining(['owner@demo.busbar.test', 'lead@demo.busbar.test', 'regional@demo.busbar.test']));
+    expect(new Set(emails).size).toBe(emails.length);
+  });
+});
+
+describe('network of 200 shops', () => {
+  const network = generateNetwork(seededRandom(1), 200, 1826);
+  it('has unique codes, real time zones and an area for every shop', () => {
+    expect(network.locations).toHaveLength(200);
+    expect(new Set(network.locations.map((l) => l.code)).size).toBe(200);
+    expect(new Set(network.locations.map((l) => l.name)).size).toBe(200);
+    for (const location of network.locations) {
+      expect(() => new Intl.DateTimeFormat('en-US', { timeZone: location.timeZone })).not.toThrow();
+      expect(network.areas[location.code]?.areaCode).toMatch(/^\d{3}$/);
+      expect(network.regions.map((r) => r.code)).toContain(location.region);
+    }
+    expect(network.locations.some((l) => l.region === 'CAN')).toBe(true);
+  });
+});
