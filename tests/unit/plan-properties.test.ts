@@ -78,3 +78,70 @@ describe('state of charge is monotonic in the sources and the bank', () => {
     );
   });
 });
+
+const circuitCase = fc.record({
+  currentA: fc.double({ min: 0.5, max: 300, noNaN: true }),
+  oneWayLengthM: fc.double({ min: 0.2, max: 10, noNaN: true }),
+  critical: fc.boolean(),
+  insulationC: fc.constantFrom(60 as const, 75 as const, 90 as const, 105 as const),
+  engineSpace: fc.boolean(),
+  fittedFuseA: fc.option(fc.constantFrom(5, 10, 20, 30, 50, 80, 100, 150, 200, 300), { nil: undefined }),
+});
+
+describe('fuses never exceed what protects the wire', () => {
+  it('recommends a fuse within the conductor amperage, and calls any fitted fuse above 150 % of it critical', () => {
+    fc.assert(
+      fc.property(fc.array(circuitCase, { minLength: 1, maxLength: 5 }), (cases) => {
+        const plan: PlanInput = {
+          systemV: 12,
+          gauge: 'awg',
+          loads: [],
+          starterBattery: { capacityAh: 70 },
+          trip: { daysParked: 1, daysDriving: 0, driveHoursPerDay: 0 },
+          circuits: cases.map(({ fittedFuseA, ...c }) => ({ from: 'Bus', to: 'Load', ...c, fuseA: fittedFuseA })),
+        };
+        const result = evaluatePlan(plan);
+        result.circuits.forEach((circuit, i) => {
+          const fitted = cases[i]!.fittedFuseA;
+          if (circuit.recommendedFuseA !== null) expect(circuit.recommendedFuseA).toBeLessThanOrEqual(circuit.conductor!.ampacityA);
+          const critical = result.findings.some((f) => f.circuit === i && f.code === 'fuse-does-not-protect-wire');
+          if (fitted !== undefined && circuit.conductor) expect(critical).toBe(fitted > 1.5 * circuit.conductor.ampacityA);
+        });
+      }),
+      runs,
+    );
+  });
+});
+
+describe('"no second battery" is never given on weaker assumptions', () => {
+  const starterOnly = fc.record({
+    watts: fc.double({ min: 1, max: 60, noNaN: true }),
+    daysParked: fc.integer({ min: 0, max: 4 }),
+    daysDriving: fc.integer({ min: 1, max: 5 }),
+    driveHoursPerDay: fc.double({ min: 0, max: 4, noNaN: true }),
+    lowestC: fc.integer({ min: -20, max: 30 }),
+    lessDriveShare: fc.double({ min: 0, max: 1, noNaN: true }),
+    extraW: fc.double({ min: 0, max: 30, noNaN: true }),
+  });
+  const plan = (watts: number, driveHoursPerDay: number, p: { daysParked: number; daysDriving: number; lowestC: number }): PlanInput => ({
+    systemV: 12,
+    gauge: 'awg',
+    loads: [{ name: 'Load', watts, hoursPerDay: 24, dutyCycle: 0.3 }],
+    starterBattery: { capacityAh: 70 },
+    trip: { daysParked: p.daysParked, daysDriving: p.daysDriving, driveHoursPerDay, lowestC: p.lowestC },
+    circuits: [],
+  });
+  const noSecond = (input: PlanInput) => evaluatePlan(input).verdict.kind === 'no-second-battery';
+
+  it('with a shorter drive, a bigger load or a colder trip', () => {
+    fc.assert(
+      fc.property(starterOnly, (p) => {
+        const base = noSecond(plan(p.watts, p.driveHoursPerDay, p));
+        if (noSecond(plan(p.watts, p.driveHoursPerDay * p.lessDriveShare, p))) expect(base).toBe(true);
+        if (noSecond(plan(p.watts + p.extraW, p.driveHoursPerDay, p))) expect(base).toBe(true);
+        if (noSecond(plan(p.watts, p.driveHoursPerDay, { ...p, lowestC: p.lowestC - 10 }))) expect(base).toBe(true);
+      }),
+      { seed: 2_718, numRuns: 120 },
+    );
+  });
+});
