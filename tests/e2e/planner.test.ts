@@ -93,6 +93,7 @@ describe('the power planner', () => {
     await expect.poll(() => texts(fridgeFindings), { timeout: 5000 }).toEqual([
       expect.stringMatching(/^Critical\s*Circuit Fuse block → Fridge: a 40 A fuse does not protect 18 AWG: at most 30\.0 A/),
       expect.stringMatching(/^Warning\s*Circuit Fuse block → Fridge: 18 AWG drops 1\d\.\d %, over the 10 % allowed\. 1\d AWG keeps it within\.$/),
+      expect.stringMatching(/^Warning\s*Circuit Fuse block → Fridge: 18 AWG run on its own is below the 16 AWG/),
     ]);
 
     // Leaving now would lose the plan: the planner asks first.
@@ -103,6 +104,16 @@ describe('the power planner', () => {
     await choose(page, circuit, 'Fitted size', '12 AWG');
     await expect.poll(() => fridgeFindings.count(), { timeout: 5000 }).toBe(0);
     expect(await circuit.getByText('Conductor and fuse pass every check.').count()).toBe(1);
+
+    // The charger's two runs leave a battery each: their fuses are drawn by the terminals (in inches, as the units say).
+    const points = page.getByRole('region', { name: 'Fuses at the batteries' }).locator('li');
+    await expect.poll(() => texts(points)).toEqual([expect.stringMatching(/^No fuse/), expect.stringMatching(/^No fuse/)]);
+    await fill(page.locator('.circuit').nth(0).getByLabel('Fuse from the start battery'), '4');
+    await fill(page.locator('.circuit').nth(1).getByLabel('Fuse from the end battery'), '6');
+    await expect.poll(() => texts(points), { timeout: 5000 }).toEqual([
+      expect.stringMatching(/^Protected Circuit 1: Starter battery → DC-DC charger, where it leaves the starter battery Within 7 in · \d+ A fuse drawn 4 in away$/),
+      expect.stringMatching(/^Protected Circuit 2: DC-DC charger → House battery, where it reaches the house battery Within 7 in · \d+ A fuse drawn 6 in away$/),
+    ]);
 
     await page.getByRole('button', { name: 'Save plan' }).click();
     await page.getByText('Saved by Dmitri Castellanos', { exact: false }).waitFor();
@@ -122,10 +133,17 @@ describe('the power planner', () => {
     expect(fridgeRun).toMatchObject({ from: 'Fuse block', to: 'Fridge', currentA: 5, size: { awg: '12' }, fuseA: 40 });
     // Lengths are kept in metres whatever the person types in.
     expect(fridgeRun.oneWayLengthM).toBeCloseTo(6.096, 6);
+    // The charger's runs take their currents from the charger; fuse distances are kept in millimetres.
+    const [chargerIn, chargerOut] = saved.plan.input.circuits;
+    expect(chargerIn).toMatchObject({ link: 'dcdc-input', fromBattery: 'starter' });
+    expect(chargerIn!.fuseFromBatteryMm).toBeCloseTo(101.6, 6);
+    expect(chargerOut).toMatchObject({ link: 'dcdc-output', toBattery: 'house' });
+    expect(chargerOut!.fuseToBatteryMm).toBeCloseTo(152.4, 6);
+    expect(saved.plan.result.protectionPoints.map((p) => p.ok)).toEqual([true, true]);
     expect(saved.plan.result.verdict.kind).toBe('bank-ok');
     expect(saved.plan.result.findings.filter((f) => f.circuit !== undefined)).toEqual([]);
 
-    // The printed sheet: the build, the verdict, every circuit's conductor and fuse, the caution.
+    // The printed sheet: the build, the verdict, the bank and charger to buy, every circuit's conductor and fuse, the fuses at the batteries, the caution.
     await page.getByRole('button', { name: 'Print sheet' }).click();
     await page.getByRole('heading', { level: 1, name: `Power plan · Build ${build.number}` }).waitFor();
     const sheet = page.locator('article.sheet');
@@ -138,6 +156,14 @@ describe('the power planner', () => {
     expect(fridgeRow).toContain('20 ft');
     expect(fridgeRow).toContain('12 AWG');
     expect(fridgeRow).toContain('40 A');
+    const recommended = sheet.getByRole('region', { name: 'Busbar recommends' });
+    expect(await sheet.locator('[aria-labelledby="plan-recommended"] + [role="note"]').getByText(SAFETY_CAUTION).count()).toBe(1);
+    expect(await recommended.getByText(/^At least \d+ Ah needed, rounded up to the next (common size|size in the shop's catalog)/).count()).toBe(1);
+    const sheetPoints = await texts(sheet.getByRole('region', { name: 'Fuses at the batteries' }).locator('li'));
+    expect(sheetPoints).toEqual([
+      expect.stringMatching(/^Protected Circuit 1: Starter battery → DC-DC charger, .* 4 in away$/),
+      expect.stringMatching(/^Protected Circuit 2: DC-DC charger → House battery, .* 6 in away$/),
+    ]);
     await sheet.getByRole('region', { name: 'State of charge over the trip' }).locator('svg').first().waitFor();
 
     await page.emulateMedia({ media: 'print' });

@@ -6,7 +6,8 @@ const runM = (gauge: Gauge, meters: number, feet: number) => (gauge === 'awg' ? 
 
 /**
  * A new plan: a 12 V van with a fridge and lights, parked two days and driven one, on a 100 Ah
- * LiFePO4 bank charged by a 25 A DC-DC charger, with the charger's two runs to check.
+ * LiFePO4 bank charged by a 25 A DC-DC charger, with the charger's two runs to check: their
+ * currents follow from the charger, and each leaves a battery, so each needs a fuse beside it.
  */
 export function newPlanInput(gauge: Gauge): PlanInput {
   return {
@@ -18,8 +19,17 @@ export function newPlanInput(gauge: Gauge): PlanInput {
     dcdcCharger: { outputA: 25 },
     trip: { daysParked: 2, daysDriving: 1, driveHoursPerDay: 3 },
     circuits: [
-      { from: 'Starter battery', to: 'DC-DC charger', oneWayLengthM: runM(gauge, 4, 12), currentA: 35, critical: true, insulationC: 105, engineSpace: true },
-      { from: 'DC-DC charger', to: 'House battery', oneWayLengthM: runM(gauge, 1, 3), currentA: 25, critical: true, insulationC: 105 },
+      {
+        from: 'Starter battery',
+        to: 'DC-DC charger',
+        oneWayLengthM: runM(gauge, 4, 12),
+        link: 'dcdc-input',
+        critical: true,
+        insulationC: 105,
+        engineSpace: true,
+        fromBattery: 'starter',
+      },
+      { from: 'DC-DC charger', to: 'House battery', oneWayLengthM: runM(gauge, 1, 3), link: 'dcdc-output', critical: true, insulationC: 105, toBattery: 'house' },
     ],
   };
 }
@@ -27,6 +37,13 @@ export function newPlanInput(gauge: Gauge): PlanInput {
 export function newCircuit(gauge: Gauge): PlanCircuit {
   return { from: 'Fuse block', to: '', oneWayLengthM: runM(gauge, 3, 10), currentA: 10, critical: false, insulationC: 105 };
 }
+
+/** The run from the house battery to the inverter; its current follows from the inverter at its cutoff voltage. */
+export function inverterFeed(gauge: Gauge): PlanCircuit {
+  return { from: 'House battery', to: 'Inverter', oneWayLengthM: runM(gauge, 1.5, 5), link: 'inverter-feed', critical: true, insulationC: 105, fromBattery: 'house' };
+}
+
+export const hasInverterFeed = (plan: PlanInput) => plan.circuits.some((c) => c.link === 'inverter-feed');
 
 /** An inverter big enough for the AC loads running together, in steps of 500 W from 1,000 W. */
 export function inverterFor(plan: PlanInput): { ratedW: number; efficiency: number } {

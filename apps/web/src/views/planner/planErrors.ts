@@ -52,9 +52,12 @@ export function usePlanMessages() {
 const PART_NAMES: Record<string, string> = {
   systemV: 'System voltage',
   gauge: 'Conductor sizes',
+  conductorTemperatureC: 'Conductors',
+  tinnedCopper: 'Conductors',
   bank: 'House battery',
   starterBattery: 'Starter battery',
   inverter: 'Inverter',
+  alternator: 'Alternator',
   dcdcCharger: 'DC-DC charger',
   solar: 'Solar',
   shoreCharger: 'Shore charger',

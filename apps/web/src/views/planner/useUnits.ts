@@ -24,9 +24,11 @@ watch(system, (value) => {
 });
 
 const round = (value: number, digits: number) => Number(value.toFixed(digits));
+const MM_PER_INCH = 25.4;
 
 /**
- * The person's units: lengths in metres or feet and conductors in mm² or AWG. Plans store SI;
+ * The person's units: lengths in metres or feet, fuse distances in millimetres or inches,
+ * temperatures in °C or °F and conductors in mm² or AWG. Plans store SI (°C);
  * only what is shown and typed changes.
  */
 export function useUnits() {
@@ -39,9 +41,38 @@ export function useUnits() {
   const storedLength = (shown: number | undefined) => (typeof shown === 'number' ? (imperial.value ? feetToMeters(shown) : shown) : undefined);
   const formatLength = (meters: number) => `${shownLength(meters)} ${lengthUnit.value}`;
 
+  /** Short distances (a fuse from its battery) in millimetres or inches. */
+  const distanceUnit = computed(() => (imperial.value ? 'in' : 'mm'));
+  const shownDistance = (mm: number | undefined) => (typeof mm === 'number' ? round(imperial.value ? mm / MM_PER_INCH : mm, imperial.value ? 1 : 0) : undefined);
+  const storedDistance = (shown: number | undefined) => (typeof shown === 'number' ? (imperial.value ? shown * MM_PER_INCH : shown) : undefined);
+  const formatDistance = (mm: number) => `${(shownDistance(mm) ?? 0).toLocaleString('en-US')} ${distanceUnit.value}`;
+
+  /** Temperatures in °C or °F; plans store °C. */
+  const temperatureUnit = computed(() => (imperial.value ? '°F' : '°C'));
+  const shownTemperature = (c: number | undefined) => (typeof c === 'number' ? round(imperial.value ? (c * 9) / 5 + 32 : c, 1) : undefined);
+  const storedTemperature = (shown: number | undefined) => (typeof shown === 'number' ? (imperial.value ? round(((shown - 32) * 5) / 9, 2) : shown) : undefined);
+  const formatTemperature = (c: number) => `${shownTemperature(c)} ${temperatureUnit.value}`;
+
   /** A conductor in its own sizes, with the cross-section beside an AWG size for metric readers. */
   const sizeLabel = (size: ConductorSize) =>
     'awg' in size && !imperial.value ? `${conductorLabel(size)} (${round(awgAreaMm2(size.awg), 1)} mm²)` : conductorLabel(size);
 
-  return { system, imperial, lengthUnit, gauge, shownLength, storedLength, formatLength, sizeLabel };
+  return {
+    system,
+    imperial,
+    lengthUnit,
+    gauge,
+    shownLength,
+    storedLength,
+    formatLength,
+    distanceUnit,
+    shownDistance,
+    storedDistance,
+    formatDistance,
+    temperatureUnit,
+    shownTemperature,
+    storedTemperature,
+    formatTemperature,
+    sizeLabel,
+  };
 }
