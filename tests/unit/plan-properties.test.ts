@@ -1,4 +1,4 @@
-import { evaluatePlan, type PlanInput } from '@busbar/calc';
+import { evaluatePlan, planVerdict, type PlanInput } from '@busbar/calc';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 
@@ -142,6 +142,18 @@ describe('"no second battery" is never given on weaker assumptions', () => {
         if (noSecond(plan(p.watts, p.driveHoursPerDay, { ...p, lowestC: p.lowestC - 10 }))) expect(base).toBe(true);
       }),
       { seed: 2_718, numRuns: 120 },
+    );
+  });
+});
+
+describe('the verdict alone', () => {
+  it('is the whole evaluation’s verdict', () => {
+    fc.assert(
+      fc.property(plan, fc.boolean(), (p, withBank) => {
+        const input = withBank ? toPlan(p) : { ...toPlan(p), bank: undefined };
+        expect(planVerdict(input)).toEqual(evaluatePlan(input).verdict);
+      }),
+      { seed: 99, numRuns: 60 },
     );
   });
 });

@@ -67,14 +67,13 @@ export function peukertDrawAh({ drawnAh, currentA, capacityAh, ratedHours, expon
 
 /**
  * Share of its rated capacity a battery delivers at an air temperature, °C. Lead-acid loses about
- * 0.8 % per °C below 25 °C (about 80 % at 0 °C, 64 % at −20 °C; from memory), never taken below
- * 30 %; LiFePO4 is taken at its rating (its charging in the cold is the hazard, handled apart).
+ * 0.8 % per °C below 25 °C (about 80 % at 0 °C, 64 % at −20 °C; from memory); LiFePO4 is taken at its rating (its charging in the cold is the hazard, handled apart).
  */
 export function coldCapacityFactor(chemistry: Chemistry, temperatureC: number): number {
   checkOneOf('chemistry', chemistry, CHEMISTRIES);
   checkNumber('temperatureC', temperatureC, { min: -60, max: 80 });
   if (chemistry === 'lifepo4') return 1;
-  return Math.min(1, Math.max(0.3, 1 - 0.008 * (25 - temperatureC)));
+  return Math.min(1, 1 - 0.008 * (25 - temperatureC));
 }
 
 export interface RefillInput {

@@ -18,7 +18,7 @@ export {
 export { conductorResistanceOhmsPerM, copperResistanceAt, voltageDrop, type ConductorCondition, type VoltageDrop, type VoltageDropInput } from './conductors.ts';
 export { dailyEnergy, dcdcInputA, inverterInputA, type DailyEnergy, type DcdcInput, type EnergyOptions, type InverterInput, type Load } from './energy.ts';
 export { FUSE_MAX_OF_AMPACITY, FUSE_MIN_OF_LOAD, fuseForLoadA, selectFuseA, STANDARD_FUSE_RATINGS_A, type FuseRequest } from './fuses.ts';
-export { evaluatePlan } from './plan.ts';
+export { evaluatePlan, planVerdict, type EvaluateOptions } from './plan.ts';
 export { STARTER_SPARE_FRACTION } from './plan-bank.ts';
 export { MAX_DROP_PERCENT } from './plan-circuits.ts';
 export * from './plan-defaults.ts';

@@ -1,6 +1,6 @@
 import { BATTERY_CHEMISTRIES, coldCapacityFactor, DEFAULT_RATED_HOURS, type Chemistry } from './batteries.ts';
 import { houseChemistry, RECOMMENDED_CHEMISTRY, type PlanParts } from './plan-parts.ts';
-import { simulateDeficitsAh, type BankPhysics, type HourlyFlows } from './plan-profile.ts';
+import { deepestDeficit, deficitAtHour, simulateDeficitsAh, type BankPhysics, type HourlyFlows } from './plan-profile.ts';
 import type { BankRecommendation, DayKind, PlanBank, PlanInput, PlanStock, SimulatedBank, SizedChoice } from './plan-types.ts';
 import { COMMON_BANK_AH, COMMON_CHARGER_A, sizeToBuy } from './sized.ts';
 
@@ -56,34 +56,33 @@ export function starterDraw({ plan, parts, days, flows }: TripModel): StarterDra
   let deepestAh = 0;
   let endAh = 0;
   for (let lap = 0; lap < MAX_LAPS; lap++) {
-    const deficits = simulateDeficitsAh({ ...physics, capacityAh: Infinity, days, flows, drivingChargeA: parts.starterRechargeA, startDeficitAh: endAh });
-    deepestAh = Math.max(deepestAh, ...deficits);
-    const settled = lap > 0 && deficits.at(-1)! - endAh < SETTLED_AH;
-    endAh = deficits.at(-1)!;
-    if (settled) return { deepestAh, refilled: true, spareAh };
+    const run = deepestDeficit({ ...physics, capacityAh: Infinity, days, flows, drivingChargeA: parts.starterRechargeA, startDeficitAh: endAh }, physics.capacityAh);
+    deepestAh = Math.max(deepestAh, run.deepestAh);
     if (deepestAh > physics.capacityAh) break;
+    const settled = lap > 0 && run.endAh - endAh < SETTLED_AH;
+    endAh = run.endAh;
+    if (settled) return { deepestAh, refilled: true, spareAh };
   }
   return { deepestAh, refilled: false, spareAh };
-}
-
-function deepestAh(model: TripModel, spec: BankSpec, ratedAh: number, chargerA: number): { deepestAh: number; usableAh: number } {
-  const { depthOfDischarge, ...physics } = physicsOf(spec, ratedAh, model.parts.lowestC);
-  const deficits = simulateDeficitsAh({ ...physics, days: model.days, flows: model.flows, drivingChargeA: chargerA });
-  return { deepestAh: Math.max(0, ...deficits), usableAh: physics.capacityAh * depthOfDischarge };
 }
 
 /** Smallest house bank (rated Ah, whole) of the planned or recommended kind that stays above its floor over the trip with the plan's own charging. */
 export function minimumBankAh(model: TripModel): number {
   const spec = model.plan.bank ?? { chemistry: houseChemistry(model.plan) };
   const chargerA = model.plan.dcdcCharger?.outputA ?? 0;
+  const physicsAt = (ratedAh: number) => physicsOf(spec, ratedAh, model.parts.lowestC);
   const carries = (ratedAh: number) => {
-    const run = deepestAh(model, spec, ratedAh, chargerA);
-    return run.deepestAh <= run.usableAh + 1e-9;
+    const { depthOfDischarge, ...physics } = physicsAt(ratedAh);
+    const usableAh = physics.capacityAh * depthOfDischarge;
+    return deepestDeficit({ ...physics, days: model.days, flows: model.flows, drivingChargeA: chargerA }, usableAh + 1e-9).deepestAh <= usableAh + 1e-9;
   };
-  // A bigger bank never runs lower in share (Peukert eases, the floor rises), so search by halving.
-  let high = 1;
+  // Peukert's law and the taper only add to the demand without them, so that demand bounds the
+  // rating from below (and is the answer for LiFePO4); a bigger bank never runs lower in share.
+  const { depthOfDischarge, ...plain } = physicsAt(1);
+  const plainDemandAh = deepestDeficit({ ...plain, peukert: undefined, taper: undefined, capacityAh: Infinity, days: model.days, flows: model.flows, drivingChargeA: chargerA }).deepestAh;
+  let low = Math.max(1, ceil(plainDemandAh / (plain.capacityAh * depthOfDischarge)));
+  let high = low;
   while (!carries(high) && high < MAX_BANK_AH) high *= 2;
-  let low = 1;
   while (low < high) {
     const mid = Math.floor((low + high) / 2);
     if (carries(mid)) high = mid;
@@ -139,7 +138,7 @@ export function lastDriveHourIndex({ days, flows }: TripModel): number {
 export function recommendCharger(model: TripModel, run: BankRun): SizedChoice | null {
   const index = lastDriveHourIndex(model);
   if (run.bank.source === 'starter' || index < 0) return null;
-  const refilledWith = (chargerA: number) => simulateDeficitsAh({ ...run.physics, days: model.days, flows: model.flows, drivingChargeA: chargerA })[index]! <= 1e-9;
+  const refilledWith = (chargerA: number) => deficitAtHour({ ...run.physics, days: model.days, flows: model.flows, drivingChargeA: chargerA }, index) <= 1e-9;
   if (!refilledWith(MAX_CHARGER_A)) return null;
   let low = 0;
   let high = MAX_CHARGER_A;

@@ -87,13 +87,14 @@ export interface Simulation extends BankPhysics {
   startDeficitAh?: number;
 }
 
-/** Ah below full at the end of each hour of the trip; never below empty. */
-export function simulateDeficitsAh({ days, flows, capacityAh, chargeEfficiency, peukert, taper, drivingChargeA, startDeficitAh = 0 }: Simulation): number[] {
-  const deficits: number[] = [];
+/** Runs the trip hour by hour, handing visit the Ah below full at the end of each hour (never below empty); visit answers true to stop. */
+export function runTrip(sim: Simulation, visit: (deficitAh: number, index: number) => boolean | void): void {
+  const { days, flows, capacityAh, chargeEfficiency, peukert, taper, drivingChargeA } = sim;
   const drawFactor = flows.runningA.map((currentA) => (peukert ? peukertDrawAh({ drawnAh: 1, currentA, ...peukert }) : 1));
-  let deficitAh = startDeficitAh;
+  let deficitAh = sim.startDeficitAh ?? 0;
+  let index = 0;
   for (const kind of days) {
-    for (let hour = 0; hour < 24; hour++) {
+    for (let hour = 0; hour < 24; hour++, index++) {
       const driveShare = kind === 'driving' ? flows.driveShare[hour]! : 0;
       const sourceAh = flows.solarAh[hour]! + (kind === 'parked' ? flows.shoreAh[hour]! : 0) + driveShare * drivingChargeA;
       const netAh = sourceAh * chargeEfficiency - flows.loadAh[hour]! * drawFactor[hour]!;
@@ -101,8 +102,36 @@ export function simulateDeficitsAh({ days, flows, capacityAh, chargeEfficiency, 
       const bulkAh = taper ? Math.max(0, deficitAh - taper.kneeDeficitAh) : Infinity;
       const gainAh = netAh <= bulkAh ? netAh : bulkAh + (1 - bulkAh / netAh) * Math.min(netAh, taper!.acceptAhPerHour);
       deficitAh = Math.min(capacityAh, Math.max(0, deficitAh - gainAh));
-      deficits.push(deficitAh);
+      if (visit(deficitAh, index)) return;
     }
   }
+}
+
+/** Ah below full at the end of each hour of the trip. */
+export function simulateDeficitsAh(sim: Simulation): number[] {
+  const deficits: number[] = [];
+  runTrip(sim, (deficitAh) => void deficits.push(deficitAh));
   return deficits;
+}
+
+/** The deepest Ah below full over the trip and where it ends; stops early once past stopAboveAh. */
+export function deepestDeficit(sim: Simulation, stopAboveAh = Infinity): { deepestAh: number; endAh: number } {
+  let deepestAh = 0;
+  let endAh = 0;
+  runTrip(sim, (deficitAh) => {
+    deepestAh = Math.max(deepestAh, deficitAh);
+    endAh = deficitAh;
+    return deepestAh > stopAboveAh;
+  });
+  return { deepestAh, endAh };
+}
+
+/** Ah below full at the end of one hour of the trip. */
+export function deficitAtHour(sim: Simulation, index: number): number {
+  let atAh = 0;
+  runTrip(sim, (deficitAh, i) => {
+    atAh = deficitAh;
+    return i >= index;
+  });
+  return atAh;
 }

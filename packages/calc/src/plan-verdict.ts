@@ -12,7 +12,6 @@ export interface BankFacts {
   starterSuffices: boolean;
   hasAcLoads: boolean;
   recommendedBank: BankRecommendation;
-  recommendedCharger: SizedChoice | null;
   lowestPercent: number;
 }
 
@@ -88,8 +87,8 @@ function coldFindings({ model, run }: BankFacts): Finding[] {
   return [{ severity: 'critical', code: 'cold-charging', message }];
 }
 
-function chargerFindings(facts: BankFacts): Finding[] {
-  const { run, model, recommendedCharger } = facts;
+function chargerFindings(facts: BankFacts, recommendedCharger: SizedChoice | null): Finding[] {
+  const { run, model } = facts;
   const { label, chargeRateC } = BATTERY_CHEMISTRIES[run.bank.chemistry];
   const bankName = `${run.bank.ratedAh} Ah ${label}`;
   const driveIndex = lastDriveHourIndex(model);
@@ -112,7 +111,7 @@ function chargerFindings(facts: BankFacts): Finding[] {
 }
 
 /** Findings about the bank running low, charging in the cold and its charger. */
-export function bankFindings(facts: BankFacts): Finding[] {
+export function bankFindings(facts: BankFacts, recommendedCharger: SizedChoice | null): Finding[] {
   const { run } = facts;
   const findings: Finding[] = [];
   const lowIndex = firstLowHourIndex(run);
@@ -122,5 +121,5 @@ export function bankFindings(facts: BankFacts): Finding[] {
     findings.push({ severity: 'critical', code: 'bank-runs-low', message });
   }
   if (run.bank.source === 'starter') return findings;
-  return [...findings, ...coldFindings(facts), ...chargerFindings(facts)];
+  return [...findings, ...coldFindings(facts), ...chargerFindings(facts, recommendedCharger)];
 }

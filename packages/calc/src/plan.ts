@@ -6,7 +6,7 @@ import { ALTERNATOR_STEADY_SHARE } from './plan-defaults.ts';
 import { planParts, type PlanParts } from './plan-parts.ts';
 import { hourlyFlows, tripDays } from './plan-profile.ts';
 import { protectionPoints } from './plan-protection.ts';
-import type { Finding, PlanInput, PlanResult, PlanStock } from './plan-types.ts';
+import type { Finding, PlanInput, PlanResult, PlanStock, Verdict } from './plan-types.ts';
 import { validatePlan } from './plan-validate.ts';
 import { bankFindings, stateOfChargePercent, verdictFor, type BankFacts } from './plan-verdict.ts';
 import { SAFETY_CAUTION } from './safety.ts';
@@ -63,21 +63,39 @@ function refillHours(plan: PlanInput, run: BankRun, averageLoadA: number): numbe
   });
 }
 
-/** The whole electrical plan of a build: energy, state of charge over the trip, verdict, circuits, protection points and findings; stock rounds recommendations to sizes the shop can buy. */
-export function evaluatePlan(plan: PlanInput, { stock }: { stock?: PlanStock } = {}): PlanResult {
-  validatePlan(plan);
+/** Options of an evaluation: sizes the shop can buy, to round recommendations to. */
+export interface EvaluateOptions {
+  stock?: PlanStock;
+}
+
+/** The trip simulated on the starter battery, the planned or the recommended bank. */
+function judgeBank(plan: PlanInput, stock: PlanStock | undefined): BankFacts {
   const parts = planParts(plan);
   const energy = dailyEnergy(plan.loads, { systemV: plan.systemV, inverterEfficiency: plan.inverter?.efficiency ?? 1 });
-  const inverterIdleWh = parts.inverterIdleW * parts.inverterOnHours.length;
-  const dailyWattHours = energy.wattHours + inverterIdleWh;
-  const dailyAmpHours = dailyWattHours / plan.systemV;
-  const averageLoadA = dailyAmpHours / 24;
+  const dailyWattHours = energy.wattHours + parts.inverterIdleW * parts.inverterOnHours.length;
   const model: TripModel = { plan, parts, days: tripDays(plan.trip), flows: hourlyFlows(plan, parts), stock };
   const hasAcLoads = plan.loads.some((load) => load.ac);
   const starter = starterDraw(model);
   const starterSuffices = !hasAcLoads && starter.refilled && starter.deepestAh <= starter.spareAh + 1e-9;
   const recommendedBank = recommendBank(model, minimumBankAh(model));
   const run = runBank(model, starterSuffices, recommendedBank);
+  const lowestPercent = Math.min(...run.deficitsAh.map((_, i) => stateOfChargePercent(run, i)));
+  return { model, run, dailyWattHours, dailyAmpHours: dailyWattHours / plan.systemV, starter, starterSuffices, hasAcLoads, recommendedBank, lowestPercent };
+}
+
+/** The plan's answer to "what battery does this vehicle need?" alone: what a list of plans shows. */
+export function planVerdict(plan: PlanInput, { stock }: EvaluateOptions = {}): Verdict {
+  validatePlan(plan);
+  return verdictFor(judgeBank(plan, stock));
+}
+
+/** The whole electrical plan of a build: energy, state of charge over the trip, verdict, circuits, protection points and findings; stock rounds recommendations to sizes the shop can buy. */
+export function evaluatePlan(plan: PlanInput, { stock }: EvaluateOptions = {}): PlanResult {
+  validatePlan(plan);
+  const facts = judgeBank(plan, stock);
+  const { model, run, dailyWattHours, dailyAmpHours, starter, recommendedBank, lowestPercent } = facts;
+  const { parts } = model;
+  const averageLoadA = dailyAmpHours / 24;
   const recommendedCharger = recommendCharger(model, run);
   const hourly = run.deficitsAh.map((deficitAh, i) => ({
     day: Math.floor(i / 24) + 1,
@@ -86,8 +104,6 @@ export function evaluatePlan(plan: PlanInput, { stock }: { stock?: PlanStock } =
     storedAh: run.bank.effectiveCapacityAh - deficitAh,
     stateOfChargePercent: stateOfChargePercent(run, i),
   }));
-  const lowestPercent = Math.min(...hourly.map((state) => state.stateOfChargePercent));
-  const facts: BankFacts = { model, run, dailyWattHours, dailyAmpHours, starter, starterSuffices, hasAcLoads, recommendedBank, recommendedCharger, lowestPercent };
 
   const { flows } = model;
   const efficiency = run.physics.chargeEfficiency;
@@ -100,13 +116,13 @@ export function evaluatePlan(plan: PlanInput, { stock }: { stock?: PlanStock } =
     plan,
     circuits.map((circuit) => circuit.result),
   );
-  const findings: Finding[] = [...bankFindings(facts), ...partFindings(plan, parts), ...protection.findings, ...circuits.flatMap((circuit) => circuit.findings)];
+  const findings: Finding[] = [...bankFindings(facts, recommendedCharger), ...partFindings(plan, parts), ...protection.findings, ...circuits.flatMap((circuit) => circuit.findings)];
 
   return {
     dailyWattHours,
     dailyAmpHours,
     averageLoadA,
-    inverterIdleWh,
+    inverterIdleWh: parts.inverterIdleW * parts.inverterOnHours.length,
     solarDailyWh: plan.solar ? solarDailyWh(plan.solar) * parts.solarShare : 0,
     netDailyAh: { parked: parkedChargeAh - dailyAmpHours, driving: drivingChargeAh - dailyAmpHours },
     bank: run.bank,
