@@ -1,4 +1,3 @@
-import { join } from 'node:path';
 import express, { type Express } from 'express';
 import session from 'express-session';
 import helmet from 'helmet';
@@ -17,12 +16,15 @@ import { customersRouter } from './routes/customers.ts';
 import { healthRouter } from './routes/health.ts';
 import { importsRouter } from './routes/imports.ts';
 import { invitesRouter } from './routes/invites.ts';
+import { planStockRouter } from './routes/plan-stock.ts';
 import { plansRouter } from './routes/plans.ts';
 import { SESSION_COOKIE, sessionRouter } from './routes/session.ts';
 import { serialsRouter } from './routes/serials.ts';
 import { staffRouter } from './routes/staff.ts';
 import { vehiclesRouter } from './routes/vehicles.ts';
 import { vendorsRouter } from './routes/vendors.ts';
+import { compressResponses } from './web/compress.ts';
+import { serveWeb } from './web/serve-web.ts';
 
 export type { AppContext } from './context.ts';
 
@@ -35,6 +37,7 @@ export function createApp(ctx: AppContext): Express {
   const secureCookies = config.publicUrl.startsWith('https://');
 
   app.use(helmet({ contentSecurityPolicy: { directives: { upgradeInsecureRequests: null } } }));
+  app.use(compressResponses());
   // An import carries a whole CSV file; every other request stays small.
   app.use('/api/imports', express.json({ limit: '6mb' }));
   app.use('/api', express.json({ limit: '100kb' }));
@@ -62,7 +65,7 @@ export function createApp(ctx: AppContext): Express {
   app.use('/api/customers', requireSession(db), customersRouter(ctx));
   app.use('/api/vehicles', requireSession(db), vehiclesRouter(ctx));
   app.use('/api/builds', requireSession(db), buildsRouter(ctx), buildItemsRouter(ctx), buildPlanRouter(ctx));
-  app.use('/api/plans', requireSession(db), plansRouter(ctx));
+  app.use('/api/plans', requireSession(db), planStockRouter(ctx), plansRouter(ctx));
   app.use('/api/serials', requireSession(db), serialsRouter(ctx));
   app.use('/api/imports', requireSession(db), importsRouter(ctx));
   app.use('/api', requireSession(db), adminRouter(ctx));
@@ -70,11 +73,7 @@ export function createApp(ctx: AppContext): Express {
     throw notFound('API route');
   });
 
-  if (config.webDist) {
-    const dist = config.webDist;
-    app.use(express.static(dist, { index: false, maxAge: '1h' }));
-    app.get(/.*/, (_req, res) => res.sendFile(join(dist, 'index.html')));
-  }
+  if (config.webDist) serveWeb(app, config.webDist);
 
   app.use(errorHandler);
   return app;
