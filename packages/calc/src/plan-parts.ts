@@ -22,6 +22,8 @@ export interface PlanParts {
   inverterIdleW: number;
   /** Hours of the day the inverter is on: those any AC load may run in. */
   inverterOnHours: number[];
+  /** The idle draw over those hours, Wh a day. */
+  inverterIdleWh: number;
   /** At full rating and the cutoff voltage. */
   inverterInputA: number | null;
   dcdcInputA: number | null;
@@ -57,6 +59,7 @@ export function planParts(plan: PlanInput): PlanParts {
       efficiency: dcdcCharger.efficiency ?? DEFAULT_DCDC_EFFICIENCY,
     });
   const highestC = plan.trip.highestC ?? DEFAULT_HIGHEST_C;
+  const inverterIdleW = inverter ? (inverter.idleW ?? DEFAULT_INVERTER_IDLE_SHARE * inverter.ratedW) : 0;
   const solarHarvest = solar
     ? controllerHarvest({ controller: solar.controller, panelVmp: solar.panelVmp ?? perSystem(plan, DEFAULT_PANEL_VMP_PER_12), batteryV: bankNominalV(chemistry, plan.systemV) })
     : 0;
@@ -64,8 +67,9 @@ export function planParts(plan: PlanInput): PlanParts {
     lowestC: plan.trip.lowestC ?? DEFAULT_LOWEST_C,
     highestC,
     starterRechargeA: plan.starterBattery.rechargeA ?? DEFAULT_STARTER_RECHARGE_A,
-    inverterIdleW: inverter ? (inverter.idleW ?? DEFAULT_INVERTER_IDLE_SHARE * inverter.ratedW) : 0,
+    inverterIdleW,
     inverterOnHours: [...onHours].sort((a, b) => a - b),
+    inverterIdleWh: inverterIdleW * onHours.size,
     inverterInputA: inverter
       ? inverterInputA({ acW: inverter.ratedW, batteryV: inverter.cutoffV ?? perSystem(plan, DEFAULT_INVERTER_CUTOFF_V_PER_12), efficiency: inverter.efficiency })
       : null,

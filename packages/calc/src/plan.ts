@@ -22,10 +22,10 @@ const PWM_MISMATCH_SHARE = 0.6;
 //   hardest case for the bank), then the driving days; the day's profile is in plan-profile.ts.
 //   Each hour's draw is weighed by Peukert's law at the current of the loads that may run in it;
 //   lead-acid holds less in the trip's cold and takes its last 20 % slowly.
-// - No second battery is needed when no load runs on AC, the deepest draw over two trips in a row,
-//   with the alternator putting back only its recharge current for the hours driven, is within 20 %
-//   of what the starter battery holds at the trip's coldest, and the drives put back what the trip
-//   takes (common practice, no source).
+// - No second battery is needed when no load runs on AC, the drives put back what the trip takes
+//   (the alternator gives the starter battery only its recharge current for the hours driven) so
+//   that trips in a row settle, and the deepest draw then is within 20 % of what the starter
+//   battery holds at the trip's coldest (common practice, no source).
 // - The recommended bank is the smallest that stays above its floor, rounded up to a size to buy;
 //   the recommended charger the smallest that refills it by the end of the last drive (plan-bank.ts).
 // - Circuits linked to the inverter or the DC-DC charger carry the current at the worst voltage
@@ -72,7 +72,7 @@ export interface EvaluateOptions {
 function judgeBank(plan: PlanInput, stock: PlanStock | undefined): BankFacts {
   const parts = planParts(plan);
   const energy = dailyEnergy(plan.loads, { systemV: plan.systemV, inverterEfficiency: plan.inverter?.efficiency ?? 1 });
-  const dailyWattHours = energy.wattHours + parts.inverterIdleW * parts.inverterOnHours.length;
+  const dailyWattHours = energy.wattHours + parts.inverterIdleWh;
   const model: TripModel = { plan, parts, days: tripDays(plan.trip), flows: hourlyFlows(plan, parts), stock };
   const hasAcLoads = plan.loads.some((load) => load.ac);
   const starter = starterDraw(model);
@@ -112,17 +112,14 @@ export function evaluatePlan(plan: PlanInput, { stock }: EvaluateOptions = {}): 
   const parkedDeficitAh = dailyAmpHours - parkedChargeAh;
 
   const circuits = plan.circuits.map((circuit, i) => evaluateCircuit(circuit, i, plan, parts));
-  const protection = protectionPoints(
-    plan,
-    circuits.map((circuit) => circuit.result),
-  );
+  const protection = protectionPoints(plan, circuits.map((circuit) => circuit.result));
   const findings: Finding[] = [...bankFindings(facts, recommendedCharger), ...partFindings(plan, parts), ...protection.findings, ...circuits.flatMap((circuit) => circuit.findings)];
 
   return {
     dailyWattHours,
     dailyAmpHours,
     averageLoadA,
-    inverterIdleWh: parts.inverterIdleW * parts.inverterOnHours.length,
+    inverterIdleWh: parts.inverterIdleWh,
     solarDailyWh: plan.solar ? solarDailyWh(plan.solar) * parts.solarShare : 0,
     netDailyAh: { parked: parkedChargeAh - dailyAmpHours, driving: drivingChargeAh - dailyAmpHours },
     bank: run.bank,
