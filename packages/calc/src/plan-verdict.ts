@@ -30,7 +30,7 @@ function firstLowHourIndex(run: BankRun): number {
 }
 
 /** A recommended bank in words: "a 200 Ah self-heating LiFePO4 bank (at least 183 Ah; a common size)". */
-export function bankWords(bank: BankRecommendation): string {
+function bankWords(bank: BankRecommendation): string {
   const kind = `${bank.selfHeating ? 'self-heating ' : ''}${BATTERY_CHEMISTRIES[bank.chemistry].label}`;
   return `a ${bank.size} Ah ${kind} bank (at least ${bank.minimum} Ah; ${RULE_WORDS[bank.rule]})`;
 }
@@ -41,7 +41,7 @@ function starterReasons(facts: BankFacts): string[] {
   const { starter } = facts;
   const draw = `The deepest draw over trips in a row is ${round(starter.deepestAh, 1)} Ah`;
   const spare = `the ${round(starter.spareAh, 1)} Ah the ${plan.starterBattery.capacityAh} Ah starter battery can spare (${100 * STARTER_SPARE_FRACTION} %${parts.lowestC < 25 ? ` of what it holds at ${parts.lowestC} °C` : ''}) and still start the engine`;
-  const recharge = `The alternator is taken to put ${parts.starterRechargeA} A back into it for ${plan.trip.driveHoursPerDay} h on each of ${plan.trip.daysDriving} driving days`;
+  const recharge = `The alternator is taken to put ${parts.starterRechargeA} A back into it for ${plan.trip.driveHoursPerDay} h each driving day`;
   return [
     starter.deepestAh <= starter.spareAh + 1e-9 ? `${draw}, within ${spare}.` : `${draw}, more than ${spare}.`,
     starter.refilled ? `${recharge}, enough to refill it.` : `${recharge}: not enough to put back what the loads take, so each trip starts lower.`,
