@@ -2,10 +2,16 @@ import type { Migration } from 'kysely';
 import * as createFoundation from './001-create-foundation.ts';
 import * as createBuilds from './002-create-builds.ts';
 import * as createPowerPlans from './003-create-power-plans.ts';
+import * as indexLists from './004-index-lists.ts';
+import * as createBuildSearch from './005-create-build-search.ts';
+import * as dropPlanResults from './006-drop-plan-results.ts';
 
 /** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
 export const migrations: Record<string, Migration> = {
   '001-create-foundation': createFoundation,
   '002-create-builds': createBuilds,
   '003-create-power-plans': createPowerPlans,
+  '004-index-lists': indexLists,
+  '005-create-build-search': createBuildSearch,
+  '006-drop-plan-results': dropPlanResults,
 };

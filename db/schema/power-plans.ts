@@ -6,10 +6,8 @@ export interface PowerPlansTable {
   buildId: number | null;
   locationId: number;
   name: string;
-  /** JSON of the PlanInput (packages/calc). */
+  /** JSON of the PlanInput (packages/calc); its result is evaluated whenever the plan is read. */
   input: string;
-  /** JSON of the PlanResult the server evaluated from `input` at the last save. */
-  result: string;
   version: Generated<number>;
   createdBy: number | null;
   createdAt: string;

@@ -72,11 +72,15 @@ describe('the build list', () => {
 describe('finding a serial number', () => {
   it('finds an installed unit by the start of its serial number, within the locations the person may see', async () => {
     const found = await lead.get('/api/serials?q=kstr-44');
-    expect(found.body).toEqual([
-      expect.objectContaining({ serialNumber: 'KSTR-4471-B', buildNumber: 'DEN-00003', locationCode: 'DEN', status: 'draft' }),
-    ]);
-    expect((await (await h.signedIn(SIGN_INS.lead2)).get('/api/serials?q=KSTR')).body).toEqual([]);
-    expect((await (await h.signedIn(SIGN_INS.warranty)).get('/api/serials?q=KSTR')).body).toHaveLength(1);
+    expect(found.body).toEqual({
+      items: [expect.objectContaining({ serialNumber: 'KSTR-4471-B', buildNumber: 'DEN-00003', locationCode: 'DEN', status: 'draft' })],
+      total: 1,
+      totalCapped: false,
+      page: 1,
+      pageSize: 50,
+    });
+    expect((await (await h.signedIn(SIGN_INS.lead2)).get('/api/serials?q=KSTR')).body.items).toEqual([]);
+    expect((await (await h.signedIn(SIGN_INS.warranty)).get('/api/serials?q=KSTR')).body.items).toHaveLength(1);
     expect((await lead.get('/api/serials?q=K')).body.error.fields).toEqual({ q: 'Enter at least 2 characters' });
   });
 });
@@ -86,7 +90,7 @@ describe('builds with and without a power plan', () => {
     const planned = builds[0]!;
     await h.db
       .insertInto('powerPlans')
-      .values({ buildId: planned.id, locationId: planned.locationId, name: planned.number, input: '{}', result: '{}', version: 1, createdBy: ids.user(SIGN_INS.lead), createdAt: 'x', updatedAt: 'x', updatedBy: ids.user(SIGN_INS.lead) })
+      .values({ buildId: planned.id, locationId: planned.locationId, name: planned.number, input: '{}', version: 1, createdBy: ids.user(SIGN_INS.lead), createdAt: 'x', updatedAt: 'x', updatedBy: ids.user(SIGN_INS.lead) })
       .execute();
     expect(await numbers(lead, 'hasPlan=true')).toEqual([planned.number]);
     expect(await numbers(lead, 'hasPlan=false&sort=number&order=asc')).toEqual(['DEN-00002', 'DEN-00003']);

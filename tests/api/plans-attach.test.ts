@@ -1,5 +1,5 @@
 import { SAFETY_CAUTION } from '@busbar/calc';
-import type { BuildDetail, PlanView } from '@busbar/shared';
+import type { BuildDetail, PlanView, QuickPlanSummary } from '@busbar/shared';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { demoIds, startHarness, type Agent, type Harness } from '../support/api-harness.ts';
 import { createBuild, moveThrough } from '../support/build-fixtures.ts';
@@ -90,7 +90,7 @@ describe('attaching a quick plan to its build', () => {
       { version: 2, savedAt: '2026-06-15T15:30:00.000Z', savedByName: 'Dmitri Castellanos', note: `Attached to ${mine.number}` },
       { version: 1, savedAt: '2026-06-15T15:00:00.000Z', savedByName: 'Dmitri Castellanos', note: '' },
     ]);
-    expect(((await agents.lead.get('/api/plans')).body as PlanView[]).map((p) => p.id)).not.toContain(plan.id);
+    expect(((await agents.lead.get('/api/plans')).body.items as QuickPlanSummary[]).map((p) => p.id)).not.toContain(plan.id);
     expect((await auditOf(h.db, 'plan', plan.id)).at(-1)).toMatchObject({
       action: 'plan.attach',
       actorId: ids.user(SIGN_INS.tech),

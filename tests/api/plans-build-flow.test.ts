@@ -52,8 +52,18 @@ describe("a build's plan, saved in versions", () => {
     const row = await stored(build.id);
     expect(row).toMatchObject({ id: plan.id, locationId: ids.location('DEN'), name: build.number, version: 1, createdBy: ids.user(SIGN_INS.tech) });
     expect(JSON.parse(row.input)).toEqual(input);
-    expect(JSON.parse(row.result)).toEqual(evaluatePlan(input));
-    expect(JSON.parse(row.result)).toEqual(plan.result);
+    expect(row).not.toHaveProperty('result');
+    expect(plan.result).toEqual(evaluatePlan(input));
+  });
+
+  it('evaluates the stored inputs whenever the plan is read, so no stale result is ever served', async () => {
+    const build = await techBuild();
+    const saved = (await tech.put(`/api/builds/${build.id}/plan`).send({ version: 0, input })).body as PlanView;
+    const changed = { ...input, loads: input.loads.map((load) => ({ ...load, watts: load.watts * 2 })) };
+    await h.db.updateTable('powerPlans').set({ input: JSON.stringify(changed) }).where('id', '=', saved.id).execute();
+    const read = (await tech.get(`/api/builds/${build.id}/plan`)).body.plan as PlanView;
+    expect(read.result).toEqual(evaluatePlan(changed));
+    expect(read.result.dailyWattHours).toBeCloseTo(2 * saved.result.dailyWattHours, 9);
   });
 
   it('takes no result from the client: the server always computes it', async () => {

@@ -1,5 +1,5 @@
 import { SAFETY_CAUTION } from '@busbar/calc';
-import type { PlanView } from '@busbar/shared';
+import type { PlanView, QuickPlanSummary } from '@busbar/shared';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { demoIds, startHarness, type Agent, type Harness } from '../support/api-harness.ts';
 import { auditOf } from '../support/catalog-fixtures.ts';
@@ -75,21 +75,24 @@ describe('reading quick plans', () => {
     ['warranty', ['den']],
     ['accountant', ['den', 'avl']],
     ['lead2', ['avl']],
-  ] as [SignIn, string[]][])('lists for %s the plans of their locations, with the caution', async (who, names) => {
+  ] as [SignIn, string[]][])('lists for %s the plans of their locations, with their verdicts and without their inputs', async (who, names) => {
     const res = await agents[who].get('/api/plans');
     expect(res.status).toBe(200);
+    const plans = res.body.items as QuickPlanSummary[];
+    expect(res.body).toMatchObject({ page: 1, pageSize: 50, total: plans.length, totalCapped: false });
     const byId: Record<number, string> = { [den.id]: 'den', [avl.id]: 'avl' };
-    const listed = (res.body as PlanView[]).filter((p) => byId[p.id]);
+    const listed = plans.filter((p) => byId[p.id]);
     expect(listed.map((p) => byId[p.id]).sort()).toEqual([...names].sort());
-    for (const plan of res.body as PlanView[]) expect(plan.result.caution).toBe(SAFETY_CAUTION);
+    for (const plan of listed) expect(plan.verdict).toEqual((byId[plan.id] === 'den' ? den : avl).result.verdict);
+    for (const plan of plans) expect(Object.keys(plan).sort()).toEqual(['buildId', 'id', 'locationId', 'name', 'updatedAt', 'updatedByName', 'verdict', 'version']);
     const allowed = names.map((n) => ids.location(n.toUpperCase()));
-    expect((res.body as PlanView[]).every((p) => allowed.includes(p.locationId) && p.buildId === null)).toBe(true);
+    expect(plans.every((p) => allowed.includes(p.locationId) && p.buildId === null)).toBe(true);
   });
 
   it('filters by location, and lists nothing at a location the person cannot see', async () => {
-    const owner = (await agents.owner.get(`/api/plans?locationId=${ids.location('AVL')}`)).body as PlanView[];
+    const owner = (await agents.owner.get(`/api/plans?locationId=${ids.location('AVL')}`)).body.items as QuickPlanSummary[];
     expect(owner.map((p) => p.id)).toEqual([avl.id]);
-    expect((await agents.lead.get(`/api/plans?locationId=${ids.location('AVL')}`)).body).toEqual([]);
+    expect((await agents.lead.get(`/api/plans?locationId=${ids.location('AVL')}`)).body).toMatchObject({ items: [], total: 0 });
   });
 
   it.each([

@@ -31,12 +31,13 @@ describe('vendors', () => {
     const amber = await addVendor(h.db, { name: `Amberline Power ${signIn}`, active: false });
     const res = await agents[signIn].get('/api/vendors');
     expect(res.status).toBe(200);
-    const mine = res.body.filter((v: { id: number }) => v.id === cobalt.id || v.id === amber.id);
+    expect(res.body).toMatchObject({ page: 1, pageSize: 200, totalCapped: false, total: res.body.items.length });
+    const mine = res.body.items.filter((v: { id: number }) => v.id === cobalt.id || v.id === amber.id);
     expect(mine).toStrictEqual([
       { id: amber.id, name: amber.name, rmaEmail: amber.rmaEmail, defaultWarrantyMonths: 24, notes: '', active: false, version: 1 },
       { id: cobalt.id, name: cobalt.name, rmaEmail: cobalt.rmaEmail, defaultWarrantyMonths: 24, notes: '', active: true, version: 1 },
     ]);
-    const names: string[] = res.body.map((v: { name: string }) => v.name);
+    const names: string[] = res.body.items.map((v: { name: string }) => v.name);
     expect(names).toEqual([...names].sort((a, b) => (a < b ? -1 : a > b ? 1 : 0)));
   });
 

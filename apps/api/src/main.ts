@@ -5,6 +5,7 @@ import { loadConfig } from './config.ts';
 import { ensureDemoData } from './demo.ts';
 import { startMailCapture } from './mail/capture.ts';
 import { createMailer } from './mail/mailer.ts';
+import { keepPlannerStatistics } from './queries/statistics.ts';
 
 const config = loadConfig();
 const now = () => new Date();
@@ -13,6 +14,7 @@ await migrateToLatest(db);
 if (config.demoData && (await ensureDemoData(db, config.scryptLogN, now()))) {
   console.log('Filled the empty database with the demo network.');
 }
+await keepPlannerStatistics(db);
 await pruneSessions(db, now());
 setInterval(() => void pruneSessions(db, now()), 3_600_000).unref();
 

@@ -10,3 +10,4 @@ export * from './schemas/customers.ts';
 export * from './schemas/builds.ts';
 export * from './schemas/imports.ts';
 export * from './schemas/plans.ts';
+export * from './schemas/plan-lists.ts';

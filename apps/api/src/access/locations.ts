@@ -13,3 +13,19 @@ export async function locationToAddAt(db: Db, viewer: Viewer, locationId: number
   if (!viewer.ability.can('create', subject(type, { locationId: location.id }))) throw forbidden(refusal);
   return location;
 }
+
+/** Every location (people who see the whole network: lists take no location filter), or these ids. */
+export type LocationScope = 'all' | number[];
+
+/** Where the person may do `action` on records of `type` (or on its `field`): 'all' when that is every location. */
+export async function locationScope(db: Db, viewer: Viewer, action: 'read' | 'create', type: 'Build' | 'Customer' | 'Plan', field?: string): Promise<LocationScope> {
+  const all = (await db.selectFrom('locations').select('id').execute()).map((l) => l.id);
+  const ids = all.filter((locationId) => viewer.ability.can(action, subject(type, { locationId }), field));
+  return ids.length === all.length ? 'all' : ids;
+}
+
+/** The scope narrowed to one location the request asks for (none of it when out of scope). */
+export function narrowScope(scope: LocationScope, locationId: number | undefined): LocationScope {
+  if (locationId === undefined) return scope;
+  return scope === 'all' || scope.includes(locationId) ? [locationId] : [];
+}

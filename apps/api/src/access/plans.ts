@@ -1,7 +1,7 @@
-import { evaluatePlan, type PlanInput, type PlanResult } from '@busbar/calc';
+import { evaluatePlan, planVerdict, type PlanInput, type PlanResult } from '@busbar/calc';
 import type { Db } from '@busbar/db';
 import { subject } from '@casl/ability';
-import type { PlanView } from '@busbar/shared';
+import type { PlanView, QuickPlanSummary } from '@busbar/shared';
 import { HttpError, notFound } from '../errors.ts';
 import { findPlan, type PlanRow } from '../queries/plans.ts';
 import type { Viewer } from './viewer.ts';
@@ -16,8 +16,15 @@ export async function loadPlan(db: Db, viewer: Viewer, id: number): Promise<Plan
   return row;
 }
 
+/** A plan as read: its stored inputs with the result evaluated now, so it is never a stale computation's. */
 export function planView(row: PlanRow): PlanView {
-  return { ...row, input: JSON.parse(row.input) as PlanInput, result: JSON.parse(row.result) as PlanResult };
+  const input = JSON.parse(row.input) as PlanInput;
+  return { ...row, input, result: evaluatePlan(input) };
+}
+
+/** A quick plan as listed: its verdict, evaluated now, without inputs or the rest of the result. */
+export function quickPlanSummary({ input, ...row }: PlanRow): QuickPlanSummary {
+  return { ...row, verdict: planVerdict(JSON.parse(input) as PlanInput) };
 }
 
 /**

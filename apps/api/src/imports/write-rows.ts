@@ -5,7 +5,8 @@ import { addBuildEvent, recomputeTotals } from '../queries/build-changes.ts';
 import { nextBuildNumber } from '../queries/builds.ts';
 import type { CheckedRow } from './check-rows.ts';
 
-interface Location {
+/** What an import needs of its location (plain data: it crosses into the import's worker thread). */
+export interface ImportLocation {
   id: number;
   code: string;
   timeZone: string;
@@ -16,7 +17,7 @@ interface Location {
 const localEvening = (date: string, zone: string) => new Date(localMoment(zone, dayOfIso(date), 17 * 60)).toISOString();
 
 /** Finds the customer by e-mail at the location, or creates one; the same e-mail in a file is one customer. */
-async function customerFor(trx: Db, location: Location, row: CheckedRow['row'], at: string): Promise<number> {
+async function customerFor(trx: Db, location: ImportLocation, row: CheckedRow['row'], at: string): Promise<number> {
   if (row.customer_email) {
     const existing = await trx.selectFrom('customers').select('id').where('locationId', '=', location.id).where('email', '=', row.customer_email).executeTakeFirst();
     if (existing) return existing.id;
@@ -41,7 +42,7 @@ async function customerFor(trx: Db, location: Location, row: CheckedRow['row'], 
   return created.id;
 }
 
-async function vehicleFor(trx: Db, location: Location, customerId: number, row: CheckedRow['row']): Promise<number> {
+async function vehicleFor(trx: Db, location: ImportLocation, customerId: number, row: CheckedRow['row']): Promise<number> {
   const vehicle = { year: row.vehicle_year, make: row.vehicle_make, model: row.vehicle_model };
   const existing = await trx
     .selectFrom('vehicles')
@@ -61,7 +62,7 @@ async function vehicleFor(trx: Db, location: Location, customerId: number, row: 
 }
 
 /** Writes checked rows as builds of the location, in file order; call inside one transaction. */
-export async function writeImport(trx: Db, location: Location, rows: CheckedRow[], actorId: number, at: string): Promise<number> {
+export async function writeImport(trx: Db, location: ImportLocation, rows: CheckedRow[], actorId: number, at: string): Promise<number> {
   for (const { row, items, leadTechnicianId, line } of rows) {
     const customerId = await customerFor(trx, location, row, at);
     const vehicleId = await vehicleFor(trx, location, customerId, row);

@@ -1,10 +1,11 @@
 import type { Db } from '@busbar/db';
 import type { BuildEventView, BuildItemView, BuildQuery, BuildStatus, BuildView, Page } from '@busbar/shared';
-import { sql } from 'kysely';
-import { contains } from './search.ts';
+import { sql, type Expression, type SqlBool } from 'kysely';
+import type { LocationScope } from '../access/locations.ts';
+import { afterKey, cappedCount, decodeCursor, encodeCursor, offsetOf, type Keyset } from './paging.ts';
+import { buildTextMatches } from './search.ts';
 
 export type BuildRow = Required<Omit<BuildView, 'marginCents'>>;
-
 
 function buildsWithNames(db: Db) {
   return db
@@ -30,15 +31,13 @@ const SORT_COLUMNS = {
   updatedAt: 'b.updatedAt',
 } as const;
 
-/** One page of builds at the given locations, filtered and sorted as asked. */
-export async function listBuilds(db: Db, locationIds: number[], query: BuildQuery): Promise<Page<BuildRow>> {
-  const page = { page: query.page, pageSize: query.pageSize };
-  if (locationIds.length === 0) return { items: [], total: 0, ...page };
+/** The filters of a build list as conditions on `builds` alone, so counting and paging need no join. */
+function matchingBuilds(db: Db, scope: LocationScope, query: BuildQuery) {
   const statuses = query.status === undefined ? [] : ([] as BuildStatus[]).concat(query.status);
-  const filtered = buildsWithNames(db).where((eb) => {
-    const conditions = [eb('b.locationId', 'in', locationIds)];
+  return db.selectFrom('builds as b').where((eb) => {
+    const conditions: Expression<SqlBool>[] = [];
+    if (scope !== 'all') conditions.push(eb('b.locationId', 'in', scope));
     if (statuses.length > 0) conditions.push(eb('b.status', 'in', statuses));
-    if (query.locationId) conditions.push(eb('b.locationId', '=', query.locationId));
     if (query.technicianId) conditions.push(eb('b.leadTechnicianId', '=', query.technicianId));
     if (query.from) conditions.push(eb('b.bookedFor', '>=', query.from));
     if (query.to) conditions.push(eb('b.bookedFor', '<=', query.to));
@@ -46,25 +45,34 @@ export async function listBuilds(db: Db, locationIds: number[], query: BuildQuer
       const planned = eb.exists(eb.selectFrom('powerPlans as p').select('p.id').whereRef('p.buildId', '=', 'b.id'));
       conditions.push(query.hasPlan === 'true' ? planned : eb.not(planned));
     }
-    if (query.q) {
-      const q = query.q;
-      const bySerial = eb.exists(
-        eb.selectFrom('buildItems as i').select('i.id').whereRef('i.buildId', '=', 'b.id').where(contains('i.serialNumber', q)),
-      );
-      conditions.push(eb.or([contains('b.number', q), contains('c.name', q), bySerial]));
-    }
+    if (query.q) conditions.push(buildTextMatches('b.id', query.q));
     return eb.and(conditions);
   });
-  const [items, count] = await Promise.all([
-    filtered
-      .orderBy(SORT_COLUMNS[query.sort], query.order)
-      .orderBy('b.id', query.order)
-      .limit(query.pageSize)
-      .offset((query.page - 1) * query.pageSize)
-      .execute(),
-    filtered.clearSelect().select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow(),
-  ]);
-  return { items, total: Number(count.n), ...page };
+}
+
+/**
+ * One page of builds in the scope (already narrowed to the `locationId` asked for), filtered and sorted as asked: by page number for
+ * the first COUNT_CAP rows, or after a `cursor` at any depth. The page's ids come from the
+ * indexes of `builds` alone; only those rows are joined to their names.
+ */
+export async function listBuilds(db: Db, scope: LocationScope, query: BuildQuery): Promise<Page<BuildRow>> {
+  const paging = { page: query.page, pageSize: query.pageSize };
+  if (scope !== 'all' && scope.length === 0) return { items: [], total: 0, totalCapped: false, nextCursor: null, ...paging };
+  const sortColumn = SORT_COLUMNS[query.sort];
+  const matching = matchingBuilds(db, scope, query);
+  let pageIds = matching.select(['b.id', `${sortColumn} as sortValue`]).orderBy(sortColumn, query.order).orderBy('b.id', query.order).limit(query.pageSize);
+  if (query.cursor) pageIds = pageIds.where(afterKey(sortColumn, 'b.id', query.order, decodeCursor(query.cursor), query.sort === 'bookedFor'));
+  else pageIds = pageIds.offset(offsetOf(query.page, query.pageSize));
+  const [keys, count] = await Promise.all([pageIds.execute(), cappedCount(db, matching.select('b.id'))]);
+  const rows = keys.length === 0 ? [] : await buildsWithNames(db).where('b.id', 'in', keys.map((k) => k.id)).execute();
+  const byId = new Map(rows.map((row) => [row.id, row]));
+  const last = keys.length === query.pageSize ? keys.at(-1) : undefined;
+  return {
+    items: keys.map((k) => byId.get(k.id)!),
+    ...count,
+    ...paging,
+    nextCursor: last ? encodeCursor({ value: last.sortValue as Keyset['value'], id: last.id }) : null,
+  };
 }
 
 export function findBuild(db: Db, id: number): Promise<BuildRow | undefined> {

@@ -2,6 +2,7 @@ import type { Db } from '@busbar/db';
 import { CATEGORIES, type catalogQuery, type CatalogItemBody, type CatalogItemView, type Page } from '@busbar/shared';
 import { sql } from 'kysely';
 import type { z } from 'zod';
+import { cappedCount, offsetOf } from './paging.ts';
 import { contains } from './search.ts';
 
 type CatalogFilter = z.output<typeof catalogQuery>;
@@ -59,11 +60,11 @@ export async function listCatalog(db: Db, filter: CatalogFilter): Promise<Page<C
       .orderBy('c.name')
       .orderBy('c.id')
       .limit(filter.pageSize)
-      .offset((filter.page - 1) * filter.pageSize)
+      .offset(offsetOf(filter.page, filter.pageSize))
       .execute(),
-    query.select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow(),
+    cappedCount(db, query.select('c.id')),
   ]);
-  return { items: rows.map(toView), total: Number(count.n), page: filter.page, pageSize: filter.pageSize };
+  return { items: rows.map(toView), ...count, page: filter.page, pageSize: filter.pageSize };
 }
 
 export async function findCatalogItem(db: Db, id: number): Promise<CatalogItemView | undefined> {

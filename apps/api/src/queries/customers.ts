@@ -1,6 +1,8 @@
-import type { Db } from '@busbar/db';
-import type { Expression, SqlBool } from 'kysely';
+import type { Database, Db } from '@busbar/db';
+import type { Expression, ExpressionBuilder, SqlBool } from 'kysely';
 import type { CustomerBody, CustomerView, Page } from '@busbar/shared';
+import type { LocationScope } from '../access/locations.ts';
+import { cappedCount, offsetOf } from './paging.ts';
 import { contains } from './search.ts';
 
 const CUSTOMER_COLUMNS = [
@@ -11,33 +13,37 @@ type CustomerFields = Omit<CustomerBody, 'locationId'>;
 
 export interface CustomerFilter {
   /** The locations whose customers the person may read, narrowed by the request's filter. */
-  locationIds: number[];
+  scope: LocationScope;
   q?: string | undefined;
   /** Where the person may read each contact field, and so may search by it. */
-  emailLocationIds: number[];
-  phoneLocationIds: number[];
+  emailScope: LocationScope;
+  phoneScope: LocationScope;
   page: number;
   pageSize: number;
 }
 
+const inScope = (eb: ExpressionBuilder<Database, 'customers'>, scope: LocationScope): Expression<SqlBool> =>
+  scope === 'all' ? eb.lit(true) : eb('locationId', 'in', scope);
+
 /** Customers by name; a search matches the name, or e-mail and phone where the person reads them. */
 export async function listCustomers(db: Db, filter: CustomerFilter): Promise<Page<CustomerView>> {
-  const { page, pageSize, q } = filter;
-  if (filter.locationIds.length === 0) return { items: [], total: 0, page, pageSize };
-  let query = db.selectFrom('customers').where('locationId', 'in', filter.locationIds);
+  const { page, pageSize, q, scope } = filter;
+  if (scope !== 'all' && scope.length === 0) return { items: [], total: 0, totalCapped: false, page, pageSize };
+  let query = db.selectFrom('customers');
+  if (scope !== 'all') query = query.where('locationId', 'in', scope);
   if (q) {
     query = query.where((eb) => {
       const terms: Expression<SqlBool>[] = [contains('name', q)];
-      if (filter.emailLocationIds.length > 0) terms.push(eb.and([contains('email', q), eb('locationId', 'in', filter.emailLocationIds)]));
-      if (filter.phoneLocationIds.length > 0) terms.push(eb.and([contains('phone', q), eb('locationId', 'in', filter.phoneLocationIds)]));
+      if (filter.emailScope === 'all' || filter.emailScope.length > 0) terms.push(eb.and([contains('email', q), inScope(eb, filter.emailScope)]));
+      if (filter.phoneScope === 'all' || filter.phoneScope.length > 0) terms.push(eb.and([contains('phone', q), inScope(eb, filter.phoneScope)]));
       return eb.or(terms);
     });
   }
   const [items, count] = await Promise.all([
-    query.select(CUSTOMER_COLUMNS).orderBy('name').orderBy('id').limit(pageSize).offset((page - 1) * pageSize).execute(),
-    query.select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow(),
+    query.select(CUSTOMER_COLUMNS).orderBy('name').orderBy('id').limit(pageSize).offset(offsetOf(page, pageSize)).execute(),
+    cappedCount(db, query.select('id')),
   ]);
-  return { items, total: Number(count.n), page, pageSize };
+  return { items, ...count, page, pageSize };
 }
 
 export function findCustomer(db: Db, id: number): Promise<CustomerView | undefined> {

@@ -1,15 +1,17 @@
-import type { PlanInput, PlanResult } from '@busbar/calc';
+import type { PlanInput } from '@busbar/calc';
 import type { Db } from '@busbar/db';
 import type { PlanRevisionView } from '@busbar/shared';
+import type { LocationScope } from '../access/locations.ts';
 import { stale } from '../errors.ts';
+import { cappedCount, offsetOf } from './paging.ts';
 
 export interface PlanRow {
   id: number;
   buildId: number | null;
   locationId: number;
   name: string;
+  /** JSON of the PlanInput; the result is evaluated from it whenever the plan is read. */
   input: string;
-  result: string;
   version: number;
   updatedAt: string;
   updatedByName: string | null;
@@ -19,7 +21,7 @@ function plansWithNames(db: Db) {
   return db
     .selectFrom('powerPlans as p')
     .leftJoin('users as u', 'u.id', 'p.updatedBy')
-    .select(['p.id', 'p.buildId', 'p.locationId', 'p.name', 'p.input', 'p.result', 'p.version', 'p.updatedAt', 'u.name as updatedByName']);
+    .select(['p.id', 'p.buildId', 'p.locationId', 'p.name', 'p.input', 'p.version', 'p.updatedAt', 'u.name as updatedByName']);
 }
 
 export function findPlan(db: Db, id: number): Promise<PlanRow | undefined> {
@@ -30,15 +32,24 @@ export function findBuildPlan(db: Db, buildId: number): Promise<PlanRow | undefi
   return plansWithNames(db).where('p.buildId', '=', buildId).executeTakeFirst();
 }
 
-/** Quick plans (not attached to a build) at the given locations, most recently saved first. */
-export async function listQuickPlans(db: Db, locationIds: number[]): Promise<PlanRow[]> {
-  if (locationIds.length === 0) return [];
-  return plansWithNames(db)
-    .where('p.buildId', 'is', null)
-    .where('p.locationId', 'in', locationIds)
-    .orderBy('p.updatedAt', 'desc')
-    .orderBy('p.id', 'desc')
-    .execute();
+/** One page of quick plans (not attached to a build) in the scope, most recently saved first. */
+export async function listQuickPlans(db: Db, scope: LocationScope, paging: { page: number; pageSize: number }) {
+  const { page, pageSize } = paging;
+  if (scope !== 'all' && scope.length === 0) return { rows: [], total: 0, totalCapped: false, page, pageSize };
+  let matching = db.selectFrom('powerPlans as p').where('p.buildId', 'is', null);
+  if (scope !== 'all') matching = matching.where('p.locationId', 'in', scope);
+  const [rows, count] = await Promise.all([
+    matching
+      .leftJoin('users as u', 'u.id', 'p.updatedBy')
+      .select(['p.id', 'p.buildId', 'p.locationId', 'p.name', 'p.input', 'p.version', 'p.updatedAt', 'u.name as updatedByName'])
+      .orderBy('p.updatedAt', 'desc')
+      .orderBy('p.id', 'desc')
+      .limit(pageSize)
+      .offset(offsetOf(page, pageSize))
+      .execute(),
+    cappedCount(db, matching.select('p.id')),
+  ]);
+  return { rows: rows as PlanRow[], ...count, page, pageSize };
 }
 
 export function planRevisions(db: Db, planId: number): Promise<PlanRevisionView[]> {
@@ -51,12 +62,11 @@ export function planRevisions(db: Db, planId: number): Promise<PlanRevisionView[
     .execute();
 }
 
-/** One save: who, when, the evaluated inputs and why, when a reason is owed. */
+/** One save: who, when, the inputs (evaluated before saving) and why, when a reason is owed. */
 export interface PlanSave {
   at: string;
   actorId: number;
   input: PlanInput;
-  result: PlanResult;
   note: string;
 }
 
@@ -67,7 +77,6 @@ export async function insertPlan(db: Db, plan: { buildId: number | null; locatio
     .values({
       ...plan,
       input: JSON.stringify(save.input),
-      result: JSON.stringify(save.result),
       version: 1,
       createdBy: save.actorId,
       createdAt: save.at,
@@ -90,7 +99,6 @@ export async function revisePlan(db: Db, id: number, version: number, save: Plan
     .set({
       ...patch,
       input: JSON.stringify(save.input),
-      result: JSON.stringify(save.result),
       version: version + 1,
       updatedAt: save.at,
       updatedBy: save.actorId,

@@ -1,4 +1,4 @@
-import { sql } from 'kysely';
+import { sql, type Expression, type SqlBool } from 'kysely';
 
 /** SQLite's LIKE has no escape character unless a query names one: `\` here, so % and _ are literal. */
 const literal = (text: string) => text.replace(/[\\%_]/g, (c) => `\\${c}`);
@@ -8,3 +8,22 @@ export const contains = (column: string, text: string) => sql<boolean>`${sql.ref
 
 /** `column` starts with `text`, in any case. */
 export const startsWith = (column: string, text: string) => sql<boolean>`${sql.ref(column)} like ${`${literal(text)}%`} escape '\\'`;
+
+/** The trigram index finds any run of 3 or more characters; shorter text is looked for row by row. */
+export const TRIGRAM_LENGTH = 3;
+
+/**
+ * Builds (by `idColumn`) whose number, customer name, vehicle or a serial number contains `text`,
+ * in any case. From 3 characters the FTS5 trigram index `build_search` answers; shorter text is
+ * matched with LIKE against the same text (`build_search_source`) as the sort order reaches each build.
+ */
+export function buildTextMatches(idColumn: string, text: string): Expression<SqlBool> {
+  const id = sql.ref(idColumn);
+  if ([...text].length >= TRIGRAM_LENGTH) {
+    const phrase = `"${text.replaceAll('"', '""')}"`;
+    return sql<SqlBool>`${id} in (select rowid from build_search where build_search match ${phrase})`;
+  }
+  const like = `%${literal(text)}%`;
+  return sql<SqlBool>`exists (select 1 from build_search_source s where s.id = ${id} and (s.number like ${like} escape '\\'
+    or s.customer like ${like} escape '\\' or s.vehicle like ${like} escape '\\' or s.serials like ${like} escape '\\'))`;
+}

@@ -1,19 +1,32 @@
 import type { Db } from '@busbar/db';
-import type { SerialMatch } from '@busbar/shared';
+import type { Page, SerialMatch } from '@busbar/shared';
+import { sql } from 'kysely';
+import type { LocationScope } from '../access/locations.ts';
+import { cappedCount, offsetOf } from './paging.ts';
 import { startsWith } from './search.ts';
 
-/** Installed units whose serial number starts with `prefix` (any case), at the given locations. */
-export async function findSerials(db: Db, locationIds: number[], prefix: string): Promise<SerialMatch[]> {
-  if (locationIds.length === 0) return [];
-  return db
+/** Serial numbers in any case, the order of the `build_items_serial_nocase` index that finds a prefix. */
+const serialOrder = sql`${sql.ref('i.serialNumber')} collate nocase`;
+
+/** Installed units whose serial number starts with `prefix` (any case), in the scope, a page at a time. */
+export async function findSerials(db: Db, scope: LocationScope, filter: { q: string; page: number; pageSize: number }): Promise<Page<SerialMatch>> {
+  const { page, pageSize } = filter;
+  if (scope !== 'all' && scope.length === 0) return { items: [], total: 0, totalCapped: false, page, pageSize };
+  let matching = db.selectFrom('buildItems as i').where(startsWith('i.serialNumber', filter.q));
+  if (scope !== 'all') matching = matching.where((eb) => eb.exists(eb.selectFrom('builds as b').select('b.id').whereRef('b.id', '=', 'i.buildId').where('b.locationId', 'in', scope)));
+  const [keys, count] = await Promise.all([
+    matching.select('i.id').orderBy(serialOrder).orderBy('i.id').limit(pageSize).offset(offsetOf(page, pageSize)).execute(),
+    cappedCount(db, matching.select('i.id')),
+  ]);
+  if (keys.length === 0) return { items: [], ...count, page, pageSize };
+  const rows = await db
     .selectFrom('buildItems as i')
     .innerJoin('builds as b', 'b.id', 'i.buildId')
     .innerJoin('locations as l', 'l.id', 'b.locationId')
     .innerJoin('catalogItems as c', 'c.id', 'i.catalogItemId')
-    .select(['i.serialNumber', 'i.sku', 'c.name', 'b.id as buildId', 'b.number as buildNumber', 'l.code as locationCode', 'b.status', 'b.deliveredAt'])
-    .where('b.locationId', 'in', locationIds)
-    .where(startsWith('i.serialNumber', prefix))
-    .orderBy('i.serialNumber')
-    .limit(50)
-    .execute() as Promise<SerialMatch[]>;
+    .select(['i.id', 'i.serialNumber', 'i.sku', 'c.name', 'b.id as buildId', 'b.number as buildNumber', 'l.code as locationCode', 'b.status', 'b.deliveredAt'])
+    .where('i.id', 'in', keys.map((k) => k.id))
+    .execute();
+  const byId = new Map(rows.map(({ id, ...match }) => [id, match as SerialMatch]));
+  return { items: keys.map((k) => byId.get(k.id)!), ...count, page, pageSize };
 }

@@ -1,5 +1,6 @@
 import type { Db } from '@busbar/db';
-import type { VendorBody, VendorView } from '@busbar/shared';
+import type { Page, VendorBody, VendorView } from '@busbar/shared';
+import { cappedCount, offsetOf } from './paging.ts';
 
 const VENDOR_COLUMNS = ['id', 'name', 'rmaEmail', 'defaultWarrantyMonths', 'notes', 'active', 'version'] as const;
 
@@ -8,9 +9,13 @@ type VendorRow = Omit<VendorView, 'active'> & { active: number };
 const toView = ({ active, ...row }: VendorRow): VendorView => ({ ...row, active: active === 1 });
 const toColumns = ({ active, ...body }: VendorBody) => ({ ...body, active: active ? 1 : 0 });
 
-export async function listVendors(db: Db): Promise<VendorView[]> {
-  const rows = await db.selectFrom('vendors').select(VENDOR_COLUMNS).orderBy('name').orderBy('id').execute();
-  return rows.map(toView);
+export async function listVendors(db: Db, paging: { page: number; pageSize: number }): Promise<Page<VendorView>> {
+  const { page, pageSize } = paging;
+  const [rows, count] = await Promise.all([
+    db.selectFrom('vendors').select(VENDOR_COLUMNS).orderBy('name').orderBy('id').limit(pageSize).offset(offsetOf(page, pageSize)).execute(),
+    cappedCount(db, db.selectFrom('vendors').select('id')),
+  ]);
+  return { items: rows.map(toView), ...count, page, pageSize };
 }
 
 export async function findVendor(db: Db, id: number): Promise<VendorView | undefined> {

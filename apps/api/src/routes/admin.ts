@@ -57,7 +57,7 @@ export function adminRouter({ db }: AppContext): Router {
     '/outbox',
     validate({ query: outboxQuery }, async ({ query }, req, res) => {
       authorize(req, 'read', 'Mail');
-      res.json(await listMail(db, query.page, query.pageSize));
+      res.json(await listMail(db, query));
     }),
   );
 

@@ -51,7 +51,7 @@ export function buildPlanRouter({ db, now }: AppContext): Router {
       if ((plan?.version ?? 0) !== body.version) throw stale();
       const result = evaluateInput(body.input);
       const id = await db.transaction().execute(async (trx) => {
-        const save = { at: now().toISOString(), actorId: viewer.id, input: body.input, result, note: correction ? body.correctionNote! : '' };
+        const save = { at: now().toISOString(), actorId: viewer.id, input: body.input, note: correction ? body.correctionNote! : '' };
         let planId = plan?.id;
         if (planId) await revisePlan(trx, planId, body.version, save);
         else planId = await insertPlan(trx, { buildId: build.id, locationId: build.locationId, name: build.number }, save);

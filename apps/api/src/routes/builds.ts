@@ -2,9 +2,8 @@ import { subject } from '@casl/ability';
 import { BUILD_STATUS_LABELS, buildCreate, buildQuery, buildStatusChange, buildUpdate, findTransition, idParams } from '@busbar/shared';
 import { Router } from 'express';
 import { authorizeBuildChange, buildDetail, buildView, loadBuild } from '../access/builds.ts';
-import { locationsWhere } from '../access/fields.ts';
 import { checkBuildReferences } from '../access/build-references.ts';
-import { locationToAddAt } from '../access/locations.ts';
+import { locationScope, locationToAddAt, narrowScope } from '../access/locations.ts';
 import type { AppContext } from '../context.ts';
 import { forbidden, invalidField } from '../errors.ts';
 import { viewerOf } from '../middleware/session.ts';
@@ -21,7 +20,8 @@ export function buildsRouter({ db, now }: AppContext): Router {
     '/',
     validate({ query: buildQuery }, async ({ query }, req, res) => {
       const viewer = viewerOf(req);
-      const page = await listBuilds(db, await locationsWhere(db, viewer.ability, 'read', 'Build'), query);
+      const scope = narrowScope(await locationScope(db, viewer, 'read', 'Build'), query.locationId);
+      const page = await listBuilds(db, scope, query);
       res.json({ ...page, items: page.items.map((row) => buildView(viewer, row)) });
     }),
   );

@@ -1,8 +1,10 @@
 import { subject } from '@casl/ability';
-import { customerBody, customerQuery, customerUpdate, idParams, type AppAbility } from '@busbar/shared';
+import { customerBody, customerQuery, customerUpdate, idParams } from '@busbar/shared';
+import type { Db } from '@busbar/db';
 import { Router } from 'express';
-import { locationsWhere, readable } from '../access/fields.ts';
-import { locationToAddAt } from '../access/locations.ts';
+import { readable } from '../access/fields.ts';
+import { locationScope, locationToAddAt, narrowScope, type LocationScope } from '../access/locations.ts';
+import type { Viewer } from '../access/viewer.ts';
 import type { AppContext } from '../context.ts';
 import { forbidden, notFound, stale } from '../errors.ts';
 import { viewerOf } from '../middleware/session.ts';
@@ -11,9 +13,11 @@ import { writeAudit } from '../queries/audit.ts';
 import { findCustomer, insertCustomer, listCustomers, updateCustomer } from '../queries/customers.ts';
 import { vehiclesOf } from '../queries/vehicles.ts';
 
-/** Of these locations, those where the person reads a customer's field. */
-const readingField = (ability: AppAbility, field: string, locationIds: number[]) =>
-  locationIds.filter((locationId) => ability.can('read', subject('Customer', { locationId }), field));
+/** Of the scope, where the person reads a customer's field. */
+async function readingField(db: Db, viewer: Viewer, field: string, scope: LocationScope): Promise<LocationScope> {
+  if (scope === 'all') return locationScope(db, viewer, 'read', 'Customer', field);
+  return scope.filter((locationId) => viewer.ability.can('read', subject('Customer', { locationId }), field));
+}
 
 /** Customers of the locations a person may see, without the contact details they may not read. */
 export function customersRouter({ db, now }: AppContext): Router {
@@ -22,17 +26,17 @@ export function customersRouter({ db, now }: AppContext): Router {
   router.get(
     '/',
     validate({ query: customerQuery }, async ({ query }, req, res) => {
-      const { ability } = viewerOf(req);
+      const viewer = viewerOf(req);
+      const { ability } = viewer;
       if (!ability.can('read', 'Customer')) throw forbidden();
-      const visible = await locationsWhere(db, ability, 'read', 'Customer');
-      const locationIds = query.locationId ? visible.filter((id) => id === query.locationId) : visible;
+      const scope = narrowScope(await locationScope(db, viewer, 'read', 'Customer'), query.locationId);
       const page = await listCustomers(db, {
         q: query.q,
         page: query.page,
         pageSize: query.pageSize,
-        locationIds,
-        emailLocationIds: readingField(ability, 'email', locationIds),
-        phoneLocationIds: readingField(ability, 'phone', locationIds),
+        scope,
+        emailScope: await readingField(db, viewer, 'email', scope),
+        phoneScope: await readingField(db, viewer, 'phone', scope),
       });
       res.json({ ...page, items: page.items.map((c) => readable(ability, 'Customer', c)) });
     }),

@@ -2,9 +2,8 @@ import type { PlanInput } from '@busbar/calc';
 import { idParams, planAttachBody, quickPlanCreate, quickPlanQuery, quickPlanUpdate } from '@busbar/shared';
 import { Router } from 'express';
 import { authorizeBuildChange } from '../access/builds.ts';
-import { locationToAddAt } from '../access/locations.ts';
-import { locationsWhere } from '../access/fields.ts';
-import { canOnPlan, evaluateInput, loadPlan, planView } from '../access/plans.ts';
+import { locationScope, locationToAddAt, narrowScope } from '../access/locations.ts';
+import { canOnPlan, evaluateInput, loadPlan, planView, quickPlanSummary } from '../access/plans.ts';
 import type { AppContext } from '../context.ts';
 import { conflict, forbidden, invalidField } from '../errors.ts';
 import { viewerOf } from '../middleware/session.ts';
@@ -23,8 +22,9 @@ export function plansRouter({ db, now }: AppContext): Router {
   router.get(
     '/',
     validate({ query: quickPlanQuery }, async ({ query }, req, res) => {
-      const locationIds = (await locationsWhere(db, viewerOf(req).ability, 'read', 'Plan')).filter((id) => !query.locationId || id === query.locationId);
-      res.json((await listQuickPlans(db, locationIds)).map(planView));
+      const scope = narrowScope(await locationScope(db, viewerOf(req), 'read', 'Plan'), query.locationId);
+      const { rows, ...page } = await listQuickPlans(db, scope, query);
+      res.json({ ...page, items: rows.map(quickPlanSummary) });
     }),
   );
 
@@ -42,7 +42,7 @@ export function plansRouter({ db, now }: AppContext): Router {
       const location = await locationToAddAt(db, viewer, body.locationId, 'Plan', 'You cannot make plans at this location');
       const result = evaluateInput(body.input);
       const id = await db.transaction().execute(async (trx) => {
-        const save = { at: now().toISOString(), actorId: viewer.id, input: body.input, result, note: '' };
+        const save = { at: now().toISOString(), actorId: viewer.id, input: body.input, note: '' };
         const planId = await insertPlan(trx, { buildId: null, locationId: location.id, name: body.name }, save);
         const after = { locationId: location.id, name: body.name, version: 1, verdict: result.verdict.kind };
         await writeAudit(trx, { at: save.at, actorId: viewer.id, action: 'plan.create', entity: 'plan', entityId: planId, after });
@@ -61,7 +61,7 @@ export function plansRouter({ db, now }: AppContext): Router {
       if (plan.buildId !== null) throw attachedConflict();
       const result = evaluateInput(body.input);
       await db.transaction().execute(async (trx) => {
-        const save = { at: now().toISOString(), actorId: viewer.id, input: body.input, result, note: '' };
+        const save = { at: now().toISOString(), actorId: viewer.id, input: body.input, note: '' };
         await revisePlan(trx, plan.id, body.version, save, { name: body.name });
         const before = { name: plan.name, version: plan.version };
         const after = { name: body.name, version: body.version + 1, verdict: result.verdict.kind };
@@ -83,11 +83,11 @@ export function plansRouter({ db, now }: AppContext): Router {
       const correction = authorizeBuildChange(viewer, build, 'update', afterDelivery);
       if (!canOnPlan(viewer, 'update', plan)) throw forbidden('You cannot change plans at this location');
       if (await findBuildPlan(db, build.id)) throw conflict(`Build ${build.number} already has a power plan`, { buildId: 'This build already has a power plan' });
-      // Re-evaluated so the stored result is the current computation's, as with every save.
+      // Evaluated again, as with every save, so inputs today's computation refuses are not attached.
       const input = JSON.parse(plan.input) as PlanInput;
-      const result = evaluateInput(input);
+      evaluateInput(input);
       await db.transaction().execute(async (trx) => {
-        const save = { at: now().toISOString(), actorId: viewer.id, input, result, note: `Attached to ${build.number}` };
+        const save = { at: now().toISOString(), actorId: viewer.id, input, note: `Attached to ${build.number}` };
         await revisePlan(trx, plan.id, body.version, save, { buildId: build.id });
         if (correction) await addBuildEvent(trx, { buildId: build.id, at: save.at, actorId: viewer.id, kind: 'correction', note: afterDelivery });
         const after = { buildId: build.id, version: body.version + 1, note: save.note };

@@ -33,7 +33,7 @@ export function staffRouter({ db, now }: AppContext): Router {
         .filter((p): p is StaffPerson => p !== null)
         .filter((p) => !query.locationId || p.assignments.some((a) => a.locationId === query.locationId));
       const start = (query.page - 1) * query.pageSize;
-      res.json({ items: people.slice(start, start + query.pageSize), total: people.length, page: query.page, pageSize: query.pageSize });
+      res.json({ items: people.slice(start, start + query.pageSize), total: people.length, totalCapped: false, page: query.page, pageSize: query.pageSize });
     }),
   );
 

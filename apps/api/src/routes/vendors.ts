@@ -1,5 +1,5 @@
 import { subject } from '@casl/ability';
-import { idParams, vendorBody, vendorUpdate } from '@busbar/shared';
+import { idParams, vendorBody, vendorQuery, vendorUpdate } from '@busbar/shared';
 import { Router } from 'express';
 import { readable } from '../access/fields.ts';
 import type { AppContext } from '../context.ts';
@@ -15,12 +15,15 @@ const nameTaken = () => conflict('Another vendor already has this name', { name:
 export function vendorsRouter({ db, now }: AppContext): Router {
   const router = Router();
 
-  router.get('/', async (req, res) => {
-    const { ability } = viewerOf(req);
-    if (!ability.can('read', 'Vendor')) throw forbidden();
-    const vendors = await listVendors(db);
-    res.json(vendors.map((v) => readable(ability, 'Vendor', v)));
-  });
+  router.get(
+    '/',
+    validate({ query: vendorQuery }, async ({ query }, req, res) => {
+      const { ability } = viewerOf(req);
+      if (!ability.can('read', 'Vendor')) throw forbidden();
+      const page = await listVendors(db, query);
+      res.json({ ...page, items: page.items.map((v) => readable(ability, 'Vendor', v)) });
+    }),
+  );
 
   router.post(
     '/',

@@ -72,7 +72,8 @@ export const updateBuildItem = (id: number, itemId: number, body: ItemUpdate) =>
 export const removeBuildItem = (id: number, itemId: number, version: number) =>
   request<BuildDetail>(`/builds/${id}/items/${itemId}`, { method: 'DELETE', query: { version } });
 
-export const findSerials = (q: string) => request<SerialMatch[]>('/serials', { query: { q } });
+/** The first page of units whose serial number starts with `q`. */
+export const findSerials = (q: string) => request<Page<SerialMatch>>('/serials', { query: { q } });
 
 export const importBuilds = (body: ImportRequest) =>
   request<ImportResult>('/imports/builds', { method: 'POST', body });

@@ -1,4 +1,4 @@
-import type { PlanAttachBody, PlanRevisionView, PlanSaveBody, PlanView, QuickPlanCreate, QuickPlanUpdate } from '@busbar/shared';
+import type { Page, PlanAttachBody, PlanRevisionView, PlanSaveBody, PlanView, QuickPlanCreate, QuickPlanSummary, QuickPlanUpdate } from '@busbar/shared';
 import { request } from './client.ts';
 
 export const getBuildPlan = (buildId: number) => request<{ plan: PlanView | null }>(`/builds/${buildId}/plan`);
@@ -8,7 +8,8 @@ export const saveBuildPlan = (buildId: number, body: PlanSaveBody) =>
 
 export const listPlanRevisions = (buildId: number) => request<PlanRevisionView[]>(`/builds/${buildId}/plan/revisions`);
 
-export const listQuickPlans = (locationId?: number) => request<PlanView[]>('/plans', { query: { locationId } });
+export const listQuickPlans = (query: { locationId?: number; page?: number; pageSize?: number }) =>
+  request<Page<QuickPlanSummary>>('/plans', { query: { ...query } });
 
 export const getPlan = (id: number) => request<PlanView>(`/plans/${id}`);
 

@@ -12,6 +12,12 @@ export function positiveInt(value: unknown): number | undefined {
   return Number.isInteger(n) && n > 0 ? n : undefined;
 }
 
+/** A list's count in words: "more than 10,000" once the server stopped counting. */
+export function countLabel(page: Pick<Page<unknown>, 'total' | 'totalCapped'>): string {
+  const total = page.total.toLocaleString('en-US');
+  return page.totalCapped ? `more than ${total}` : total;
+}
+
 interface Paging {
   page: number;
   pageSize: number;
@@ -89,7 +95,7 @@ export function usePagedList<T, Filters extends object>(
     total: result.value?.total ?? 0,
     showSizeChanger: true,
     pageSizeOptions: ['25', '50', '100', '200'],
-    showTotal: (total: number, [from, to]: [number, number]) => `${from}–${to} of ${total}`,
+    showTotal: (_total: number, [from, to]: [number, number]) => `${from}–${to} of ${result.value ? countLabel(result.value) : 0}`,
   }));
 
   /** The rows and paging for the list's Table (`v-bind`); its `change` goes to `onTableChange`. */

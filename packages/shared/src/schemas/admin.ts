@@ -1,9 +1,10 @@
 import { z } from 'zod';
-import { pageQuery } from './common.ts';
+import { cursorQuery, pageQuery } from './common.ts';
 
 export const auditQuery = z.strictObject({
   entity: z.string().trim().max(40).optional(),
   ...pageQuery,
+  ...cursorQuery,
 });
 
 export interface AuditEntry {
@@ -18,7 +19,7 @@ export interface AuditEntry {
   after: unknown;
 }
 
-export const outboxQuery = z.strictObject({ ...pageQuery });
+export const outboxQuery = z.strictObject({ ...pageQuery, ...cursorQuery });
 
 export interface MailEntry {
   id: number;

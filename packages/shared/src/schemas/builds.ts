@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { idSchema, pageQuery } from './common.ts';
+import { cursorQuery, idSchema, pageQuery, pagingOf } from './common.ts';
 import type { Category } from './catalog.ts';
 
 export const BUILD_STATUSES = ['draft', 'quoted', 'booked', 'in_bay', 'quality_check', 'delivered', 'cancelled'] as const;
@@ -111,6 +111,7 @@ export const buildQuery = z.strictObject({
   sort: z.enum(BUILD_SORTS).default('updatedAt'),
   order: z.enum(['asc', 'desc']).default('desc'),
   ...pageQuery,
+  ...cursorQuery,
 });
 export type BuildQuery = z.infer<typeof buildQuery>;
 
@@ -172,7 +173,7 @@ export interface BuildDetail extends BuildView {
   events: BuildEventView[];
 }
 
-export const serialQuery = z.strictObject({ q: z.string().trim().min(2, 'Enter at least 2 characters').max(60) });
+export const serialQuery = z.strictObject({ q: z.string().trim().min(2, 'Enter at least 2 characters').max(60), ...pagingOf(100) });
 
 /** One installed unit found by its serial number. */
 export interface SerialMatch {

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { emailSchema, pageQuery } from './common.ts';
+import { emailSchema, pageQuery, pagingOf } from './common.ts';
 
 /** The fixed list of catalog categories. */
 export const CATEGORIES = [
@@ -143,6 +143,9 @@ export const vendorBody = z.strictObject(vendorFields);
 export type VendorBody = z.infer<typeof vendorBody>;
 export const vendorUpdate = z.strictObject({ ...vendorFields, version: z.int().min(1) });
 export type VendorUpdate = z.infer<typeof vendorUpdate>;
+
+/** Vendors are few: one page of up to 200 holds them all in a pick list. */
+export const vendorQuery = z.strictObject({ ...pagingOf(200, 200) });
 
 export interface VendorView {
   id: number;

@@ -21,16 +21,41 @@ export const newPasswordSchema = z
   .min(12, 'Use at least 12 characters')
   .max(200, 'Use at most 200 characters');
 
-export const pageQuery = {
+/** The most rows one page of any list answers with. */
+export const MAX_PAGE_SIZE = 200;
+
+/**
+ * Lists count matching rows up to this many and then say "more than" (`totalCapped`), and page
+ * numbers reach this far; past it a list is read with `cursor`, each page naming the next.
+ */
+export const COUNT_CAP = 10_000;
+
+/** `page` and `pageSize` of a list, with its own largest page where smaller than MAX_PAGE_SIZE. */
+export const pagingOf = (maxPageSize = MAX_PAGE_SIZE, defaultPageSize = 50) => ({
   page: z.coerce.number().int().min(1).default(1),
-  pageSize: z.coerce.number().int().min(1).max(200).default(50),
-};
+  pageSize: z.coerce
+    .number()
+    .int()
+    .min(1, 'At least 1 row per page')
+    .max(maxPageSize, `At most ${maxPageSize} rows per page`)
+    .default(Math.min(defaultPageSize, maxPageSize)),
+});
+
+export const pageQuery = pagingOf();
+
+/** Where the previous page ended (its `nextCursor`); the page number is then ignored. */
+export const cursorQuery = { cursor: z.string().max(400).optional() };
 
 export interface Page<T> {
   items: T[];
+  /** How many rows match, counted up to COUNT_CAP. */
   total: number;
+  /** True when more than `total` rows match: the count stopped at COUNT_CAP. */
+  totalCapped: boolean;
   page: number;
   pageSize: number;
+  /** On lists read by cursor: what to pass as `cursor` for the rows after this page, or null at the end. */
+  nextCursor?: string | null;
 }
 
 /** The one error shape every failed request answers with. */

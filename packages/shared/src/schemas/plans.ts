@@ -1,6 +1,5 @@
 import { AWG_SIZES, CIRCUIT_LINKS, INSULATION_RATINGS_C, MM2_SIZES, type PlanInput, type PlanResult } from '@busbar/calc';
 import { z } from 'zod';
-import { idSchema } from './common.ts';
 
 interface Bounds {
   min?: number;
@@ -157,8 +156,6 @@ export type QuickPlanCreate = z.infer<typeof quickPlanCreate>;
 
 export const quickPlanUpdate = z.strictObject({ version: z.int().min(1), name: planName, input: planInputSchema });
 export type QuickPlanUpdate = z.infer<typeof quickPlanUpdate>;
-
-export const quickPlanQuery = z.strictObject({ locationId: idSchema.optional() });
 
 export const planAttachBody = z.strictObject({ buildId: z.int().positive({ error: 'Choose a build' }), version: z.int().min(1) });
 export type PlanAttachBody = z.infer<typeof planAttachBody>;
