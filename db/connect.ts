@@ -1,7 +1,7 @@
 import { mkdirSync } from 'node:fs';
 import { dirname } from 'node:path';
 import SQLite from 'better-sqlite3';
-import { CamelCasePlugin, Kysely, Migrator, SqliteDialect } from 'kysely';
+import { CamelCasePlugin, Kysely, Migrator, SqliteDialect, type SqliteDatabase } from 'kysely';
 import { migrations } from './migrations/index.ts';
 import type { Database } from './schema/index.ts';
 
@@ -14,7 +14,37 @@ export function openDatabase(file: string): Db {
   sqlite.pragma('journal_mode = WAL');
   sqlite.pragma('foreign_keys = ON');
   sqlite.pragma('busy_timeout = 5000');
-  return new Kysely<Database>({ dialect: new SqliteDialect({ database: sqlite }), plugins: [new CamelCasePlugin()] });
+  return new Kysely<Database>({ dialect: new SqliteDialect({ database: reusingStatements(sqlite) }), plugins: [new CamelCasePlugin()] });
+}
+
+/** Prepared statements kept per connection; the most used queries stay, the rest are prepared again. */
+const STATEMENTS_KEPT = 500;
+
+/**
+ * The connection as Kysely sees it, with `prepare` answering an already prepared statement for SQL
+ * it has seen (Kysely prepares again for every query). A statement still busy with an unfinished
+ * stream gets a fresh copy instead.
+ */
+function reusingStatements(sqlite: SQLite.Database): SqliteDatabase {
+  const kept = new Map<string, SQLite.Statement>();
+  return {
+    close: () => sqlite.close(),
+    prepare(sql: string) {
+      const statement = kept.get(sql);
+      if (statement && !statement.busy) {
+        // Move it to the back, so the least recently used statement is the first to go.
+        kept.delete(sql);
+        kept.set(sql, statement);
+        return statement;
+      }
+      const fresh = sqlite.prepare(sql);
+      if (!statement) {
+        if (kept.size >= STATEMENTS_KEPT) kept.delete(kept.keys().next().value!);
+        kept.set(sql, fresh);
+      }
+      return fresh;
+    },
+  };
 }
 
 /** Applies every pending migration; throws with the failing migration's name. */

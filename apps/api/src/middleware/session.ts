@@ -1,6 +1,7 @@
 import type { Db } from '@busbar/db';
 import type { Request, RequestHandler } from 'express';
-import { loadViewer, type Viewer } from '../access/viewer.ts';
+import type { Viewer } from '../access/viewer.ts';
+import { cachedViewer } from '../access/viewer-cache.ts';
 import { HttpError } from '../errors.ts';
 
 declare global {
@@ -13,12 +14,12 @@ declare global {
 
 const unauthenticated = () => new HttpError(401, 'unauthenticated', 'Please sign in');
 
-/** Loads the signed-in person; a session of a person deactivated since is ended here. */
+/** Loads the signed-in person (their ability cached, see viewer-cache.ts); a session of a person deactivated since is ended here. */
 export function requireSession(db: Db): RequestHandler {
   return async (req, _res, next) => {
     const userId = req.session.userId;
     if (!userId) throw unauthenticated();
-    const viewer = await loadViewer(db, userId);
+    const viewer = await cachedViewer(db, userId);
     if (!viewer) {
       await new Promise<void>((resolve) => req.session.destroy(() => resolve()));
       throw unauthenticated();

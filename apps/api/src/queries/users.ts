@@ -1,5 +1,6 @@
 import type { Db } from '@busbar/db';
 import type { PersonStatus } from '@busbar/shared';
+import { forgetViewers } from '../access/viewer-cache.ts';
 import { contains } from './search.ts';
 
 export interface UserRow {
@@ -50,10 +51,12 @@ export async function insertInvitedUser(db: Db, values: { email: string; name: s
 }
 
 export async function setUserStatus(db: Db, id: number, status: PersonStatus): Promise<void> {
+  forgetViewers();
   await db.updateTable('users').set({ status }).where('id', '=', id).execute();
 }
 
 export async function activateWithPassword(db: Db, id: number, passwordHash: string): Promise<void> {
+  forgetViewers();
   await db.updateTable('users').set({ passwordHash, status: 'active' }).where('id', '=', id).execute();
 }
 
