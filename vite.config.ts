@@ -1,11 +1,12 @@
 import vue from '@vitejs/plugin-vue';
 import { defineConfig } from 'vite';
+import { precompress } from './scripts/precompress.ts';
 
 const apiPort = process.env.PORT ?? '3000';
 
 // The web app's source lives in apps/web/src; the repo root is Vite's root so index.html stays at the top.
 export default defineConfig({
-  plugins: [vue()],
+  plugins: [vue(), precompress()],
   publicDir: 'apps/web/public',
   resolve: { dedupe: ['vue'] },
   build: { outDir: 'dist/web', emptyOutDir: true, chunkSizeWarningLimit: 1500 },

@@ -1,0 +1,111 @@
+import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { brotliDecompressSync, gunzipSync } from 'node:zlib';
+import { get, type IncomingHttpHeaders, type Server } from 'node:http';
+import type { AddressInfo } from 'node:net';
+import { DEMO_PASSWORD } from '@busbar/db';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { precompressDir } from '../../scripts/precompress.ts';
+import { startHarness, type Harness } from '../support/api-harness.ts';
+import { SIGN_INS } from '../support/staff-fixtures.ts';
+
+const dist = mkdtempSync(join(tmpdir(), 'busbar-dist-'));
+const SCRIPT = `export const rows = [${Array.from({ length: 400 }, (_, i) => `{ id: ${i}, label: 'row ${i}' }`).join(', ')}];\n`;
+const PAGE = `<!doctype html><html><head><title>Busbar</title><script type="module" src="/assets/index-Bq3x9Z1a.js"></script></head><body><div id="app"></div>${'<!-- padding -->'.repeat(80)}</body></html>`;
+let h: Harness;
+let server: Server;
+
+beforeAll(async () => {
+  // A built app as Vite and its precompress plugin leave it: hashed files under assets/, .br and .gz beside them.
+  mkdirSync(join(dist, 'assets'));
+  writeFileSync(join(dist, 'index.html'), PAGE);
+  writeFileSync(join(dist, 'assets', 'index-Bq3x9Z1a.js'), SCRIPT);
+  writeFileSync(join(dist, 'assets', 'small-C4d5E6f7.css'), 'body{margin:0}');
+  precompressDir(dist);
+  h = await startHarness({ webDist: dist });
+  server = h.app.listen(0, '127.0.0.1');
+  await new Promise((resolve) => server.once('listening', resolve));
+});
+afterAll(async () => {
+  await new Promise((resolve) => server.close(resolve));
+  await h.close();
+  rmSync(dist, { recursive: true, force: true });
+});
+
+/** Fetches raw bytes over a real connection, undecoded, so the test sees what went over the wire. */
+function raw(path: string, acceptEncoding = 'identity', cookie = ''): Promise<{ status: number; headers: IncomingHttpHeaders; body: Buffer }> {
+  return new Promise((resolve, reject) => {
+    const { port } = server.address() as AddressInfo;
+    get({ host: '127.0.0.1', port, path, headers: { 'Accept-Encoding': acceptEncoding, Cookie: cookie } }, (res) => {
+      const chunks: Buffer[] = [];
+      res.on('data', (c: Buffer) => chunks.push(c));
+      res.on('end', () => resolve({ status: res.statusCode!, headers: res.headers, body: Buffer.concat(chunks) }));
+    }).on('error', reject);
+  });
+}
+
+describe('the built web app', () => {
+  it('sends hashed assets brotli- or gzip-compressed as asked, cached for a year as immutable', async () => {
+    const br = await raw('/assets/index-Bq3x9Z1a.js', 'gzip, deflate, br');
+    expect(br.status).toBe(200);
+    expect(br.headers['content-encoding']).toBe('br');
+    expect(br.headers['content-type']).toMatch(/javascript/);
+    expect(br.headers['cache-control']).toBe('public, max-age=31536000, immutable');
+    expect(br.headers['vary']).toMatch(/Accept-Encoding/i);
+    expect(brotliDecompressSync(br.body).toString()).toBe(SCRIPT);
+    expect(br.body.length).toBeLessThan(SCRIPT.length / 3);
+
+    const gz = await raw('/assets/index-Bq3x9Z1a.js', 'gzip');
+    expect(gz.headers['content-encoding']).toBe('gzip');
+    expect(gunzipSync(gz.body).toString()).toBe(SCRIPT);
+
+    const plain = await raw('/assets/index-Bq3x9Z1a.js');
+    expect(plain.headers['content-encoding']).toBeUndefined();
+    expect(plain.body.toString()).toBe(SCRIPT);
+    expect(plain.headers['cache-control']).toBe('public, max-age=31536000, immutable');
+  });
+
+  it('sends a tiny asset as it is, and answers 404 (not the page) for an asset that does not exist', async () => {
+    const small = await raw('/assets/small-C4d5E6f7.css', 'br');
+    expect(small.headers['content-encoding']).toBeUndefined();
+    expect(small.headers['content-type']).toMatch(/text\/css/);
+    expect(small.body.toString()).toBe('body{margin:0}');
+    expect((await raw('/assets/index-OLDHASH1.js', 'br')).status).toBe(404);
+    expect((await raw('/assets/..%2Findex.html', 'br')).status).toBe(404);
+  });
+
+  it('sends index.html for every screen with no-cache, compressed when asked', async () => {
+    for (const path of ['/', '/builds/42', '/index.html']) {
+      const page = await raw(path, 'br');
+      expect(page.status).toBe(200);
+      expect(page.headers['cache-control']).toBe('no-cache');
+      expect(page.headers['content-type']).toMatch(/text\/html/);
+      const body = page.headers['content-encoding'] === 'br' ? brotliDecompressSync(page.body).toString() : page.body.toString();
+      expect(body).toBe(PAGE);
+    }
+    expect((await raw('/builds/42', 'br')).headers['content-encoding']).toBe('br');
+    expect((await raw('/builds/42', 'gzip;q=1, br;q=0')).headers['content-encoding']).toBe('gzip');
+  });
+});
+
+describe('API answers', () => {
+  it('compresses a large JSON answer with the encoding asked for and leaves a small one alone', async () => {
+    const signIn = await (await h.agent()).post('/api/session').send({ email: SIGN_INS.owner, password: DEMO_PASSWORD });
+    expect(signIn.status).toBe(200);
+    const cookie = ([] as string[]).concat(signIn.headers['set-cookie'] ?? []).map((c) => c.split(';')[0]).join('; ');
+    const staff = await raw('/api/staff', 'br', cookie);
+    expect(staff.status).toBe(200);
+    expect(staff.headers['content-encoding']).toBe('br');
+    expect(staff.headers['content-type']).toMatch(/application\/json/);
+    const people = JSON.parse(brotliDecompressSync(staff.body).toString());
+    expect(people.items.length).toBeGreaterThan(10);
+
+    const gz = await raw('/api/staff', 'gzip', cookie);
+    expect(JSON.parse(gunzipSync(gz.body).toString())).toEqual(people);
+
+    const small = await raw('/api/health', 'br');
+    expect(small.headers['content-encoding']).toBeUndefined();
+    expect(JSON.parse(small.body.toString())).toBeTruthy();
+  });
+});
