@@ -19,11 +19,11 @@ export function messagesFromIssues(issues: readonly { path: PropertyKey[]; messa
 
 /**
  * The computation's refusal as a field message: its message starts with the field it names
- * (`loads[0].hoursPerDay must fit in its 6 active hours; got 8`).
+ * (`loads[0].hoursPerDay must fit in its 6 active hours; got 8`, `circuits[1].link: the plan has no inverter to feed`).
  */
 export function messageFromRangeError(error: RangeError): FieldMessages {
   const [name = '', ...rest] = error.message.split(' ');
-  return { [name.replace(/\[(\d+)\]/g, '.$1')]: capitalised(rest.join(' ')) };
+  return { [name.replace(/:$/, '').replace(/\[(\d+)\]/g, '.$1')]: capitalised(rest.join(' ')) };
 }
 
 /** The server's field messages about the plan's input, without the `input.` its body wraps them in. */
