@@ -5,6 +5,7 @@ import * as createPowerPlans from './003-create-power-plans.ts';
 import * as indexLists from './004-index-lists.ts';
 import * as createBuildSearch from './005-create-build-search.ts';
 import * as dropPlanResults from './006-drop-plan-results.ts';
+import * as createClaims from './007-create-claims.ts';
 
 /** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
 export const migrations: Record<string, Migration> = {
@@ -14,4 +15,5 @@ export const migrations: Record<string, Migration> = {
   '004-index-lists': indexLists,
   '005-create-build-search': createBuildSearch,
   '006-drop-plan-results': dropPlanResults,
+  '007-create-claims': createClaims,
 };

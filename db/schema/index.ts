@@ -2,10 +2,12 @@ import type { AuditLogTable } from './audit-log.ts';
 import type { BuildEventsTable } from './build-events.ts';
 import type { BuildItemsTable } from './build-items.ts';
 import type { BuildsTable } from './builds.ts';
+import type { ClaimEventsTable } from './claim-events.ts';
 import type { CatalogItemsTable } from './catalog-items.ts';
 import type { CustomersTable } from './customers.ts';
 import type { VehiclesTable } from './vehicles.ts';
 import type { VendorsTable } from './vendors.ts';
+import type { WarrantyClaimsTable } from './warranty-claims.ts';
 import type { InvitesTable } from './invites.ts';
 import type { LocationsTable } from './locations.ts';
 import type { MailLogTable } from './mail-log.ts';
@@ -34,4 +36,6 @@ export interface Database {
   buildEvents: BuildEventsTable;
   powerPlans: PowerPlansTable;
   powerPlanRevisions: PowerPlanRevisionsTable;
+  warrantyClaims: WarrantyClaimsTable;
+  claimEvents: ClaimEventsTable;
 }

@@ -10,4 +10,6 @@ export interface LocationsTable {
   laborRateCents: number;
   /** Royalty owed to the network, in basis points of revenue (650 = 6.5 %). */
   royaltyBasisPoints: number;
+  /** Claims whose credit is above this a location lead may not approve alone (the regional manager does). */
+  claimApprovalLimitCents: Generated<number>;
 }

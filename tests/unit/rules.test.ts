@@ -32,6 +32,9 @@ describe('defineRulesFor', () => {
     expect(ability.can('read', build(2))).toBe(false);
     expect(ability.can('create', staffRole('technician', 1))).toBe(true);
     expect(ability.can('create', staffRole('warranty_clerk', 1))).toBe(true);
+    expect(ability.can('approve', subject('Claim', { locationId: 1, aboveLimit: false }))).toBe(true);
+    expect(ability.can('approve', subject('Claim', { locationId: 1, aboveLimit: true }))).toBe(false);
+    expect(ability.can('send', subject('Claim', { locationId: 1, aboveLimit: true }))).toBe(true);
     expect(ability.can('create', staffRole('location_lead', 1))).toBe(false);
     expect(ability.can('create', staffRole('technician', 2))).toBe(false);
     expect(ability.can('read', 'AuditLog')).toBe(false);
@@ -43,6 +46,8 @@ describe('defineRulesFor', () => {
     expect(ability.can('read', build(3))).toBe(false);
     expect(ability.can('update', build(1))).toBe(false);
     expect(ability.can('approve', subject('Claim', { locationId: 1 }))).toBe(true);
+    expect(ability.can('approve', subject('Claim', { locationId: 1, aboveLimit: true }))).toBe(true);
+    expect(ability.can('approve', subject('Claim', { locationId: 3, aboveLimit: false }))).toBe(false);
     expect(ability.can('create', staffRole('location_lead', 2))).toBe(true);
     expect(ability.can('create', staffRole('location_lead', 3))).toBe(false);
     expect(ability.can('create', staffRole('technician', 1))).toBe(false);

@@ -1,5 +1,5 @@
 export { buildTotals, type BuildTotals, type PricedLine } from './build-totals.ts';
-export { addWorkdays, DAY_MS, dayOfIso, isoDay, localDay, localMoment, monthOf, weekday } from './local-time.ts';
+export { addMonthsIso, addWorkdays, DAY_MS, dayOfIso, isoDay, localDay, localMoment, monthOf, weekday } from './local-time.ts';
 export { ampacityAwgForMm2, conductorAmpacityA, INSULATION_RATINGS_C, type AmpacityInput, type InsulationRatingC } from './ampacity.ts';
 export {
   bankNominalV,

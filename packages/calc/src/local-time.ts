@@ -82,3 +82,11 @@ export function addWorkdays(day: number, count: number): number {
   }
   return next;
 }
+
+/** The date `months` calendar months after a YYYY-MM-DD date, the day kept or, past the month's end, its last day (2024-01-31 + 1 month = 2024-02-29): a warranty's end. */
+export function addMonthsIso(date: string, months: number): string {
+  const [year, month, day] = date.split('-').map(Number) as [number, number, number];
+  const monthIndex = year * 12 + (month - 1) + months;
+  const lastDay = new Date(Date.UTC(Math.floor(monthIndex / 12), (monthIndex % 12) + 1, 0)).getUTCDate();
+  return isoDay(Math.floor(Date.UTC(Math.floor(monthIndex / 12), monthIndex % 12, Math.min(day, lastDay)) / DAY_MS));
+}

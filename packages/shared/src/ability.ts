@@ -82,7 +82,9 @@ const grantsByRole: Record<Role, (b: Builder, a: RuleAssignment, person: RulePer
     can('read', 'Location', { id: { $in: a.locationIds } });
     can(['read', 'create', 'update'], ['Build', 'Customer', 'Vehicle', 'Claim', 'Plan'], at);
     can('plan', 'Build', at);
-    can(['approve', 'send'], 'Claim', at);
+    can('send', 'Claim', at);
+    // Up to the location's approval limit; a claim's subject says whether its credit is above it.
+    can('approve', 'Claim', { ...at, aboveLimit: { $ne: true } });
     can('read', ['CatalogItem', 'Vendor']);
     can('read', 'RoleAssignment', at);
     can(['create', 'delete'], 'RoleAssignment', { ...at, role: { $in: LOCATION_STAFF_ROLES } });

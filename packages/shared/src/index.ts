@@ -11,3 +11,4 @@ export * from './schemas/builds.ts';
 export * from './schemas/imports.ts';
 export * from './schemas/plans.ts';
 export * from './schemas/plan-lists.ts';
+export * from './schemas/claims.ts';

@@ -18,7 +18,7 @@ export async function locationToAddAt(db: Db, viewer: Viewer, locationId: number
 export type LocationScope = 'all' | number[];
 
 /** Where the person may do `action` on records of `type` (or on its `field`): 'all' when that is every location. */
-export async function locationScope(db: Db, viewer: Viewer, action: 'read' | 'create', type: 'Build' | 'Customer' | 'Plan', field?: string): Promise<LocationScope> {
+export async function locationScope(db: Db, viewer: Viewer, action: 'read' | 'create', type: 'Build' | 'Customer' | 'Plan' | 'Claim', field?: string): Promise<LocationScope> {
   const all = (await db.selectFrom('locations').select('id').execute()).map((l) => l.id);
   const ids = all.filter((locationId) => viewer.ability.can(action, subject(type, { locationId }), field));
   return ids.length === all.length ? 'all' : ids;

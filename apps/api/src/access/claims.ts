@@ -1,0 +1,25 @@
+import type { Db } from '@busbar/db';
+import { subject } from '@casl/ability';
+import type { ClaimDetail } from '@busbar/shared';
+import { notFound } from '../errors.ts';
+import { claimEvents, findClaim, type ClaimRow } from '../queries/claims.ts';
+import type { Viewer } from './viewer.ts';
+
+/**
+ * A claim as the rules see it: its location, and whether the credit to approve is above the
+ * location's limit (a lead approves up to it, the regional manager above it).
+ */
+export const claimSubject = (row: Pick<ClaimRow, 'locationId' | 'approvalLimitCents'>, creditCents = 0) =>
+  subject('Claim', { locationId: row.locationId, aboveLimit: creditCents > row.approvalLimitCents });
+
+/** A claim the person may read, or 404 — also for a claim of a location they cannot see. */
+export async function loadClaim(db: Db, viewer: Viewer, id: number): Promise<ClaimRow> {
+  const row = await findClaim(db, id);
+  if (!row || !viewer.ability.can('read', claimSubject(row))) throw notFound('claim');
+  return row;
+}
+
+export async function claimDetail(db: Db, viewer: Viewer, id: number): Promise<ClaimDetail> {
+  const { approvalLimitCents: _, ...claim } = await loadClaim(db, viewer, id);
+  return { ...claim, events: await claimEvents(db, id) };
+}

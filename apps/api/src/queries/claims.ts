@@ -1,0 +1,94 @@
+import { isoDay, localDay } from '@busbar/calc';
+import type { Db } from '@busbar/db';
+import type { ClaimEventView, ClaimQuery, ClaimStatus, ClaimView, Page } from '@busbar/shared';
+import { stale } from '../errors.ts';
+import type { LocationScope } from '../access/locations.ts';
+
+/** A claim as stored, with what it names, plus its location's approval limit (for the rules only). */
+export type ClaimRow = ClaimView & { approvalLimitCents: number };
+
+function claimsWithNames(db: Db) {
+  return db
+    .selectFrom('warrantyClaims as w')
+    .innerJoin('builds as b', 'b.id', 'w.buildId')
+    .innerJoin('buildItems as i', 'i.id', 'w.buildItemId')
+    .innerJoin('catalogItems as ci', 'ci.id', 'i.catalogItemId')
+    .innerJoin('vendors as v', 'v.id', 'ci.vendorId')
+    .innerJoin('locations as l', 'l.id', 'w.locationId')
+    .select([
+      'w.id', 'w.number', 'w.locationId', 'w.buildId', 'b.number as buildNumber', 'w.buildItemId', 'i.sku', 'ci.name as itemName',
+      'i.serialNumber', 'ci.vendorId', 'v.name as vendorName', 'b.deliveredAt as installedOn', 'w.failedOn', 'w.failureMode',
+      'w.coverage', 'w.symptoms', 'w.foundHow', 'w.laborHours', 'w.outOfWarranty', 'w.status', 'w.vendorRmaNumber',
+      'w.creditRequestedCents', 'w.creditApprovedCents', 'w.creditReceivedCents', 'w.createdAt', 'w.updatedAt', 'w.version',
+      'l.claimApprovalLimitCents as approvalLimitCents', 'l.timeZone',
+    ]);
+}
+
+type Raw = Awaited<ReturnType<ReturnType<typeof claimsWithNames>['executeTakeFirstOrThrow']>>;
+// The unit went in on its build's delivery day, in the location's own zone.
+const toRow = ({ outOfWarranty, installedOn, timeZone, ...raw }: Raw): ClaimRow => ({
+  ...raw,
+  outOfWarranty: outOfWarranty === 1,
+  installedOn: installedOn ? isoDay(localDay(timeZone, Date.parse(installedOn))) : null,
+});
+
+export async function findClaim(db: Db, id: number): Promise<ClaimRow | undefined> {
+  const raw = await claimsWithNames(db).where('w.id', '=', id).executeTakeFirst();
+  return raw && toRow(raw);
+}
+
+/** One page of the claims at the given locations, oldest open work first. */
+export async function listClaims(db: Db, scope: LocationScope, query: ClaimQuery): Promise<Page<ClaimRow>> {
+  const page = { page: query.page, pageSize: query.pageSize };
+  if (scope !== 'all' && scope.length === 0) return { items: [], total: 0, totalCapped: false, ...page };
+  const filtered = claimsWithNames(db).where((eb) => {
+    const conditions = scope === 'all' ? [] : [eb('w.locationId', 'in', scope)];
+    if (query.status) conditions.push(eb('w.status', '=', query.status));
+    if (query.coverage) conditions.push(eb('w.coverage', '=', query.coverage));
+    if (query.failureMode) conditions.push(eb('w.failureMode', '=', query.failureMode));
+    if (query.locationId) conditions.push(eb('w.locationId', '=', query.locationId));
+    if (query.buildId) conditions.push(eb('w.buildId', '=', query.buildId));
+    return eb.and(conditions);
+  });
+  const [items, count] = await Promise.all([
+    filtered.orderBy('w.createdAt', 'asc').orderBy('w.id', 'asc').limit(query.pageSize).offset((query.page - 1) * query.pageSize).execute(),
+    filtered.clearSelect().select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow(),
+  ]);
+  return { items: items.map(toRow), total: Number(count.n), totalCapped: false, ...page };
+}
+
+export function claimEvents(db: Db, claimId: number): Promise<ClaimEventView[]> {
+  return db
+    .selectFrom('claimEvents as e')
+    .leftJoin('users as u', 'u.id', 'e.actorId')
+    .select(['e.at', 'u.name as actorName', 'e.fromStatus', 'e.toStatus', 'e.note'])
+    .where('e.claimId', '=', claimId)
+    .orderBy('e.id')
+    .execute();
+}
+
+export async function addClaimEvent(db: Db, event: { claimId: number; at: string; actorId: number; fromStatus: ClaimStatus | null; toStatus: ClaimStatus; note: string }) {
+  await db.insertInto('claimEvents').values(event).execute();
+}
+
+/** The next number of a location's claims: its code, W and a five-digit sequence. */
+export async function nextClaimNumber(db: Db, location: { id: number; code: string }): Promise<{ sequence: number; number: string }> {
+  const row = await db.selectFrom('warrantyClaims').select((eb) => eb.fn.max('sequence').as('last')).where('locationId', '=', location.id).executeTakeFirst();
+  const sequence = Number(row?.last ?? 0) + 1;
+  return { sequence, number: `${location.code}-W${String(sequence).padStart(5, '0')}` };
+}
+
+type ClaimChange = Partial<{
+  [K in 'failedOn' | 'failureMode' | 'coverage' | 'symptoms' | 'foundHow' | 'laborHours' | 'creditRequestedCents' | 'vendorRmaNumber' | 'status' | 'creditApprovedCents' | 'creditReceivedCents']: ClaimRow[K];
+}>;
+
+/** Applies a change made against `version`; a claim changed since answers 409 stale. */
+export async function changeClaim(db: Db, id: number, version: number, at: string, change: ClaimChange): Promise<void> {
+  const result = await db
+    .updateTable('warrantyClaims')
+    .set((eb) => ({ ...change, updatedAt: at, version: eb('version', '+', 1) }))
+    .where('id', '=', id)
+    .where('version', '=', version)
+    .executeTakeFirst();
+  if (Number(result.numUpdatedRows) === 0) throw stale();
+}

@@ -1,0 +1,30 @@
+import type { ClaimStatus, Coverage, FailureMode } from '@busbar/shared';
+import type { Generated } from 'kysely';
+
+export interface WarrantyClaimsTable {
+  id: Generated<number>;
+  locationId: number;
+  /** Per location; the number is `<location code>-W<five digits>`. */
+  sequence: number;
+  number: string;
+  buildId: number;
+  /** The failed unit: one line of the build it came from. */
+  buildItemId: number;
+  failedOn: string;
+  failureMode: FailureMode;
+  coverage: Coverage;
+  symptoms: string;
+  foundHow: string;
+  laborHours: number;
+  /** 1 when the unit was past its warranty months from delivery when the claim was logged. */
+  outOfWarranty: number;
+  status: ClaimStatus;
+  vendorRmaNumber: Generated<string>;
+  creditRequestedCents: number;
+  creditApprovedCents: Generated<number | null>;
+  creditReceivedCents: Generated<number | null>;
+  createdBy: number | null;
+  createdAt: string;
+  updatedAt: string;
+  version: Generated<number>;
+}

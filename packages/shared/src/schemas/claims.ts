@@ -1,0 +1,159 @@
+import { z } from 'zod';
+import { idSchema, pagingOf } from './common.ts';
+
+/** Where a warranty claim stands, in order (DESIGN.md). */
+export const CLAIM_STATUSES = ['logged', 'evidence_ready', 'sent_to_vendor', 'approved', 'denied', 'credited', 'closed'] as const;
+export type ClaimStatus = (typeof CLAIM_STATUSES)[number];
+
+export const CLAIM_STATUS_LABELS: Record<ClaimStatus, string> = {
+  logged: 'Logged',
+  evidence_ready: 'Evidence ready',
+  sent_to_vendor: 'Sent to vendor',
+  approved: 'Approved',
+  denied: 'Denied',
+  credited: 'Credited',
+  closed: 'Closed',
+};
+
+/** Who pays for a failure. */
+export const COVERAGES = ['vendor_defect', 'workmanship', 'goodwill'] as const;
+export type Coverage = (typeof COVERAGES)[number];
+export const COVERAGE_LABELS: Record<Coverage, string> = { vendor_defect: "Vendor's defect", workmanship: "Shop's workmanship", goodwill: 'Goodwill' };
+
+/** Busbar's own list of the ways a component fails. */
+export const FAILURE_MODES = [
+  'will_not_charge',
+  'overheating',
+  'cell_or_bms_fault',
+  'terminal_corrosion',
+  'loose_or_burnt_connection',
+  'water_ingress',
+  'physical_damage',
+  'firmware_fault',
+  'other',
+] as const;
+export type FailureMode = (typeof FAILURE_MODES)[number];
+export const FAILURE_MODE_LABELS: Record<FailureMode, string> = {
+  will_not_charge: 'Will not charge',
+  overheating: 'Overheating',
+  cell_or_bms_fault: 'Cell or BMS fault',
+  terminal_corrosion: 'Terminal corrosion',
+  loose_or_burnt_connection: 'Loose or burnt connection',
+  water_ingress: 'Water ingress',
+  physical_damage: 'Physical damage',
+  firmware_fault: 'Firmware fault',
+  other: 'Other',
+};
+
+/**
+ * The claim workflow and the ability each step needs: the clerk prepares (`update`) and sends
+ * (`send`, through "Send to vendor"); the vendor's answer is recorded by someone who may `approve`
+ * (a lead up to the location's limit, above it the regional manager); the clerk records the credit.
+ */
+export const CLAIM_TRANSITIONS: readonly { from: ClaimStatus; to: ClaimStatus; action: 'update' | 'send' | 'approve' }[] = [
+  { from: 'logged', to: 'evidence_ready', action: 'update' },
+  { from: 'evidence_ready', to: 'logged', action: 'update' },
+  { from: 'evidence_ready', to: 'sent_to_vendor', action: 'send' },
+  { from: 'sent_to_vendor', to: 'approved', action: 'approve' },
+  { from: 'sent_to_vendor', to: 'denied', action: 'approve' },
+  { from: 'approved', to: 'credited', action: 'update' },
+  { from: 'credited', to: 'closed', action: 'update' },
+  { from: 'denied', to: 'closed', action: 'update' },
+];
+
+export function findClaimTransition(from: ClaimStatus, to: ClaimStatus) {
+  return CLAIM_TRANSITIONS.find((t) => t.from === from && t.to === to);
+}
+
+const isoDate = z.iso.date('Use a date like 2026-03-31');
+const text = (max: number) => z.string().trim().max(max, `Keep it to ${max} characters`);
+const cents = z.int('Enter an amount in cents').min(0, 'Cannot be negative').max(100_000_000, 'Too large');
+
+export const claimCreate = z.strictObject({
+  buildItemId: z.int().positive({ error: 'Choose the failed component' }),
+  failedOn: isoDate,
+  failureMode: z.enum(FAILURE_MODES, { error: 'Choose how it failed' }),
+  coverage: z.enum(COVERAGES, { error: 'Choose who pays' }),
+  symptoms: text(4000).min(1, 'Describe what the customer or the shop saw'),
+  foundHow: text(1000).default(''),
+  laborHours: z.number('Enter hours').min(0, 'Cannot be negative').max(100, 'At most 100 hours').default(0),
+  creditRequestedCents: cents.default(0),
+});
+export type ClaimCreate = z.infer<typeof claimCreate>;
+
+/** Fields that may change while a claim is open; every edit carries the version it was made against. */
+export const claimUpdate = z.strictObject({
+  version: z.int().min(1),
+  failedOn: isoDate.optional(),
+  failureMode: z.enum(FAILURE_MODES, { error: 'Choose how it failed' }).optional(),
+  coverage: z.enum(COVERAGES, { error: 'Choose who pays' }).optional(),
+  symptoms: text(4000).min(1, 'Describe what the customer or the shop saw').optional(),
+  foundHow: text(1000).optional(),
+  laborHours: z.number('Enter hours').min(0, 'Cannot be negative').max(100, 'At most 100 hours').optional(),
+  creditRequestedCents: cents.optional(),
+  vendorRmaNumber: text(80).optional(),
+});
+export type ClaimUpdate = z.infer<typeof claimUpdate>;
+
+/** A move along the workflow; approving records the credit the vendor grants, crediting the credit received. */
+export const claimStatusChange = z.strictObject({
+  version: z.int().min(1),
+  to: z.enum(CLAIM_STATUSES, { error: 'Choose a status' }),
+  note: text(2000).default(''),
+  creditApprovedCents: cents.optional(),
+  creditReceivedCents: cents.optional(),
+});
+export type ClaimStatusChange = z.infer<typeof claimStatusChange>;
+
+export const claimQuery = z.strictObject({
+  status: z.enum(CLAIM_STATUSES).optional(),
+  coverage: z.enum(COVERAGES).optional(),
+  failureMode: z.enum(FAILURE_MODES).optional(),
+  locationId: idSchema.optional(),
+  buildId: idSchema.optional(),
+  ...pagingOf(100),
+});
+export type ClaimQuery = z.infer<typeof claimQuery>;
+
+export interface ClaimView {
+  id: number;
+  number: string;
+  locationId: number;
+  buildId: number;
+  buildNumber: string;
+  buildItemId: number;
+  sku: string;
+  itemName: string;
+  serialNumber: string | null;
+  vendorId: number;
+  vendorName: string;
+  installedOn: string | null;
+  failedOn: string;
+  failureMode: FailureMode;
+  coverage: Coverage;
+  symptoms: string;
+  foundHow: string;
+  laborHours: number;
+  /** Past the catalog item's warranty months from the delivery date when logged. */
+  outOfWarranty: boolean;
+  status: ClaimStatus;
+  vendorRmaNumber: string;
+  creditRequestedCents: number;
+  creditApprovedCents: number | null;
+  creditReceivedCents: number | null;
+  createdAt: string;
+  updatedAt: string;
+  version: number;
+}
+
+export interface ClaimEventView {
+  at: string;
+  actorName: string | null;
+  fromStatus: ClaimStatus | null;
+  toStatus: ClaimStatus;
+  note: string;
+}
+
+export interface ClaimDetail extends ClaimView {
+  events: ClaimEventView[];
+}

@@ -1,0 +1,39 @@
+import type { Db } from '@busbar/db';
+import { addCustomerWithVehicle } from './build-fixtures.ts';
+import { addCatalogItem, addVendor } from './catalog-fixtures.ts';
+
+let serial = 0;
+
+/** A delivered build at a location with one serialized unit on it, straight in the database. */
+export async function addDeliveredUnit(db: Db, locationId: number, { deliveredAt = '2026-03-02T00:00:00.000Z', warrantyMonths = 24 } = {}) {
+  const n = ++serial;
+  const vendor = await addVendor(db);
+  const item = await addCatalogItem(db, { vendorId: vendor.id, warrantyMonths });
+  const { customer, vehicle } = await addCustomerWithVehicle(db, locationId);
+  const location = await db.selectFrom('locations').select(['code', 'laborRateCents']).where('id', '=', locationId).executeTakeFirstOrThrow();
+  const sequence = 90_000 + n;
+  const build = await db
+    .insertInto('builds')
+    .values({
+      locationId,
+      sequence,
+      number: `${location.code}-${sequence}`,
+      customerId: customer.id,
+      vehicleId: vehicle.id,
+      status: 'delivered',
+      bookedFor: deliveredAt.slice(0, 10),
+      startedAt: deliveredAt,
+      deliveredAt,
+      laborRateCents: location.laborRateCents,
+      createdAt: deliveredAt,
+      updatedAt: deliveredAt,
+    })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  const unit = await db
+    .insertInto('buildItems')
+    .values({ buildId: build.id, catalogItemId: item.id, sku: item.sku, quantity: 1, serialNumber: `SN-CLAIM-${n}`, unitPriceCents: item.unitPriceCents, unitCostCents: item.unitCostCents, createdAt: deliveredAt })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  return { buildId: build.id, buildItemId: unit.id, vendor, item };
+}
