@@ -1,12 +1,16 @@
 import { SAFETY_CAUTION, type PlanInput } from '@busbar/calc';
 import type { Locator, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { addCatalogItem, addVendor } from '../support/catalog-fixtures.ts';
 import { choose, startE2e, type E2e } from '../support/e2e-harness.ts';
 
 let e2e: E2e;
 
 beforeAll(async () => {
   e2e = await startE2e();
+  // A bank size no common step has, so a recommendation rounded to it can only come from the catalog.
+  const vendor = await addVendor(e2e.harness.db);
+  await addCatalogItem(e2e.harness.db, { vendorId: vendor.id, specs: { chemistry: 'lifepo4', capacityAh: 180, nominalV: 12.8 } });
 });
 afterAll(async () => {
   await e2e?.close();
@@ -104,7 +108,10 @@ describe('the planner on unsafe plans', () => {
     const cold = findings(page).filter({ hasText: 'below 0 °C' });
     await expect.poll(() => texts(cold), { timeout: 5000 }).toEqual([expect.stringMatching(/^Critical\s*The trip goes down to -10 °C: charging the 100 Ah LiFePO4 bank below 0 °C/)]);
     const recommended = page.getByRole('region', { name: 'Busbar recommends' });
-    expect(await recommended.getByText(/^\d+ Ah LiFePO4, self-heating$/).count()).toBe(1);
+    // Rounded up to the LiFePO4 size the catalog sells, as the server does.
+    await expect
+      .poll(async () => (await recommended.locator('dd').first().innerText()).replace(/\s+/g, ' '), { timeout: 5000 })
+      .toMatch(/^180 Ah LiFePO4, self-heating At least 1[2-7]\d Ah needed, rounded up to the next size in the shop's catalog\./);
     // The caution stands beside the recommendation in a quick plan as in a build's plan.
     expect(await page.locator('[role="note"] + div [aria-labelledby="plan-recommended"]').count()).toBe(1);
     expect(await verdict(page).getByText(SAFETY_CAUTION).count()).toBe(1);

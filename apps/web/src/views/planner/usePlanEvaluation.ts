@@ -1,14 +1,18 @@
-import { evaluatePlan, type PlanInput, type PlanResult } from '@busbar/calc';
+import { evaluatePlan, type PlanInput, type PlanResult, type PlanStock } from '@busbar/calc';
 import { planInputSchema } from '@busbar/shared';
 import { onBeforeUnmount, ref, shallowRef, watch } from 'vue';
 import { messageFromRangeError, messagesFromIssues, type FieldMessages } from './planErrors.ts';
+import { usePlanStock } from './usePlanStock.ts';
 
-/** Checks a plan with the shared schema, then with the computation itself; answers the result or the messages. */
-export function checkPlan(input: unknown): { result: PlanResult; input: PlanInput } | { messages: FieldMessages } {
+/**
+ * Checks a plan with the shared schema, then with the computation itself (rounding to the sizes in
+ * `stock`, as the server does); answers the result or the messages.
+ */
+export function checkPlan(input: unknown, stock?: PlanStock): { result: PlanResult; input: PlanInput } | { messages: FieldMessages } {
   const parsed = planInputSchema.safeParse(input);
   if (!parsed.success) return { messages: messagesFromIssues(parsed.error.issues) };
   try {
-    return { result: evaluatePlan(parsed.data), input: parsed.data };
+    return { result: evaluatePlan(parsed.data, { stock }), input: parsed.data };
   } catch (error) {
     if (error instanceof RangeError) return { messages: messageFromRangeError(error) };
     throw error;
@@ -16,10 +20,12 @@ export function checkPlan(input: unknown): { result: PlanResult; input: PlanInpu
 }
 
 /**
- * The plan evaluated in the browser as the person types, after a short pause. While an input is
- * wrong the last good result stays on screen, marked as out of date.
+ * The plan evaluated in the browser as the person types, after a short pause, with the catalog's
+ * sizes once they arrive. While an input is wrong the last good result stays on screen, marked as
+ * out of date.
  */
 export function usePlanEvaluation(input: () => unknown, delayMs = 150) {
+  const stock = usePlanStock();
   const result = shallowRef<PlanResult | null>(null);
   const messages = ref<FieldMessages>({});
   const outOfDate = ref(false);
@@ -29,7 +35,7 @@ export function usePlanEvaluation(input: () => unknown, delayMs = 150) {
 
   function evaluate() {
     pending.value = false;
-    const checked = checkPlan(input());
+    const checked = checkPlan(input(), stock.value);
     if ('result' in checked) {
       result.value = checked.result;
       messages.value = {};
@@ -48,6 +54,7 @@ export function usePlanEvaluation(input: () => unknown, delayMs = 150) {
       timer = setTimeout(evaluate, delayMs);
     },
   );
+  watch(stock, evaluate);
   evaluate();
   onBeforeUnmount(() => clearTimeout(timer));
 
