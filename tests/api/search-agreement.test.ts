@@ -1,0 +1,130 @@
+import type { BuildView, SerialMatch } from '@busbar/shared';
+import { sql } from 'kysely';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { demoIds, startHarness, type Agent, type Harness } from '../support/api-harness.ts';
+import { SIGN_INS } from '../support/staff-fixtures.ts';
+
+/**
+ * The indexes behind search (FTS5 trigram over builds, the NOCASE serial index) must find exactly
+ * what a plain scan with LIKE finds, on the demo network with its two years of history.
+ */
+let h: Harness;
+let owner: Agent;
+let lead: Agent;
+let den: number;
+
+beforeAll(async () => {
+  h = await startHarness({}, true, { history: true });
+  den = (await demoIds(h.db)).location('DEN');
+  owner = await h.signedIn(SIGN_INS.owner);
+  lead = await h.signedIn(SIGN_INS.lead);
+}, 60_000);
+afterAll(() => h.close());
+
+/** Every page of a list, read by cursor. */
+async function everyId<T>(agent: Agent, path: string, query: Record<string, string>, key: (row: T) => string): Promise<string[]> {
+  const found: string[] = [];
+  let cursor: string | undefined;
+  for (;;) {
+    const res = await agent.get(path).query({ ...query, pageSize: 200, ...(cursor ? { cursor } : {}) });
+    expect(res.status).toBe(200);
+    found.push(...(res.body.items as T[]).map(key));
+    if (!res.body.nextCursor) return found.sort();
+    cursor = res.body.nextCursor;
+  }
+}
+
+const like = (text: string) => `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+
+/** Builds whose number, customer name, vehicle or a serial number contains `text`, by LIKE alone. */
+async function scanBuilds(text: string, locationId?: number): Promise<string[]> {
+  const pattern = like(text);
+  const rows = await sql<{ id: number }>`select b.id from builds b join customers c on c.id = b.customer_id join vehicles v on v.id = b.vehicle_id
+    where (${locationId ?? null} is null or b.location_id = ${locationId ?? null})
+      and (b.number like ${pattern} escape '\\' or c.name like ${pattern} escape '\\'
+        or (v.year || ' ' || v.make || ' ' || v.model) like ${pattern} escape '\\'
+        or exists (select 1 from build_items i where i.build_id = b.id and i.serial_number like ${pattern} escape '\\'))`.execute(h.db);
+  return rows.rows.map((r) => String(r.id)).sort();
+}
+
+/** Texts to look for, taken from the demo data: pieces of numbers, names, vehicles and serials, in other cases too. */
+async function sampleTexts(): Promise<string[]> {
+  const build = await h.db.selectFrom('builds').select('number').where('id', '=', 37).executeTakeFirstOrThrow();
+  const customer = await h.db.selectFrom('customers').select('name').orderBy('id').limit(1).offset(11).executeTakeFirstOrThrow();
+  const vehicle = await h.db.selectFrom('vehicles').select(['make', 'model']).orderBy('id').limit(1).offset(5).executeTakeFirstOrThrow();
+  const serial = await h.db.selectFrom('buildItems').select('serialNumber').where('serialNumber', 'is not', null).orderBy('id').limit(1).offset(40).executeTakeFirstOrThrow();
+  return [
+    build.number.slice(-4),
+    build.number.toLowerCase(),
+    customer.name.split(' ')[1]!.slice(0, 5).toUpperCase(),
+    customer.name.slice(1, 6),
+    vehicle.make.toLowerCase(),
+    vehicle.model.slice(0, 4),
+    serial.serialNumber!.slice(2, 8).toLowerCase(),
+    'DEN-',
+    'an',
+    '7',
+    'e r',
+    'no such text at all',
+  ];
+}
+
+describe('build search', () => {
+  it('finds for the owner what a plain scan finds, through the trigram index and the short-text fallback', async () => {
+    for (const q of await sampleTexts()) {
+      const expected = await scanBuilds(q);
+      if (q !== 'no such text at all') expect(expected.length, q).toBeGreaterThan(0);
+      expect(await everyId<BuildView>(owner, '/api/builds', { q }, (b) => String(b.id)), q).toEqual(expected);
+    }
+  }, 60_000);
+
+  it("finds for a lead what a plain scan finds at the lead's shop", async () => {
+    for (const q of (await sampleTexts()).slice(0, 8)) {
+      expect(await everyId<BuildView>(lead, '/api/builds', { q }, (b) => String(b.id)), q).toEqual(await scanBuilds(q, den));
+    }
+  }, 60_000);
+
+  it('keeps the index current as customers, vehicles and serial numbers change', async () => {
+    const build = await h.db.selectFrom('builds').select(['id', 'customerId', 'vehicleId']).where('locationId', '=', den).orderBy('id').limit(1).executeTakeFirstOrThrow();
+    const customer = (await owner.get(`/api/customers/${build.customerId}`)).body;
+    const renamed = await owner.put(`/api/customers/${customer.id}`).send({ name: 'Quillon Verbeck', version: customer.version });
+    expect(renamed.status).toBe(200);
+    await h.db.updateTable('vehicles').set({ model: 'Thornback XR' }).where('id', '=', build.vehicleId).execute();
+    await h.db.updateTable('buildItems').set({ serialNumber: null }).where('buildId', '=', build.id).execute();
+    for (const q of ['quillon verb', 'thornback', customer.name.slice(0, 6), 'KSTR', 'r ve']) {
+      expect(await everyId<BuildView>(owner, '/api/builds', { q }, (b) => String(b.id)), q).toEqual(await scanBuilds(q));
+    }
+    expect(await everyId<BuildView>(owner, '/api/builds', { q: 'quillon verb' }, (b) => String(b.id))).toContain(String(build.id));
+    await sql`insert into build_search (build_search, rank) values ('integrity-check', 1)`.execute(h.db);
+  }, 60_000);
+});
+
+describe('serial number search', () => {
+  /** Installed units whose serial number starts with `prefix` in any case, by a plain scan. */
+  async function scanSerials(prefix: string, locationId?: number): Promise<string[]> {
+    const rows = await sql<{ key: string }>`select i.serial_number || ' ' || i.sku || ' ' || b.id as key from build_items i join builds b on b.id = i.build_id
+      where lower(i.serial_number) like ${`${prefix.toLowerCase()}%`} and (${locationId ?? null} is null or b.location_id = ${locationId ?? null})`.execute(h.db);
+    return rows.rows.map((r) => r.key).sort();
+  }
+
+  async function everySerial(agent: Agent, q: string): Promise<string[]> {
+    const found: string[] = [];
+    for (let page = 1; ; page++) {
+      const res = await agent.get('/api/serials').query({ q, page, pageSize: 100 });
+      expect(res.status).toBe(200);
+      found.push(...(res.body.items as SerialMatch[]).map((m) => `${m.serialNumber} ${m.sku} ${m.buildId}`));
+      if (found.length >= res.body.total) return found.sort();
+    }
+  }
+
+  it('finds by prefix, in any case, what a plain scan finds', async () => {
+    const serials = await h.db.selectFrom('buildItems').select('serialNumber').where('serialNumber', 'is not', null).orderBy('id').limit(3).execute();
+    const prefixes = serials.flatMap(({ serialNumber }) => [serialNumber!.slice(0, 2), serialNumber!.slice(0, 5).toLowerCase(), serialNumber!]);
+    for (const q of [...prefixes, 'zz']) {
+      const expected = await scanSerials(q);
+      if (q !== 'zz') expect(expected.length, q).toBeGreaterThan(0);
+      expect(await everySerial(owner, q), q).toEqual(expected);
+      expect(await everySerial(lead, q), q).toEqual(await scanSerials(q, den));
+    }
+  }, 60_000);
+});
