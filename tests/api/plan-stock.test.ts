@@ -1,5 +1,6 @@
+import type { PlanView, QuickPlanSummary } from '@busbar/shared';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startHarness, type Harness } from '../support/api-harness.ts';
+import { demoIds, startHarness, type Harness } from '../support/api-harness.ts';
 import { addCatalogItem, addVendor } from '../support/catalog-fixtures.ts';
 import { SIGN_INS, type SignIn } from '../support/staff-fixtures.ts';
 
@@ -29,5 +30,28 @@ describe('the sizes the planner rounds to', () => {
   it('asks for a sign-in, and refuses unknown parameters', async () => {
     expect((await (await h.agent()).get('/api/plans/stock')).status).toBe(401);
     expect((await (await h.signedIn(SIGN_INS.tech)).get('/api/plans/stock?all=1')).status).toBe(400);
+  });
+});
+
+describe('plans rounded to the catalog', () => {
+  // 45 W at 40 % for three parked days is far past a starter battery: a house bank is needed.
+  const fridgeWeekend = {
+    systemV: 12,
+    gauge: 'awg',
+    loads: [{ name: 'Fridge', watts: 45, hoursPerDay: 24, dutyCycle: 0.4 }],
+    starterBattery: { capacityAh: 70 },
+    trip: { daysParked: 3, daysDriving: 1, driveHoursPerDay: 5 },
+    circuits: [],
+  };
+
+  it('recommends the smallest catalog bank that carries the trip, on the plan and in the list', async () => {
+    const tech = await h.signedIn(SIGN_INS.tech);
+    const created = await tech.post('/api/plans').send({ locationId: (await demoIds(h.db)).location('DEN'), name: 'Fridge weekend', input: fridgeWeekend });
+    expect(created.status).toBe(201);
+    const { result } = created.body as PlanView;
+    expect(result.recommendedBank).toMatchObject({ rule: 'catalog', size: 280, chemistry: 'lifepo4' });
+    expect(result.recommendedBank.minimum).toBeGreaterThan(100);
+    const listed = (await tech.get('/api/plans')).body.items as QuickPlanSummary[];
+    expect(listed.find((p) => p.id === created.body.id)?.verdict.headline).toContain('280 Ah LiFePO4');
   });
 });

@@ -3,6 +3,7 @@ import type { Db } from '@busbar/db';
 import { subject } from '@casl/ability';
 import type { PlanView, QuickPlanSummary } from '@busbar/shared';
 import { HttpError, notFound } from '../errors.ts';
+import { planStock } from '../queries/plan-stock.ts';
 import { findPlan, type PlanRow } from '../queries/plans.ts';
 import type { Viewer } from './viewer.ts';
 
@@ -16,15 +17,16 @@ export async function loadPlan(db: Db, viewer: Viewer, id: number): Promise<Plan
   return row;
 }
 
-/** A plan as read: its stored inputs with the result evaluated now, so it is never a stale computation's. */
-export function planView(row: PlanRow): PlanView {
+/** A plan as read: its stored inputs with the result evaluated now (recommendations rounded to the catalog's sizes), so it is never a stale computation's. */
+export async function planView(db: Db, row: PlanRow): Promise<PlanView> {
   const input = JSON.parse(row.input) as PlanInput;
-  return { ...row, input, result: evaluatePlan(input) };
+  return { ...row, input, result: evaluatePlan(input, { stock: await planStock(db) }) };
 }
 
-/** A quick plan as listed: its verdict, evaluated now, without inputs or the rest of the result. */
-export function quickPlanSummary({ input, ...row }: PlanRow): QuickPlanSummary {
-  return { ...row, verdict: planVerdict(JSON.parse(input) as PlanInput) };
+/** Quick plans as listed: each with its verdict, evaluated now, without inputs or the rest of the result. */
+export async function quickPlanSummaries(db: Db, rows: PlanRow[]): Promise<QuickPlanSummary[]> {
+  const stock = await planStock(db);
+  return rows.map(({ input, ...row }) => ({ ...row, verdict: planVerdict(JSON.parse(input) as PlanInput, { stock }) }));
 }
 
 /**

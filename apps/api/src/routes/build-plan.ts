@@ -28,7 +28,7 @@ export function buildPlanRouter({ db, now }: AppContext): Router {
     '/:id/plan',
     validate({ params: idParams }, async ({ params }, req, res) => {
       const { plan } = await buildWithPlan(db, viewerOf(req), params.id);
-      res.json({ plan: plan ? planView(plan) : null });
+      res.json({ plan: plan ? await planView(db, plan) : null });
     }),
   );
 
@@ -67,7 +67,7 @@ export function buildPlanRouter({ db, now }: AppContext): Router {
         });
         return planId;
       });
-      res.json(planView((await findPlan(db, id))!));
+      res.json(await planView(db, (await findPlan(db, id))!));
     }),
   );
 

@@ -3,7 +3,7 @@ import { idParams, planAttachBody, quickPlanCreate, quickPlanQuery, quickPlanUpd
 import { Router } from 'express';
 import { authorizeBuildChange } from '../access/builds.ts';
 import { locationScope, locationToAddAt, narrowScope } from '../access/locations.ts';
-import { canOnPlan, evaluateInput, loadPlan, planView, quickPlanSummary } from '../access/plans.ts';
+import { canOnPlan, evaluateInput, loadPlan, planView, quickPlanSummaries } from '../access/plans.ts';
 import type { AppContext } from '../context.ts';
 import { conflict, forbidden, invalidField } from '../errors.ts';
 import { viewerOf } from '../middleware/session.ts';
@@ -24,14 +24,14 @@ export function plansRouter({ db, now }: AppContext): Router {
     validate({ query: quickPlanQuery }, async ({ query }, req, res) => {
       const scope = narrowScope(await locationScope(db, viewerOf(req), 'read', 'Plan'), query.locationId);
       const { rows, ...page } = await listQuickPlans(db, scope, query);
-      res.json({ ...page, items: rows.map(quickPlanSummary) });
+      res.json({ ...page, items: await quickPlanSummaries(db, rows) });
     }),
   );
 
   router.get(
     '/:id',
     validate({ params: idParams }, async ({ params }, req, res) => {
-      res.json(planView(await loadPlan(db, viewerOf(req), params.id)));
+      res.json(await planView(db, await loadPlan(db, viewerOf(req), params.id)));
     }),
   );
 
@@ -48,7 +48,7 @@ export function plansRouter({ db, now }: AppContext): Router {
         await writeAudit(trx, { at: save.at, actorId: viewer.id, action: 'plan.create', entity: 'plan', entityId: planId, after });
         return planId;
       });
-      res.status(201).json(planView((await findPlan(db, id))!));
+      res.status(201).json(await planView(db, (await findPlan(db, id))!));
     }),
   );
 
@@ -67,7 +67,7 @@ export function plansRouter({ db, now }: AppContext): Router {
         const after = { name: body.name, version: body.version + 1, verdict: result.verdict.kind };
         await writeAudit(trx, { at: save.at, actorId: viewer.id, action: 'plan.update', entity: 'plan', entityId: plan.id, before, after });
       });
-      res.json(planView((await findPlan(db, plan.id))!));
+      res.json(await planView(db, (await findPlan(db, plan.id))!));
     }),
   );
 
@@ -93,7 +93,7 @@ export function plansRouter({ db, now }: AppContext): Router {
         const after = { buildId: build.id, version: body.version + 1, note: save.note };
         await writeAudit(trx, { at: save.at, actorId: viewer.id, action: 'plan.attach', entity: 'plan', entityId: plan.id, before: { buildId: null, version: plan.version }, after });
       });
-      res.json(planView((await findPlan(db, plan.id))!));
+      res.json(await planView(db, (await findPlan(db, plan.id))!));
     }),
   );
 
