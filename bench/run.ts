@@ -1,62 +1,59 @@
 /**
- * `pnpm bench`: speed and memory figures of the work that grows with a network — the demo seed,
- * the build list over two years of history, and plan evaluation. Prints figures; asserts nothing.
+ * `pnpm bench [-- --locations 200 --years 5]`: the real app, started as its own process, measured
+ * through HTTP at the demo's size and at a generated network's size in the same run: every list
+ * and search screen for the owner and a location lead, 50 connections mixing reads and writes,
+ * a lead's build detail while the owner imports and reads, and the app's peak memory. Prints the
+ * figures and writes them to bench/RESULTS.md; asserts nothing.
  */
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { evaluatePlan, type PlanInput } from '@busbar/calc';
-import { migrateToLatest, openDatabase } from '@busbar/db';
-import { buildQuery } from '@busbar/shared';
-import { listBuilds } from '../apps/api/src/queries/builds.ts';
-import { ensureDemoData } from '../apps/api/src/demo.ts';
+import { DEMO_PASSWORD } from '@busbar/db';
+import { call, signIn } from './client.ts';
+import { detailDuringOwnerWork } from './contention.ts';
+import { mixedLoad } from './load.ts';
+import { networkData, sizeOf } from './network-data.ts';
+import { benchOptions, type BenchOptions } from './options.ts';
+import { report, writeReport, type SizeRun } from './results.ts';
+import { idsFor, measureScreens } from './screens.ts';
+import { startApp } from './server.ts';
 
-const ms = (start: bigint) => Number(process.hrtime.bigint() - start) / 1e6;
-const figure = (name: string, value: number, unit: string) => console.log(`${name.padEnd(56)} ${value.toFixed(1).padStart(9)} ${unit}`);
+const log = (text: string) => process.stderr.write(`${text}\n`);
 
-const dir = mkdtempSync(join(tmpdir(), 'busbar-bench-'));
-const db = openDatabase(join(dir, 'busbar.sqlite'));
-await migrateToLatest(db);
-let start = process.hrtime.bigint();
-await ensureDemoData(db, 17, new Date('2026-12-01T12:00:00Z'));
-figure('demo seed (staff, scrypt 2^17, two years)', ms(start), 'ms');
-const builds = Number((await db.selectFrom('builds').select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow()).n);
-figure('builds in the demo network', builds, '');
-
-const locations = (await db.selectFrom('locations').select('id').execute()).map((l) => l.id);
-for (const [label, query] of [
-  ['build list, first page, newest first', {}],
-  ['build list, text search (customer/serial)', { q: 'ar' }],
-  ['build list, delivered, sorted by total', { status: 'delivered', sort: 'totalCents' }],
-] as const) {
-  const parsed = buildQuery.parse(query);
-  const runs = 20;
-  start = process.hrtime.bigint();
-  for (let i = 0; i < runs; i++) await listBuilds(db, locations, parsed);
-  figure(`${label} (mean of ${runs})`, ms(start) / runs, 'ms');
+async function measure(dir: string, label: string, generatedSeconds: number | null, options: BenchOptions): Promise<SizeRun> {
+  log(`\n${label}: starting the app`);
+  const app = await startApp(dir);
+  try {
+    const size = await sizeOf(dir, label, generatedSeconds);
+    const owner = await signIn(app.baseUrl, 'owner@demo.busbar.test', DEMO_PASSWORD);
+    const lead = await signIn(app.baseUrl, 'lead@demo.busbar.test', DEMO_PASSWORD);
+    const session = JSON.parse((await call(lead, 'GET', '/api/session')).body) as { assignments: { locationId: number }[] };
+    const shop = { locationId: session.assignments[0]!.locationId, buildId: (await idsFor(lead)).buildId };
+    const screens = {
+      owner: await measureScreens(owner, options.samples, (s) => log(`${label}: owner, ${s}`)),
+      lead: await measureScreens(lead, options.samples, (s) => log(`${label}: lead, ${s}`)),
+    };
+    log(`${label}: 50 connections for ${options.seconds} s`);
+    const load = await mixedLoad(owner, lead, shop, 50, options.seconds);
+    log(`${label}: a lead's build detail while the owner imports 2,000 builds`);
+    const contention = await detailDuringOwnerWork(owner, lead, shop, 2000);
+    return { size, screens, load, contention, peakRssMiB: app.peakRssMiB() };
+  } finally {
+    await app.stop();
+  }
 }
 
-const plan: PlanInput = {
-  systemV: 12,
-  gauge: 'awg',
-  loads: [
-    { name: 'Fridge', watts: 45, hoursPerDay: 24, dutyCycle: 0.4 },
-    { name: 'Satellite internet terminal', watts: 60, hoursPerDay: 10, ac: true },
-    { name: 'Lights', watts: 20, hoursPerDay: 5, activeHours: [18, 19, 20, 21, 22] },
-  ],
-  inverter: { ratedW: 600, efficiency: 0.9 },
-  bank: { chemistry: 'lifepo4', capacityAh: 200 },
-  starterBattery: { capacityAh: 70 },
-  dcdcCharger: { outputA: 40 },
-  solar: { arrayW: 200, peakSunHours: 5, controller: 'mppt' },
-  trip: { daysParked: 4, daysDriving: 1, driveHoursPerDay: 4 },
-  circuits: Array.from({ length: 12 }, (_, i) => ({ from: 'Bus', to: `Load ${i}`, oneWayLengthM: 2 + i, currentA: 5 + i * 3, critical: i % 2 === 0, insulationC: 105 as const })),
-};
-const runs = 200;
-start = process.hrtime.bigint();
-for (let i = 0; i < runs; i++) evaluatePlan(plan);
-figure(`evaluatePlan, 3 loads, 12 circuits (mean of ${runs})`, ms(start) / runs, 'ms');
-figure('resident memory after all of the above', process.memoryUsage().rss / 2 ** 20, 'MiB');
-
-await db.destroy();
-rmSync(dir, { recursive: true, force: true });
+const options = benchOptions();
+const demoDir = mkdtempSync(join(tmpdir(), 'busbar-bench-demo-'));
+try {
+  const demo = await measure(demoDir, 'demo', null, options);
+  const network = await networkData(options.locations, options.years, options.reuse);
+  const label = `network ${options.locations} × ${options.years} years${network.generatedSeconds === null ? ' (generated by an earlier run)' : ''}`;
+  const generated = await measure(network.dir, label, network.generatedSeconds, options);
+  const text = report(demo, generated, options.samples);
+  console.log(text);
+  writeReport(options.results, text);
+  log(`Wrote ${options.results}.`);
+} finally {
+  rmSync(demoDir, { recursive: true, force: true });
+}

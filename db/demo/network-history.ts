@@ -52,6 +52,8 @@ export async function seedNetwork(options: NetworkOptions): Promise<NetworkCount
   await db.destroy();
 
   const sqlite = new SQLite(options.file);
+  // No journal while loading a file that is thrown away if the load fails; WAL is left on from DELETE mode only.
+  sqlite.pragma('journal_mode = delete');
   sqlite.pragma('journal_mode = off');
   sqlite.pragma('synchronous = off');
   sqlite.pragma('cache_size = -262144');

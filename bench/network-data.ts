@@ -1,0 +1,46 @@
+import { existsSync, mkdirSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { DEMO_PASSWORD, openDatabase, seedNetwork } from '@busbar/db';
+import { hashPassword } from '../apps/api/src/auth/password.ts';
+import { progressBar } from '../apps/api/src/progress.ts';
+
+export interface DataSize {
+  label: string;
+  locations: number;
+  builds: number;
+  buildItems: number;
+  auditRows: number;
+  /** Seconds the generator took, or null when an earlier run's database was reused. */
+  generatedSeconds: number | null;
+}
+
+/** What a data folder holds, counted from its database. */
+export async function sizeOf(dir: string, label: string, generatedSeconds: number | null): Promise<DataSize> {
+  const db = openDatabase(join(dir, 'busbar.sqlite'));
+  const count = async (table: 'locations' | 'builds' | 'buildItems' | 'auditLog') =>
+    Number((await db.selectFrom(table).select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow()).n);
+  const size = { label, locations: await count('locations'), builds: await count('builds'), buildItems: await count('buildItems'), auditRows: await count('auditLog'), generatedSeconds };
+  await db.destroy();
+  return size;
+}
+
+/** A data folder with a generated network of the size asked for (pnpm demo:network's generator), made fresh unless `reuse`. */
+export async function networkData(locations: number, years: number, reuse: boolean): Promise<{ dir: string; generatedSeconds: number | null }> {
+  const dir = join(tmpdir(), `busbar-bench-${locations}x${years}`);
+  if (reuse && existsSync(join(dir, 'busbar.sqlite'))) return { dir, generatedSeconds: null };
+  rmSync(dir, { recursive: true, force: true });
+  mkdirSync(dir, { recursive: true });
+  const started = performance.now();
+  const bar = progressBar(`generating ${locations} × ${years}`, 1);
+  await seedNetwork({
+    file: join(dir, 'busbar.sqlite'),
+    locations,
+    years,
+    now: new Date(),
+    passwordHash: await hashPassword(DEMO_PASSWORD, 17),
+    onProgress: ({ days, totalDays, builds, indexing }) =>
+      indexing ? bar.end(`${builds.toLocaleString('en-US')} builds; building indexes…`) : bar.update(days / totalDays, `${builds.toLocaleString('en-US')} builds`),
+  });
+  return { dir, generatedSeconds: (performance.now() - started) / 1000 };
+}

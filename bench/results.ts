@@ -1,0 +1,66 @@
+import { writeFileSync } from 'node:fs';
+import { cpus, totalmem } from 'node:os';
+import type { ContentionFigures } from './contention.ts';
+import type { LoadFigures } from './load.ts';
+import type { DataSize } from './network-data.ts';
+import { SCREENS, type ScreenFigure } from './screens.ts';
+import { ms } from './stats.ts';
+
+/** Everything measured at one size of data. */
+export interface SizeRun {
+  size: DataSize;
+  screens: { owner: Map<string, ScreenFigure>; lead: Map<string, ScreenFigure> };
+  load: LoadFigures;
+  contention: ContentionFigures;
+  peakRssMiB: number;
+}
+
+const cell = (figure: ScreenFigure | undefined) =>
+  !figure ? '–' : 'status' in figure ? `(${figure.status})` : `${ms(figure.p50)} / ${ms(figure.p95)} / ${ms(figure.p99)}`;
+const ratio = (demo: ScreenFigure | undefined, network: ScreenFigure | undefined) =>
+  demo && network && 'p95' in demo && 'p95' in network ? `${(network.p95 / demo.p95).toFixed(1)}×` : '–';
+
+function screenTable(demo: SizeRun, network: SizeRun, who: 'owner' | 'lead'): string[] {
+  const rows = SCREENS.map(([label]) => {
+    const [d, n] = [demo.screens[who].get(label), network.screens[who].get(label)];
+    return `| ${label} | ${cell(d)} | ${cell(n)} | ${ratio(d, n)} |`;
+  });
+  return [`| screen (${who}) | demo p50 / p95 / p99 ms | network p50 / p95 / p99 ms | p95 ratio |`, '|---|---|---|---|', ...rows];
+}
+
+const sizeLine = ({ size }: SizeRun) =>
+  `${size.label}: ${size.locations} locations, ${size.builds.toLocaleString('en-US')} builds, ${size.buildItems.toLocaleString('en-US')} build lines, ${size.auditRows.toLocaleString('en-US')} audit rows` +
+  (size.generatedSeconds === null ? '' : ` (generated in ${Math.round(size.generatedSeconds)} s)`);
+
+const otherRows = (run: SizeRun) => [
+  `| ${run.size.label} | ${run.load.perSecond.toFixed(0)} req/s, ${run.load.errors} errors of ${run.load.requests} (${run.load.writes} writes), p95 ${ms(run.load.latency.p95)} ms | ${ms(run.contention.leadDetail.p95)} ms (p50 ${ms(run.contention.leadDetail.p50)}, ${run.contention.leadDetail.count} requests; import of ${run.contention.importRows} rows answered ${run.contention.importStatus} in ${ms(run.contention.importMs)} ms, ${run.contention.ownerRequests} owner list requests meanwhile) | ${run.peakRssMiB.toFixed(0)} MiB |`,
+];
+
+/** The figures as Markdown, with the machine and the date they were taken on. */
+export function report(demo: SizeRun, network: SizeRun, samples: number): string {
+  const machine = `${cpus().length} CPUs (${cpus()[0]?.model.trim() ?? 'unknown'}), ${(totalmem() / 2 ** 30).toFixed(1)} GiB memory, Node ${process.version}`;
+  return [
+    '# Benchmark results',
+    '',
+    `Taken ${new Date().toISOString().slice(0, 16).replace('T', ' ')} UTC on ${machine}, by \`pnpm bench\` (figures are printed, nothing is asserted).`,
+    '',
+    `- ${sizeLine(demo)}`,
+    `- ${sizeLine(network)}`,
+    '',
+    `Each screen's API request through HTTP with a signed-in person, after 5 warm-up requests, ${samples} timed requests one after another (ms to the last byte, brotli as a browser asks). A lead reads no audit log: (403).`,
+    '',
+    ...screenTable(demo, network, 'owner'),
+    '',
+    ...screenTable(demo, network, 'lead'),
+    '',
+    `| data | ${demo.load.connections} connections, reads and writes, ${demo.load.seconds.toFixed(0)} s | a lead's build detail p95 while the owner imports and reads big lists | peak RSS of the app |`,
+    '|---|---|---|---|',
+    ...otherRows(demo),
+    ...otherRows(network),
+    '',
+  ].join('\n');
+}
+
+export function writeReport(file: string, text: string): void {
+  writeFileSync(file, text);
+}

@@ -1,0 +1,60 @@
+import { call, type Person } from './client.ts';
+import { latency, type Latency } from './stats.ts';
+
+/** The API request behind each list and search screen (and the build detail), as the screen first asks it. */
+export const SCREENS: readonly (readonly [label: string, path: (ids: Ids) => string])[] = [
+  ['builds, first page', () => '/api/builds'],
+  ['builds, delivered, by total', () => '/api/builds?status=delivered&sort=totalCents'],
+  ['builds, booked, by date', () => '/api/builds?status=booked&sort=bookedFor&order=asc'],
+  ['builds, text search: customer', () => '/api/builds?q=Holloway'],
+  ['builds, text search: serial', () => '/api/builds?q=LK2506'],
+  ['builds, page 20', () => '/api/builds?page=20'],
+  ['build detail', (ids) => `/api/builds/${ids.buildId}`],
+  ['serial search, prefix', () => '/api/serials?q=NV25'],
+  ['customers', () => '/api/customers'],
+  ['customers, search', () => '/api/customers?q=Pemberton'],
+  ['catalog', () => '/api/catalog'],
+  ['vendors', () => '/api/vendors'],
+  ['staff', () => '/api/staff'],
+  ['audit log', () => '/api/audit'],
+  ['audit log, builds only', () => '/api/audit?entity=build'],
+  ['quick plans', () => '/api/plans'],
+];
+
+export interface Ids {
+  buildId: number;
+}
+
+/** Figures of one screen for one person: latencies, or the refusal they get (a lead reads no audit log). */
+export type ScreenFigure = Latency | { status: number };
+
+/** A build the person can open: the newest of their list. */
+export async function idsFor(person: Person): Promise<Ids> {
+  const list = await call(person, 'GET', '/api/builds?pageSize=1');
+  const build = (JSON.parse(list.body) as { items: { id: number }[] }).items[0];
+  if (!build) throw new Error('the person sees no builds');
+  return { buildId: build.id };
+}
+
+/** Each screen's request, a few times untimed to warm up, then `samples` times one after another. */
+export async function measureScreens(person: Person, samples: number, onScreen: (label: string) => void): Promise<Map<string, ScreenFigure>> {
+  const ids = await idsFor(person);
+  const figures = new Map<string, ScreenFigure>();
+  for (const [label, path] of SCREENS) {
+    onScreen(label);
+    const first = await call(person, 'GET', path(ids));
+    if (first.status !== 200) {
+      figures.set(label, { status: first.status });
+      continue;
+    }
+    for (let i = 0; i < 4; i++) await call(person, 'GET', path(ids));
+    const times: number[] = [];
+    for (let i = 0; i < samples; i++) {
+      const answer = await call(person, 'GET', path(ids));
+      if (answer.status !== 200) throw new Error(`${label} answered ${answer.status} while timed: ${answer.body.slice(0, 200)}`);
+      times.push(answer.ms);
+    }
+    figures.set(label, latency(times));
+  }
+  return figures;
+}
