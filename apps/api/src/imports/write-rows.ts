@@ -1,7 +1,5 @@
-import { dayOfIso, localMoment } from '@busbar/calc';
+import { buildTotals, dayOfIso, localMoment } from '@busbar/calc';
 import type { Db } from '@busbar/db';
-import { writeAudit } from '../queries/audit.ts';
-import { addBuildEvent, recomputeTotals } from '../queries/build-changes.ts';
 import { nextBuildNumber } from '../queries/builds.ts';
 import type { CheckedRow } from './check-rows.ts';
 
@@ -61,12 +59,22 @@ async function vehicleFor(trx: Db, location: ImportLocation, customerId: number,
   return created.id;
 }
 
-/** Writes checked rows as builds of the location, in file order; call inside one transaction. */
+/** Rows per multi-row insert of events and audit entries, well inside SQLite's limit of bound values. */
+const CHUNK = 500;
+
+/**
+ * Writes checked rows as builds of the location, in file order; call inside one transaction.
+ * Totals come from the lines in hand (`buildTotals`), and the timeline events and audit entries
+ * are written together at the end, so the transaction, which holds the write lock, stays short.
+ */
 export async function writeImport(trx: Db, location: ImportLocation, rows: CheckedRow[], actorId: number, at: string): Promise<number> {
+  const events: { buildId: number; line: number; status: CheckedRow['row']['status'] }[] = [];
+  const audits: { buildId: number; after: string }[] = [];
   for (const { row, items, leadTechnicianId, line } of rows) {
     const customerId = await customerFor(trx, location, row, at);
     const vehicleId = await vehicleFor(trx, location, customerId, row);
     const { sequence, number } = await nextBuildNumber(trx, location);
+    const { marginCents: _, ...totals } = buildTotals(items, row.labor_hours, location.laborRateCents);
     const build = await trx
       .insertInto('builds')
       .values({
@@ -82,10 +90,7 @@ export async function writeImport(trx: Db, location: ImportLocation, rows: Check
         deliveredAt: row.delivered_on ? localEvening(row.delivered_on, location.timeZone) : null,
         laborHours: row.labor_hours,
         laborRateCents: location.laborRateCents,
-        laborCents: 0,
-        partsPriceCents: 0,
-        partsCostCents: 0,
-        totalCents: 0,
+        ...totals,
         notes: row.notes,
         createdAt: at,
         updatedAt: at,
@@ -99,9 +104,19 @@ export async function writeImport(trx: Db, location: ImportLocation, rows: Check
         .values(items.map((i) => ({ buildId: build.id, catalogItemId: i.catalogItemId, sku: i.sku, quantity: i.quantity, serialNumber: i.serialNumber, unitPriceCents: i.unitPriceCents, unitCostCents: i.unitCostCents, createdAt: at })))
         .execute();
     }
-    await recomputeTotals(trx, build.id);
-    await addBuildEvent(trx, { buildId: build.id, at, actorId, kind: 'status', toStatus: row.status, note: `Imported from line ${line}` });
-    await writeAudit(trx, { at, actorId, action: 'build.import', entity: 'build', entityId: build.id, after: { number, line, ...row } });
+    events.push({ buildId: build.id, line, status: row.status });
+    audits.push({ buildId: build.id, after: JSON.stringify({ number, line, ...row }) });
+  }
+  for (let i = 0; i < events.length; i += CHUNK) {
+    const chunk = events.slice(i, i + CHUNK);
+    await trx
+      .insertInto('buildEvents')
+      .values(chunk.map((e) => ({ buildId: e.buildId, at, actorId, kind: 'status' as const, fromStatus: null, toStatus: e.status, note: `Imported from line ${e.line}` })))
+      .execute();
+    await trx
+      .insertInto('auditLog')
+      .values(audits.slice(i, i + CHUNK).map((a) => ({ at, actorId, action: 'build.import', entity: 'build', entityId: a.buildId, before: null, after: a.after })))
+      .execute();
   }
   return rows.length;
 }
