@@ -23,8 +23,18 @@ export function messagesFromIssues(issues: readonly { path: PropertyKey[]; messa
  */
 export function messageFromRangeError(error: RangeError): FieldMessages {
   const [name = '', ...rest] = error.message.split(' ');
-  return { [name.replace(/:$/, '').replace(/\[(\d+)\]/g, '.$1')]: capitalised(rest.join(' ')) };
+  const field = name.replace(/:$/, '').replace(/\[(\d+)\]/g, '.$1');
+  const most = error.message.match(/at most (-?[\d.]+)/)?.[1];
+  return { [field]: LIMITS_OF_OTHER_INPUTS[field]?.(Number(most).toLocaleString('en-US')) ?? capitalised(rest.join(' ')) };
 }
+
+// Limits that follow from another input, which the shared schema cannot check field by field.
+const LIMITS_OF_OTHER_INPUTS: Record<string, (most: string) => string> = {
+  'trip.highestC': () => 'The highest temperature cannot be below the lowest',
+  'inverter.cutoffV': (most) => `Inverter cutoff must be at most ${most} V for this system voltage`,
+  'inverter.idleW': (most) => `Inverter idle draw must be at most ${most} W, the inverter's rating`,
+  'dcdcCharger.minInputV': (most) => `Lowest input voltage must be at most ${most} V for this system voltage`,
+};
 
 /** The server's field messages about the plan's input, without the `input.` its body wraps them in. */
 export function messagesFromServer(fields: Record<string, string>): FieldMessages {
