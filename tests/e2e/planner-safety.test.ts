@@ -71,7 +71,7 @@ describe('the planner on unsafe plans', () => {
     await fill(feed.getByLabel('Fuse from the start battery'), '30');
     await expect
       .poll(() => texts(points(page).filter({ hasText: 'House battery → Inverter' })), { timeout: 5000 })
-      .toEqual([expect.stringMatching(/^Protected Circuit 3: House battery → Inverter, where it leaves the house battery Within 40 in · \d+ A fuse drawn 30 in away$/)]);
+      .toEqual([expect.stringMatching(/^Protected Circuit 3: House battery → Inverter, where it leaves the house battery Within 40 in \(1,016 mm\) · \d+ A fuse · drawn 30 in away$/)]);
     expect(await findings(page).filter({ hasText: 'Circuit House battery → Inverter' }).count()).toBe(0);
     // The charger's runs still have no fuse drawn at their batteries: critical, each named.
     expect(await texts(findings(page).filter({ hasText: 'needs a fuse or breaker' }))).toEqual([
@@ -91,8 +91,8 @@ describe('the planner on unsafe plans', () => {
     await page.getByRole('heading', { level: 1, name: 'Quick plan · Adeyemi, cooktop van' }).waitFor();
     const sheet = page.locator('article.sheet');
     expect(await texts(points(sheet))).toEqual([
-      expect.stringMatching(/^No fuse Circuit 1: Starter battery → DC-DC charger, where it leaves the starter battery Within 7 in · No fuse drawn$/),
-      expect.stringMatching(/^No fuse Circuit 2: DC-DC charger → House battery, where it reaches the house battery Within 7 in · No fuse drawn$/),
+      expect.stringMatching(/^No fuse Circuit 1: Starter battery → DC-DC charger, where it leaves the starter battery Within 7 in \(178 mm\) · \d+ A fuse · none drawn$/),
+      expect.stringMatching(/^No fuse Circuit 2: DC-DC charger → House battery, where it reaches the house battery Within 7 in \(178 mm\) · \d+ A fuse · none drawn$/),
       expect.stringMatching(/^Protected Circuit 3: House battery → Inverter, .* 30 in away$/),
     ]);
     expect(await sheet.locator('[aria-labelledby="protection-points"] + [role="note"]').getByText(SAFETY_CAUTION).count()).toBe(1);
@@ -115,6 +115,12 @@ describe('the planner on unsafe plans', () => {
     // The caution stands beside the recommendation in a quick plan as in a build's plan.
     expect(await page.locator('[role="note"] + div [aria-labelledby="plan-recommended"]').count()).toBe(1);
     expect(await verdict(page).getByText(SAFETY_CAUTION).count()).toBe(1);
+
+    // In metric units the fuses' limits read in millimetres first.
+    expect(await texts(points(page))).toEqual([
+      expect.stringMatching(/^No fuse Circuit 1: .* Within 178 mm \(7 in\) · \d+ A fuse · none drawn$/),
+      expect.stringMatching(/^No fuse Circuit 2: .* Within 178 mm \(7 in\) · \d+ A fuse · none drawn$/),
+    ]);
 
     await card(page, 'Batteries').getByText('Self-heating', { exact: false }).click();
     await expect.poll(() => cold.count(), { timeout: 5000 }).toBe(0);

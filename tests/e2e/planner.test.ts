@@ -111,8 +111,8 @@ describe('the power planner', () => {
     await fill(page.locator('.circuit').nth(0).getByLabel('Fuse from the start battery'), '4');
     await fill(page.locator('.circuit').nth(1).getByLabel('Fuse from the end battery'), '6');
     await expect.poll(() => texts(points), { timeout: 5000 }).toEqual([
-      expect.stringMatching(/^Protected Circuit 1: Starter battery → DC-DC charger, where it leaves the starter battery Within 7 in · \d+ A fuse drawn 4 in away$/),
-      expect.stringMatching(/^Protected Circuit 2: DC-DC charger → House battery, where it reaches the house battery Within 7 in · \d+ A fuse drawn 6 in away$/),
+      expect.stringMatching(/^Protected Circuit 1: Starter battery → DC-DC charger, where it leaves the starter battery Within 7 in \(178 mm\) · \d+ A fuse · drawn 4 in away$/),
+      expect.stringMatching(/^Protected Circuit 2: DC-DC charger → House battery, where it reaches the house battery Within 7 in \(178 mm\) · \d+ A fuse · drawn 6 in away$/),
     ]);
 
     await page.getByRole('button', { name: 'Save plan' }).click();
