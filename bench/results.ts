@@ -1,5 +1,5 @@
 import { writeFileSync } from 'node:fs';
-import { cpus, totalmem } from 'node:os';
+import { cpus, loadavg, totalmem } from 'node:os';
 import type { ContentionFigures } from './contention.ts';
 import type { LoadFigures } from './load.ts';
 import type { DataSize } from './network-data.ts';
@@ -37,8 +37,9 @@ const otherRows = (run: SizeRun) => [
 ];
 
 /** The figures as Markdown, with the machine and the date they were taken on. */
-export function report(demo: SizeRun, network: SizeRun, samples: number): string {
-  const machine = `${cpus().length} CPUs (${cpus()[0]?.model.trim() ?? 'unknown'}), ${(totalmem() / 2 ** 30).toFixed(1)} GiB memory, Node ${process.version}`;
+export function report(demo: SizeRun, network: SizeRun, samples: number, loadAtStart: number): string {
+  // Other work on the machine shows in every figure, so the load average goes with them.
+  const machine = `${cpus().length} CPUs (${cpus()[0]?.model.trim() ?? 'unknown'}), ${(totalmem() / 2 ** 30).toFixed(1)} GiB memory, Node ${process.version}, load average ${loadAtStart.toFixed(1)} at the start and ${loadavg()[0]!.toFixed(1)} at the end`;
   return [
     '# Benchmark results',
     '',
