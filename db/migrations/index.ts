@@ -6,6 +6,7 @@ import * as indexLists from './004-index-lists.ts';
 import * as createBuildSearch from './005-create-build-search.ts';
 import * as dropPlanResults from './006-drop-plan-results.ts';
 import * as indexBuildNumbers from './008-index-build-numbers.ts';
+import * as createCustomerSearch from './009-create-customer-search.ts';
 import * as createClaims from './007-create-claims.ts';
 
 /** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
@@ -18,4 +19,5 @@ export const migrations: Record<string, Migration> = {
   '006-drop-plan-results': dropPlanResults,
   '007-create-claims': createClaims,
   '008-index-build-numbers': indexBuildNumbers,
+  '009-create-customer-search': createCustomerSearch,
 };

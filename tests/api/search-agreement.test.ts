@@ -99,6 +99,31 @@ describe('build search', () => {
   }, 60_000);
 });
 
+describe('customer search', () => {
+  /** Customers whose name, e-mail or phone contains `text`, by LIKE alone. */
+  async function scanCustomers(text: string): Promise<string[]> {
+    const pattern = like(text);
+    const rows = await sql<{ id: number }>`select id from customers
+      where name like ${pattern} escape '\\' or email like ${pattern} escape '\\' or phone like ${pattern} escape '\\'`.execute(h.db);
+    return rows.rows.map((r) => String(r.id)).sort();
+  }
+
+  it('finds for the owner what a plain scan of names, e-mail and phone finds', async () => {
+    const customer = await h.db.selectFrom('customers').select(['name', 'email', 'phone']).where('phone', '!=', '').orderBy('id').limit(1).offset(7).executeTakeFirstOrThrow();
+    for (const q of [customer.name.slice(2, 7).toUpperCase(), customer.email.split('@')[0]!, customer.phone.slice(-4), 'an', 'no such customer']) {
+      const expected = await scanCustomers(q);
+      if (q !== 'no such customer') expect(expected.length, q).toBeGreaterThan(0);
+      const found: string[] = [];
+      for (let page = 1; ; page++) {
+        const res = await owner.get('/api/customers').query({ q, page, pageSize: 200 });
+        found.push(...res.body.items.map((c: { id: number }) => String(c.id)));
+        if (res.body.items.length < 200) break;
+      }
+      expect(found.sort(), q).toEqual(expected);
+    }
+  }, 60_000);
+});
+
 describe('serial number search', () => {
   /** Installed units whose serial number starts with `prefix` in any case, by a plain scan. */
   async function scanSerials(prefix: string, locationId?: number): Promise<string[]> {

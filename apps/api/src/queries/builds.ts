@@ -3,7 +3,7 @@ import type { BuildEventView, BuildItemView, BuildQuery, BuildStatus, BuildView,
 import { sql, type Expression, type SqlBool } from 'kysely';
 import type { LocationScope } from '../access/locations.ts';
 import { afterKey, cappedCount, decodeCursor, encodeCursor, offsetOf, type Keyset } from './paging.ts';
-import { buildTextMatches } from './search.ts';
+import { buildTextMatches, countCapFor } from './search.ts';
 
 export type BuildRow = Required<Omit<BuildView, 'marginCents'>>;
 
@@ -63,7 +63,7 @@ export async function listBuilds(db: Db, scope: LocationScope, query: BuildQuery
   let pageIds = matching.select(['b.id', `${sortColumn} as sortValue`]).orderBy(sortColumn, query.order).orderBy('b.id', query.order).limit(query.pageSize);
   if (query.cursor) pageIds = pageIds.where(afterKey(sortColumn, 'b.id', query.order, decodeCursor(query.cursor), query.sort === 'bookedFor'));
   else pageIds = pageIds.offset(offsetOf(query.page, query.pageSize));
-  const [keys, count] = await Promise.all([pageIds.execute(), cappedCount(db, matching.select('b.id'))]);
+  const [keys, count] = await Promise.all([pageIds.execute(), cappedCount(db, matching.select('b.id'), countCapFor(query.q))]);
   const rows = keys.length === 0 ? [] : await buildsWithNames(db).where('b.id', 'in', keys.map((k) => k.id)).execute();
   const byId = new Map(rows.map((row) => [row.id, row]));
   const last = keys.length === query.pageSize ? keys.at(-1) : undefined;

@@ -3,7 +3,7 @@ import type { Expression, ExpressionBuilder, SqlBool } from 'kysely';
 import type { CustomerBody, CustomerView, Page } from '@busbar/shared';
 import type { LocationScope } from '../access/locations.ts';
 import { cappedCount, offsetOf } from './paging.ts';
-import { contains } from './search.ts';
+import { countCapFor, customerTextMatches } from './search.ts';
 
 const CUSTOMER_COLUMNS = [
   'id', 'locationId', 'name', 'email', 'phone', 'addressLine1', 'addressLine2', 'city', 'region', 'postalCode', 'notes', 'version',
@@ -33,15 +33,15 @@ export async function listCustomers(db: Db, filter: CustomerFilter): Promise<Pag
   if (scope !== 'all') query = query.where('locationId', 'in', scope);
   if (q) {
     query = query.where((eb) => {
-      const terms: Expression<SqlBool>[] = [contains('name', q)];
-      if (filter.emailScope === 'all' || filter.emailScope.length > 0) terms.push(eb.and([contains('email', q), inScope(eb, filter.emailScope)]));
-      if (filter.phoneScope === 'all' || filter.phoneScope.length > 0) terms.push(eb.and([contains('phone', q), inScope(eb, filter.phoneScope)]));
+      const terms: Expression<SqlBool>[] = [customerTextMatches('id', 'name', q)];
+      if (filter.emailScope === 'all' || filter.emailScope.length > 0) terms.push(eb.and([customerTextMatches('id', 'email', q), inScope(eb, filter.emailScope)]));
+      if (filter.phoneScope === 'all' || filter.phoneScope.length > 0) terms.push(eb.and([customerTextMatches('id', 'phone', q), inScope(eb, filter.phoneScope)]));
       return eb.or(terms);
     });
   }
   const [items, count] = await Promise.all([
     query.select(CUSTOMER_COLUMNS).orderBy('name').orderBy('id').limit(pageSize).offset(offsetOf(page, pageSize)).execute(),
-    cappedCount(db, query.select('id')),
+    cappedCount(db, query.select('id'), countCapFor(q)),
   ]);
   return { items, ...count, page, pageSize };
 }

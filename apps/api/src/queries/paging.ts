@@ -16,12 +16,12 @@ export function offsetOf(page: number, pageSize: number): number {
  * How many rows a query finds, counting no further than COUNT_CAP: counting every row of a
  * network-wide list would read the whole table on every request.
  */
-export async function cappedCount(db: Db, rows: SelectQueryBuilder<any, any, any>): Promise<{ total: number; totalCapped: boolean }> {
+export async function cappedCount(db: Db, rows: SelectQueryBuilder<any, any, any>, cap = COUNT_CAP): Promise<{ total: number; totalCapped: boolean }> {
   const { n } = await db
-    .selectFrom(rows.clearOrderBy().limit(COUNT_CAP + 1).as('matching'))
+    .selectFrom(rows.clearOrderBy().limit(cap + 1).as('matching'))
     .select((eb) => eb.fn.countAll<number>().as('n'))
     .executeTakeFirstOrThrow();
-  return { total: Math.min(Number(n), COUNT_CAP), totalCapped: Number(n) > COUNT_CAP };
+  return { total: Math.min(Number(n), cap), totalCapped: Number(n) > cap };
 }
 
 /** Where a page read by cursor ended: the last row's sort value and id. */
