@@ -134,6 +134,14 @@ describe('the planner on unsafe plans', () => {
     const saved = await savedInput('Lindqvist, winter van');
     expect(saved.trip.lowestC).toBe(-10);
     expect(saved.bank).toEqual({ chemistry: 'lifepo4', capacityAh: 100, selfHeating: true });
+
+    // The server rounds to the same catalog: the sheet recommends what the live planner did.
+    const live = await recommended.innerText();
+    expect(live).toContain('180 Ah LiFePO4, self-heating');
+    await page.getByRole('button', { name: 'Print sheet' }).click();
+    const onSheet = page.locator('article.sheet').getByRole('region', { name: 'Busbar recommends' });
+    await onSheet.waitFor();
+    expect(await onSheet.innerText()).toBe(live);
     await page.context().close();
   });
 });
