@@ -8,6 +8,7 @@ import * as dropPlanResults from './006-drop-plan-results.ts';
 import * as indexBuildNumbers from './008-index-build-numbers.ts';
 import * as createCustomerSearch from './009-create-customer-search.ts';
 import * as createClaims from './007-create-claims.ts';
+import * as createClaimEvidence from './008-create-claim-evidence.ts';
 
 /** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
 export const migrations: Record<string, Migration> = {
@@ -18,6 +19,7 @@ export const migrations: Record<string, Migration> = {
   '005-create-build-search': createBuildSearch,
   '006-drop-plan-results': dropPlanResults,
   '007-create-claims': createClaims,
+  '008-create-claim-evidence': createClaimEvidence,
   '008-index-build-numbers': indexBuildNumbers,
   '009-create-customer-search': createCustomerSearch,
 };

@@ -3,6 +3,7 @@ import type { BuildEventsTable } from './build-events.ts';
 import type { BuildItemsTable } from './build-items.ts';
 import type { BuildsTable } from './builds.ts';
 import type { ClaimEventsTable } from './claim-events.ts';
+import type { ClaimEvidenceTable } from './claim-evidence.ts';
 import type { CatalogItemsTable } from './catalog-items.ts';
 import type { CustomersTable } from './customers.ts';
 import type { VehiclesTable } from './vehicles.ts';
@@ -38,4 +39,5 @@ export interface Database {
   powerPlanRevisions: PowerPlanRevisionsTable;
   warrantyClaims: WarrantyClaimsTable;
   claimEvents: ClaimEventsTable;
+  claimEvidence: ClaimEvidenceTable;
 }

@@ -2,7 +2,7 @@ import type { ClaimDetail } from '@busbar/shared';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { demoIds, startHarness, type Agent, type Harness } from '../support/api-harness.ts';
 import { auditOf } from '../support/catalog-fixtures.ts';
-import { addDeliveredUnit } from '../support/claim-fixtures.ts';
+import { addDeliveredUnit, sendWithEvidence, uploadEvidence } from '../support/claim-fixtures.ts';
 import { SIGN_INS, type SignIn } from '../support/staff-fixtures.ts';
 
 let h: Harness;
@@ -45,9 +45,10 @@ describe('a claim from logging to closing', () => {
 
   it('walks the workflow with who may take each step, the lead approving within the limit', async () => {
     let claim = (await agents.warranty.post('/api/claims').send(claimBody(unit.buildItemId))).body as ClaimDetail;
-    claim = (await move('warranty', claim, 'evidence_ready')).body;
-    expect((await move('tech', claim, 'sent_to_vendor')).status).toBe(404);
-    claim = (await move('warranty', claim, 'sent_to_vendor')).body;
+    expect((await move('warranty', claim, 'evidence_ready')).body.error.fields.to).toContain('Upload a photo');
+    expect((await move('tech', claim, 'evidence_ready')).status).toBe(404);
+    claim = await sendWithEvidence(agents.warranty, claim);
+    expect(claim.status).toBe('sent_to_vendor');
     expect((await move('warranty', claim, 'approved')).status).toBe(403);
     const approved = await move('lead', claim, 'approved', { creditApprovedCents: 28_000, note: 'Vendor RMA granted' });
     expect(approved.status).toBe(200);
@@ -57,13 +58,13 @@ describe('a claim from logging to closing', () => {
     claim = (await move('warranty', claim, 'credited', { creditReceivedCents: 28_000 })).body;
     claim = (await move('warranty', claim, 'closed')).body;
     expect(claim.events.map((e) => e.toStatus)).toEqual(['logged', 'evidence_ready', 'sent_to_vendor', 'approved', 'credited', 'closed']);
+    expect(claim.events[2]?.note).toMatch(/^Return request e-mailed to rma\.\d+@vendor\.busbar\.test with 1 file$/);
     expect(claim.events[3]).toMatchObject({ note: 'Vendor RMA granted', actorName: expect.any(String) });
   });
 
   it('sends a credit above the location limit to the regional manager', async () => {
     let claim = (await agents.warranty.post('/api/claims').send(claimBody(unit.buildItemId, { creditRequestedCents: 120_000 }))).body as ClaimDetail;
-    claim = (await move('warranty', claim, 'evidence_ready')).body;
-    claim = (await move('warranty', claim, 'sent_to_vendor')).body;
+    claim = await sendWithEvidence(agents.warranty, claim);
     const byLead = await move('lead', claim, 'approved');
     expect(byLead.status).toBe(403);
     expect(byLead.body.error.message).toContain('regional manager');
@@ -71,19 +72,16 @@ describe('a claim from logging to closing', () => {
   });
 
   it('lets the regional manager approve above the limit and the lead deny', async () => {
-    let claim = (await agents.warranty.post('/api/claims').send(claimBody(unit.buildItemId, { creditRequestedCents: 120_000 }))).body as ClaimDetail;
-    claim = (await move('warranty', claim, 'evidence_ready')).body;
-    claim = (await move('warranty', claim, 'sent_to_vendor')).body;
+    const claim = await sendWithEvidence(agents.warranty, (await agents.warranty.post('/api/claims').send(claimBody(unit.buildItemId, { creditRequestedCents: 120_000 }))).body);
     expect((await move('regional', claim, 'approved')).body).toMatchObject({ status: 'approved', creditApprovedCents: 120_000 });
-    let other = (await agents.warranty.post('/api/claims').send(claimBody(unit.buildItemId))).body as ClaimDetail;
-    other = (await move('warranty', other, 'evidence_ready')).body;
-    other = (await move('warranty', other, 'sent_to_vendor')).body;
+    const other = await sendWithEvidence(agents.warranty, (await agents.warranty.post('/api/claims').send(claimBody(unit.buildItemId))).body);
     expect((await move('lead', other, 'denied', { note: 'Vendor found impact damage' })).body.status).toBe('denied');
   });
 
   it('refuses steps the workflow does not have, and stale versions', async () => {
     const claim = (await agents.warranty.post('/api/claims').send(claimBody(unit.buildItemId))).body as ClaimDetail;
     expect((await move('warranty', claim, 'credited')).status).toBe(400);
+    await uploadEvidence(agents.warranty, claim.id);
     expect((await move('warranty', claim, 'evidence_ready')).status).toBe(200);
     expect((await move('warranty', claim, 'logged')).status).toBe(409);
   });
@@ -92,8 +90,7 @@ describe('a claim from logging to closing', () => {
     let claim = (await agents.warranty.post('/api/claims').send(claimBody(unit.buildItemId))).body as ClaimDetail;
     const edited = await agents.warranty.patch(`/api/claims/${claim.id}`).send({ version: claim.version, vendorRmaNumber: 'RMA-5521', laborHours: 1.5 });
     expect(edited.body).toMatchObject({ vendorRmaNumber: 'RMA-5521', laborHours: 1.5, version: 2 });
-    claim = edited.body;
-    for (const to of ['evidence_ready', 'sent_to_vendor']) claim = (await move('warranty', claim, to)).body;
+    claim = await sendWithEvidence(agents.warranty, edited.body);
     claim = (await move('lead', claim, 'denied')).body;
     expect((await agents.warranty.patch(`/api/claims/${claim.id}`).send({ version: claim.version, symptoms: 'x' })).status).toBe(409);
   });

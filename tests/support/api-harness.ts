@@ -18,6 +18,8 @@ export interface Harness {
   db: Db;
   mail: MailCapture;
   clock: { now: Date };
+  /** The data folder of this run (database, uploads). */
+  dataDir: string;
   /** A supertest agent that has fetched the forgery-protection cookie and sends it back as a header. */
   agent(): Promise<Agent>;
   /** An agent signed in as a demo person (by e-mail). */
@@ -95,6 +97,7 @@ export async function startHarness(
     db,
     mail,
     clock,
+    dataDir,
     agent,
     signedIn,
     lastMailTo,

@@ -1,4 +1,6 @@
 import type { Db } from '@busbar/db';
+import type { ClaimDetail } from '@busbar/shared';
+import type { Agent } from './api-harness.ts';
 import { addCustomerWithVehicle } from './build-fixtures.ts';
 import { addCatalogItem, addVendor } from './catalog-fixtures.ts';
 
@@ -44,4 +46,21 @@ export async function addDeliveredUnit(db: Db, locationId: number, { deliveredAt
     .returning('id')
     .executeTakeFirstOrThrow();
   return { buildId: build.id, buildItemId: unit.id, vendor, item };
+}
+
+/** An 8 × 6 px PNG (a copper swatch), small enough to send in every test. */
+export const SMALL_PNG = Buffer.from('iVBORw0KGgoAAAANSUhEUgAAAAgAAAAGCAIAAABxZ0isAAAAEUlEQVR4nGM4UWqMFTEMpAQAVLJFAbEN4AUAAAAASUVORK5CYII=', 'base64');
+
+/** Uploads a file to a claim as `agent`, the way the browser's form does. */
+export const uploadEvidence = (agent: Agent, claimId: number, bytes: Buffer = SMALL_PNG, fileName = 'terminal.png') =>
+  agent.post(`/api/claims/${claimId}/evidence`).attach('file', bytes, { filename: fileName, contentType: 'image/png' });
+
+/** A photo up, evidence ready, and the request e-mailed to the vendor, as the clerk does it. */
+export async function sendWithEvidence(agent: Agent, claim: ClaimDetail): Promise<ClaimDetail> {
+  await uploadEvidence(agent, claim.id);
+  const ready = await agent.post(`/api/claims/${claim.id}/status`).send({ version: claim.version, to: 'evidence_ready' });
+  if (ready.status !== 200) throw new Error(`evidence_ready answered ${ready.status}: ${JSON.stringify(ready.body)}`);
+  const sent = await agent.post(`/api/claims/${claim.id}/send`).send({ version: ready.body.version });
+  if (sent.status !== 200) throw new Error(`sending answered ${sent.status}: ${JSON.stringify(sent.body)}`);
+  return sent.body as ClaimDetail;
 }

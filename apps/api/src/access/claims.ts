@@ -3,6 +3,7 @@ import { subject } from '@casl/ability';
 import type { ClaimDetail } from '@busbar/shared';
 import { notFound } from '../errors.ts';
 import { claimEvents, findClaim, type ClaimRow } from '../queries/claims.ts';
+import { claimEvidence } from '../queries/evidence.ts';
 import type { Viewer } from './viewer.ts';
 
 /**
@@ -21,5 +22,6 @@ export async function loadClaim(db: Db, viewer: Viewer, id: number): Promise<Cla
 
 export async function claimDetail(db: Db, viewer: Viewer, id: number): Promise<ClaimDetail> {
   const { approvalLimitCents: _, ...claim } = await loadClaim(db, viewer, id);
-  return { ...claim, events: await claimEvents(db, id) };
+  const [events, evidence] = await Promise.all([claimEvents(db, id), claimEvidence(db, id)]);
+  return { ...claim, events, evidence };
 }

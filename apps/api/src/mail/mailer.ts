@@ -9,6 +9,8 @@ export interface OutgoingMail {
   text: string;
   /** A secret in the text (an invite token) that the mail log must not keep in production. */
   secret?: string;
+  /** Files sent with the message; the mail log names them. */
+  attachments?: { filename: string; content: Buffer; contentType: string }[];
 }
 
 export interface Mailer {
@@ -24,15 +26,15 @@ export interface Mailer {
  */
 export function createMailer(db: Db, smtpUrl: string, from: string, now: () => Date, keepSecrets: boolean): Mailer {
   const transport = nodemailer.createTransport(smtpUrl);
-  const logged = ({ to, subject, text, secret }: OutgoingMail) => ({
-    to,
-    subject,
-    text: secret && !keepSecrets ? text.replaceAll(secret, '[removed from the log]') : text,
-  });
+  const logged = ({ to, subject, text, secret, attachments = [] }: OutgoingMail) => {
+    const kept = secret && !keepSecrets ? text.replaceAll(secret, '[removed from the log]') : text;
+    const named = attachments.length > 0 ? `\n\nAttached: ${attachments.map((a) => a.filename).join(', ')}` : '';
+    return { to, subject, text: kept + named };
+  };
   return {
     async send(mail) {
       try {
-        await transport.sendMail({ from, to: mail.to, subject: mail.subject, text: mail.text });
+        await transport.sendMail({ from, to: mail.to, subject: mail.subject, text: mail.text, attachments: mail.attachments });
       } catch (error) {
         await logMail(db, { ...logged(mail), sentAt: now().toISOString(), status: 'failed', error: String(error) });
         throw new HttpError(502, 'mail_failed', 'The e-mail could not be sent, so nothing was changed. Try again later.');

@@ -9,6 +9,7 @@ import { viewerOf } from '../middleware/session.ts';
 import { validate } from '../middleware/validate.ts';
 import { writeAudit } from '../queries/audit.ts';
 import { addClaimEvent, changeClaim, listClaims, nextClaimNumber } from '../queries/claims.ts';
+import { countLiveEvidence } from '../queries/evidence.ts';
 
 /** Claims may be edited until the vendor has answered. */
 const EDITABLE = ['logged', 'evidence_ready', 'sent_to_vendor'];
@@ -85,6 +86,8 @@ export function claimsRouter({ db, now }: AppContext): Router {
         const aboveLimit = approvedCents !== undefined && viewer.ability.can(transition.action, claimSubject(row));
         throw forbidden(aboveLimit ? 'This credit is above the location’s approval limit: the regional manager approves it' : 'You cannot make this change of status');
       }
+      if (body.to === 'sent_to_vendor') throw invalidField('to', 'Use Send to vendor: it e-mails the return request first');
+      if (body.to === 'evidence_ready' && (await countLiveEvidence(db, row.id)) === 0) throw invalidField('to', 'Upload a photo or document of the failure first');
       if (body.to === 'credited' && body.creditReceivedCents === undefined) throw invalidField('creditReceivedCents', 'Enter the credit the vendor gave');
       await db.transaction().execute(async (trx) => {
         const at = now().toISOString();

@@ -53,6 +53,7 @@ export const FAILURE_MODE_LABELS: Record<FailureMode, string> = {
 export const CLAIM_TRANSITIONS: readonly { from: ClaimStatus; to: ClaimStatus; action: 'update' | 'send' | 'approve' }[] = [
   { from: 'logged', to: 'evidence_ready', action: 'update' },
   { from: 'evidence_ready', to: 'logged', action: 'update' },
+  // Only through "Send to vendor" (POST /api/claims/:id/send), which e-mails the request first.
   { from: 'evidence_ready', to: 'sent_to_vendor', action: 'send' },
   { from: 'sent_to_vendor', to: 'approved', action: 'approve' },
   { from: 'sent_to_vendor', to: 'denied', action: 'approve' },
@@ -154,6 +155,28 @@ export interface ClaimEventView {
   note: string;
 }
 
+/** A photo or document on a claim; a deleted one stays listed with who deleted it and why. */
+export interface EvidenceView {
+  id: number;
+  fileName: string;
+  contentType: string;
+  sizeBytes: number;
+  hasThumbnail: boolean;
+  uploadedAt: string;
+  uploadedByName: string | null;
+  deletedAt: string | null;
+  deletedByName: string | null;
+  deleteReason: string | null;
+}
+
+/** "Send to vendor": the version the person saw. */
+export const claimSend = z.strictObject({ version: z.int().min(1) });
+
+export const evidenceParams = z.strictObject({ id: idSchema, evidenceId: idSchema });
+export const evidenceFileQuery = z.strictObject({ thumbnail: z.literal('true').optional() });
+export const evidenceDelete = z.strictObject({ reason: text(500).min(1, 'Say why the file is removed') });
+
 export interface ClaimDetail extends ClaimView {
   events: ClaimEventView[];
+  evidence: EvidenceView[];
 }
