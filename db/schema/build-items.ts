@@ -12,4 +12,6 @@ export interface BuildItemsTable {
   unitPriceCents: number;
   unitCostCents: number;
   createdAt: string;
+  /** The day the unit was taken out (replaced under a warranty claim); null while in service. */
+  removedOn: Generated<string | null>;
 }

@@ -23,6 +23,8 @@ export interface WarrantyClaimsTable {
   creditRequestedCents: number;
   creditApprovedCents: Generated<number | null>;
   creditReceivedCents: Generated<number | null>;
+  /** The build line of the unit put in instead, once there is one. */
+  replacementItemId: Generated<number | null>;
   createdBy: number | null;
   createdAt: string;
   updatedAt: string;

@@ -13,6 +13,7 @@ import { buildPlanRouter } from './routes/build-plan.ts';
 import { buildsRouter } from './routes/builds.ts';
 import { catalogRouter } from './routes/catalog.ts';
 import { claimEvidenceRouter } from './routes/claim-evidence.ts';
+import { claimReplacementRouter } from './routes/claim-replacement.ts';
 import { claimSendRouter } from './routes/claim-send.ts';
 import { claimsRouter } from './routes/claims.ts';
 import { customersRouter } from './routes/customers.ts';
@@ -69,7 +70,7 @@ export function createApp(ctx: AppContext): Express {
   app.use('/api/vehicles', requireSession(db), vehiclesRouter(ctx));
   app.use('/api/builds', requireSession(db), buildsRouter(ctx), buildItemsRouter(ctx), buildPlanRouter(ctx));
   app.use('/api/plans', requireSession(db), planStockRouter(ctx), plansRouter(ctx));
-  app.use('/api/claims', requireSession(db), claimsRouter(ctx), claimEvidenceRouter(ctx), claimSendRouter(ctx));
+  app.use('/api/claims', requireSession(db), claimsRouter(ctx), claimEvidenceRouter(ctx), claimSendRouter(ctx), claimReplacementRouter(ctx));
   app.use('/api/serials', requireSession(db), serialsRouter(ctx));
   app.use('/api/imports', requireSession(db), importsRouter(ctx));
   app.use('/api', requireSession(db), adminRouter(ctx));

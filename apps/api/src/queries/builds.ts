@@ -83,7 +83,7 @@ export async function buildItems(db: Db, buildId: number): Promise<Required<Buil
   const rows = await db
     .selectFrom('buildItems as i')
     .innerJoin('catalogItems as ci', 'ci.id', 'i.catalogItemId')
-    .select(['i.id', 'i.catalogItemId', 'i.sku', 'ci.name', 'ci.category', 'i.quantity', 'ci.serialized', 'i.serialNumber', 'i.unitPriceCents', 'i.unitCostCents'])
+    .select(['i.id', 'i.catalogItemId', 'i.sku', 'ci.name', 'ci.category', 'i.quantity', 'ci.serialized', 'i.serialNumber', 'i.removedOn', 'i.unitPriceCents', 'i.unitCostCents'])
     .where('i.buildId', '=', buildId)
     .orderBy('i.id')
     .execute();

@@ -15,11 +15,13 @@ function claimsWithNames(db: Db) {
     .innerJoin('catalogItems as ci', 'ci.id', 'i.catalogItemId')
     .innerJoin('vendors as v', 'v.id', 'ci.vendorId')
     .innerJoin('locations as l', 'l.id', 'w.locationId')
+    .leftJoin('buildItems as r', 'r.id', 'w.replacementItemId')
     .select([
       'w.id', 'w.number', 'w.locationId', 'w.buildId', 'b.number as buildNumber', 'w.buildItemId', 'i.sku', 'ci.name as itemName',
       'i.serialNumber', 'ci.vendorId', 'v.name as vendorName', 'b.deliveredAt as installedOn', 'w.failedOn', 'w.failureMode',
       'w.coverage', 'w.symptoms', 'w.foundHow', 'w.laborHours', 'w.outOfWarranty', 'w.status', 'w.vendorRmaNumber',
-      'w.creditRequestedCents', 'w.creditApprovedCents', 'w.creditReceivedCents', 'w.createdAt', 'w.updatedAt', 'w.version',
+      'w.creditRequestedCents', 'w.creditApprovedCents', 'w.creditReceivedCents', 'w.replacementItemId', 'r.serialNumber as replacementSerialNumber',
+      'w.createdAt', 'w.updatedAt', 'w.version',
       'l.claimApprovalLimitCents as approvalLimitCents', 'l.timeZone',
     ]);
 }
@@ -79,7 +81,7 @@ export async function nextClaimNumber(db: Db, location: { id: number; code: stri
 }
 
 type ClaimChange = Partial<{
-  [K in 'failedOn' | 'failureMode' | 'coverage' | 'symptoms' | 'foundHow' | 'laborHours' | 'creditRequestedCents' | 'vendorRmaNumber' | 'status' | 'creditApprovedCents' | 'creditReceivedCents']: ClaimRow[K];
+  [K in 'failedOn' | 'failureMode' | 'coverage' | 'symptoms' | 'foundHow' | 'laborHours' | 'creditRequestedCents' | 'vendorRmaNumber' | 'status' | 'creditApprovedCents' | 'creditReceivedCents' | 'replacementItemId']: ClaimRow[K];
 }>;
 
 /** Applies a change made against `version`; a claim changed since answers 409 stale. */

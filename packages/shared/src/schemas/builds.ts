@@ -77,7 +77,8 @@ export const buildStatusChange = z.strictObject({
   note: z.string().trim().max(1000).default(''),
 });
 
-const serialNumber = z
+/** A serial number as recorded on a build line. */
+export const serialNumberSchema = z
   .string()
   .trim()
   .min(1, 'Enter the serial number')
@@ -88,12 +89,12 @@ export const buildItemAdd = z.strictObject({
   version: z.int().min(1),
   catalogItemId: z.int().positive({ error: 'Choose a component' }),
   quantity: z.int('Whole units').min(1, 'At least 1').max(999),
-  serialNumber: serialNumber.nullable().default(null),
+  serialNumber: serialNumberSchema.nullable().default(null),
 });
 export const buildItemUpdate = z.strictObject({
   version: z.int().min(1),
   quantity: z.int('Whole units').min(1, 'At least 1').max(999).optional(),
-  serialNumber: serialNumber.nullable().optional(),
+  serialNumber: serialNumberSchema.nullable().optional(),
 });
 export const buildItemParams = z.strictObject({ id: idSchema, itemId: idSchema });
 export const versionQuery = z.strictObject({ version: z.coerce.number().int().min(1) });
@@ -125,6 +126,8 @@ export interface BuildItemView {
   /** Whether each unit carries a serial number (from the catalog item). */
   serialized: boolean;
   serialNumber: string | null;
+  /** The day the unit was taken out under a warranty claim; null while in service. */
+  removedOn: string | null;
   unitPriceCents?: number;
   unitCostCents?: number;
 }

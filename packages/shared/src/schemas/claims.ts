@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { serialNumberSchema } from './builds.ts';
 import { idSchema, pagingOf } from './common.ts';
 
 /** Where a warranty claim stands, in order (DESIGN.md). */
@@ -142,6 +143,9 @@ export interface ClaimView {
   creditRequestedCents: number;
   creditApprovedCents: number | null;
   creditReceivedCents: number | null;
+  /** The build line of the unit put in instead, and its serial number. */
+  replacementItemId: number | null;
+  replacementSerialNumber: string | null;
   createdAt: string;
   updatedAt: string;
   version: number;
@@ -168,6 +172,15 @@ export interface EvidenceView {
   deletedByName: string | null;
   deleteReason: string | null;
 }
+
+/** The unit put in instead of the failed one: a new line of the build, the failed unit removed that day. */
+export const claimReplacement = z.strictObject({
+  version: z.int().min(1),
+  serialNumber: serialNumberSchema,
+  replacedOn: isoDate,
+  /** Another catalog item when the same one is no longer made; the failed unit's when absent. */
+  catalogItemId: z.int().positive().optional(),
+});
 
 /** "Send to vendor": the version the person saw. */
 export const claimSend = z.strictObject({ version: z.int().min(1) });
