@@ -79,6 +79,13 @@ describe('the planner on unsafe plans', () => {
       expect.stringMatching(/^Critical\s*Circuit DC-DC charger → House battery: it needs a fuse or breaker within 178 mm \(7 in\) of the house battery/),
     ]);
 
+    // A limit reads in the units the person types in.
+    const lowest = page.getByLabel('Lowest temperature');
+    await fill(lowest, '-70');
+    await page.getByText('Lowest temperature must be at least -58 °F', { exact: true }).first().waitFor();
+    await fill(lowest, '');
+    await expect.poll(() => page.getByText('Lowest temperature must be at least', { exact: false }).count(), { timeout: 5000 }).toBe(0);
+
     await page.getByLabel('Plan name').fill('Adeyemi, cooktop van');
     await page.getByRole('button', { name: 'Save plan' }).click();
     await page.getByRole('heading', { level: 1, name: 'Adeyemi, cooktop van' }).waitFor();

@@ -53,6 +53,15 @@ export function useUnits() {
   const storedTemperature = (shown: number | undefined) => (typeof shown === 'number' ? (imperial.value ? round(((shown - 32) * 5) / 9, 2) : shown) : undefined);
   const formatTemperature = (c: number) => `${shownTemperature(c)} ${temperatureUnit.value}`;
 
+  /** A message's quantities ("at most 5,000 mm", "at least -50 °C") in the units the person types in. */
+  const inShownUnits = (message: string) =>
+    imperial.value
+      ? message.replace(/(-?\d[\d,]*(?:\.\d+)?) (mm|m|°C)(?![\w²])/g, (_, figure: string, unit: string) => {
+          const value = Number(figure.replace(/,/g, ''));
+          return unit === 'mm' ? formatDistance(value) : unit === 'm' ? formatLength(value) : formatTemperature(value);
+        })
+      : message;
+
   /** A conductor in its own sizes, with the cross-section beside an AWG size for metric readers. */
   const sizeLabel = (size: ConductorSize) =>
     'awg' in size && !imperial.value ? `${conductorLabel(size)} (${round(awgAreaMm2(size.awg), 1)} mm²)` : conductorLabel(size);
@@ -73,6 +82,7 @@ export function useUnits() {
     shownTemperature,
     storedTemperature,
     formatTemperature,
+    inShownUnits,
     sizeLabel,
   };
 }
