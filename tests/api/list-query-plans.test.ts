@@ -1,0 +1,99 @@
+import type { Db } from '@busbar/db';
+import { auditQuery, buildQuery, customerQuery, quickPlanQuery, serialQuery } from '@busbar/shared';
+import { CompiledQuery, createQueryId, sql, type KyselyPlugin, type RootOperationNode } from 'kysely';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { LocationScope } from '../../apps/api/src/access/locations.ts';
+import { listAudit } from '../../apps/api/src/queries/audit.ts';
+import { listBuilds } from '../../apps/api/src/queries/builds.ts';
+import { listCustomers } from '../../apps/api/src/queries/customers.ts';
+import { listQuickPlans } from '../../apps/api/src/queries/plans.ts';
+import { findSerials } from '../../apps/api/src/queries/serials.ts';
+import { demoIds, startHarness, type Harness } from '../support/api-harness.ts';
+
+/**
+ * SQLite's plan for every list query, on the demo network with statistics gathered: builds,
+ * build lines and customers are read through an index, never row by row through the table.
+ */
+let h: Harness;
+let den: number;
+const sent: RootOperationNode[] = [];
+const recorder: KyselyPlugin = {
+  transformQuery: ({ node }) => {
+    sent.push(node);
+    return node;
+  },
+  transformResult: async ({ result }) => result,
+};
+
+beforeAll(async () => {
+  h = await startHarness({}, true, { history: true });
+  den = (await demoIds(h.db)).location('DEN');
+  await sql`pragma optimize = 0x10002`.execute(h.db);
+}, 60_000);
+afterAll(() => h.close());
+
+/** The plan of each statement `run` sends, line by line. */
+async function plansOf(run: (db: Db) => Promise<unknown>): Promise<string[][]> {
+  sent.length = 0;
+  await run(h.db.withPlugin(recorder));
+  const plans: string[][] = [];
+  for (const node of [...sent]) {
+    const compiled = h.db.getExecutor().compileQuery(node, createQueryId());
+    const plan = await h.db.executeQuery<{ detail: string }>(CompiledQuery.raw(`explain query plan ${compiled.sql}`, [...compiled.parameters]));
+    plans.push(plan.rows.map((r) => r.detail));
+  }
+  return plans;
+}
+
+/**
+ * Statements that read a big table whole: row by row through the table, or through an index
+ * that is then sorted (a walk in the index's own order stops at the page's LIMIT).
+ */
+const tableScans = (plans: string[][]) =>
+  plans.flatMap((lines) => {
+    const scans = lines.filter((line) => /^SCAN (b|i|c|customers)\b/.test(line));
+    const sorted = lines.some((line) => line.startsWith('USE TEMP B-TREE FOR ORDER BY'));
+    return scans.filter((line) => sorted || !/USING (COVERING )?INDEX/.test(line));
+  });
+
+const BUILD_LISTS: Record<string, Record<string, unknown>> = {
+  'first page': {},
+  'one status': { status: 'delivered' },
+  'two statuses': { status: ['booked', 'in_bay'] },
+  'by number': { sort: 'number', order: 'asc' },
+  'by booked date': { sort: 'bookedFor' },
+  'by total': { sort: 'totalCents' },
+  'booked in a month': { from: '2025-03-01', to: '2025-03-31', sort: 'bookedFor' },
+  'a deep page': { page: '40' },
+  'text search': { q: 'Marrow' },
+};
+
+describe('list query plans', () => {
+  for (const [who, scope] of [['the owner', 'all'], ['a lead', 'den']] as const) {
+    it.each(Object.entries(BUILD_LISTS))(`reads builds for ${who} through indexes: %s`, async (_name, query) => {
+      const plans = await plansOf((db) => listBuilds(db, scope === 'all' ? 'all' : [den], buildQuery.parse(query)));
+      expect(plans.flat().some((line) => /USING (COVERING )?INDEX|USING INTEGER PRIMARY KEY|VIRTUAL TABLE/.test(line))).toBe(true);
+      expect(tableScans(plans)).toEqual([]);
+    });
+
+    it(`reads serial numbers, customers and quick plans for ${who} through indexes`, async () => {
+      const at: LocationScope = scope === 'all' ? 'all' : [den];
+      for (const run of [
+        (db: Db) => findSerials(db, at, serialQuery.parse({ q: 'KS' })),
+        (db: Db) => listCustomers(db, { ...customerQuery.parse({}), scope: at, emailScope: at, phoneScope: at }),
+        (db: Db) => listCustomers(db, { ...customerQuery.parse({ q: 'Marrow' }), scope: at, emailScope: at, phoneScope: at }),
+        (db: Db) => listQuickPlans(db, at, quickPlanQuery.parse({})),
+      ]) {
+        expect(tableScans(await plansOf(run))).toEqual([]);
+      }
+    });
+  }
+
+  it('reads the audit log newest first without sorting it, filtered by an index', async () => {
+    for (const query of [{}, { entity: 'build' }]) {
+      const plans = await plansOf((db) => listAudit(db, auditQuery.parse(query)));
+      expect(plans.flat().filter((line) => line.includes('TEMP B-TREE'))).toEqual([]);
+    }
+    expect((await plansOf((db) => listAudit(db, auditQuery.parse({ entity: 'build' })))).flat()).toContain('SEARCH a USING COVERING INDEX audit_log_entity_recent (entity=?)');
+  });
+});
