@@ -10,6 +10,7 @@ import * as createCustomerSearch from './009-create-customer-search.ts';
 import * as createClaims from './007-create-claims.ts';
 import * as createClaimEvidence from './008-create-claim-evidence.ts';
 import * as addUnitReplacement from './009-add-unit-replacement.ts';
+import * as addClaimDueDates from './010-add-claim-due-dates.ts';
 
 /** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
 export const migrations: Record<string, Migration> = {
@@ -22,6 +23,7 @@ export const migrations: Record<string, Migration> = {
   '007-create-claims': createClaims,
   '008-create-claim-evidence': createClaimEvidence,
   '009-add-unit-replacement': addUnitReplacement,
+  '010-add-claim-due-dates': addClaimDueDates,
   '008-index-build-numbers': indexBuildNumbers,
   '009-create-customer-search': createCustomerSearch,
 };

@@ -19,6 +19,8 @@ export interface WarrantyClaimsTable {
   /** 1 when the unit was past its warranty months from delivery when the claim was logged. */
   outOfWarranty: number;
   status: ClaimStatus;
+  /** YYYY-MM-DD in the location's zone by which the next step is due; null when closed. */
+  dueOn: string | null;
   vendorRmaNumber: Generated<string>;
   creditRequestedCents: number;
   creditApprovedCents: Generated<number | null>;

@@ -122,3 +122,28 @@ describe('what a claim may be logged for', () => {
     expect(Object.keys(res.body.error.fields).sort()).toEqual(['failureMode', 'symptoms']);
   });
 });
+
+describe('the queue', () => {
+  it('puts the next step due soonest first, says what is overdue, and filters to it', async () => {
+    const fresh = (await agents.warranty.post('/api/claims').send(claimBody(unit.buildItemId))).body as ClaimDetail;
+    // Logged on 2026-06-15 (Denver): evidence is due within 3 days.
+    expect(fresh).toMatchObject({ dueOn: '2026-06-18', overdue: false });
+    h.clock.now = new Date('2026-06-25T15:00:00Z');
+    try {
+      // Sessions last 12 hours on the clock: ten days on, the clerk signs in again.
+      const clerk = await h.signedIn(SIGN_INS.warranty);
+      const later = (await clerk.post('/api/claims').send(claimBody(unit.buildItemId))).body as ClaimDetail;
+      const queue = (await clerk.get('/api/claims').query({ pageSize: 100 })).body.items as ClaimDetail[];
+      const open = queue.filter((c) => c.dueOn !== null);
+      expect(open.map((c) => c.dueOn)).toEqual([...open.map((c) => c.dueOn)].sort());
+      expect(queue.findIndex((c) => c.dueOn === null)).toBeGreaterThanOrEqual(open.length);
+      expect(queue.find((c) => c.id === fresh.id)).toMatchObject({ overdue: true });
+      const overdue = (await clerk.get('/api/claims').query({ overdue: 'true', pageSize: 100 })).body.items as ClaimDetail[];
+      expect(overdue.map((c) => c.id)).toContain(fresh.id);
+      expect(overdue.map((c) => c.id)).not.toContain(later.id);
+      expect(overdue.every((c) => c.overdue)).toBe(true);
+    } finally {
+      h.clock.now = new Date('2026-06-15T15:00:00Z');
+    }
+  });
+});

@@ -1,8 +1,8 @@
 import type { Db } from '@busbar/db';
 import { subject } from '@casl/ability';
-import type { ClaimDetail } from '@busbar/shared';
+import type { ClaimDetail, ClaimView } from '@busbar/shared';
 import { notFound } from '../errors.ts';
-import { claimEvents, findClaim, type ClaimRow } from '../queries/claims.ts';
+import { claimEvents, findClaim, localToday, type ClaimRow } from '../queries/claims.ts';
 import { claimEvidence } from '../queries/evidence.ts';
 import type { Viewer } from './viewer.ts';
 
@@ -20,8 +20,13 @@ export async function loadClaim(db: Db, viewer: Viewer, id: number): Promise<Cla
   return row;
 }
 
-export async function claimDetail(db: Db, viewer: Viewer, id: number): Promise<ClaimDetail> {
-  const { approvalLimitCents: _, ...claim } = await loadClaim(db, viewer, id);
+/** A claim as people see it: overdue when its next step is past due today at its location. */
+export function claimView({ approvalLimitCents: _, timeZone, ...row }: ClaimRow, now: Date): ClaimView {
+  return { ...row, overdue: row.dueOn !== null && row.dueOn < localToday(timeZone, now) };
+}
+
+export async function claimDetail(db: Db, viewer: Viewer, id: number, now: Date): Promise<ClaimDetail> {
+  const claim = await loadClaim(db, viewer, id);
   const [events, evidence] = await Promise.all([claimEvents(db, id), claimEvidence(db, id)]);
-  return { ...claim, events, evidence };
+  return { ...claimView(claim, now), events, evidence };
 }

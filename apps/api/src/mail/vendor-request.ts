@@ -1,7 +1,7 @@
 import { FAILURE_MODE_LABELS, type ClaimView } from '@busbar/shared';
 
 /** The return request Busbar sends a vendor: our own wording, every fact the vendor asks for, the evidence attached. */
-export function vendorRequest(claim: ClaimView, shop: { name: string }, sender: { name: string; email: string }, files: number) {
+export function vendorRequest(claim: Omit<ClaimView, 'overdue'>, shop: { name: string }, sender: { name: string; email: string }, files: number) {
   const lines = [
     `Hello ${claim.vendorName} warranty team,`,
     '',

@@ -1,11 +1,21 @@
 import { isoDay, localDay } from '@busbar/calc';
 import type { Db } from '@busbar/db';
-import type { ClaimEventView, ClaimQuery, ClaimStatus, ClaimView, Page } from '@busbar/shared';
+import { CLAIM_DUE_DAYS, type ClaimEventView, type ClaimQuery, type ClaimStatus, type ClaimView, type Page } from '@busbar/shared';
+import { sql } from 'kysely';
 import { stale } from '../errors.ts';
 import type { LocationScope } from '../access/locations.ts';
 
-/** A claim as stored, with what it names, plus its location's approval limit (for the rules only). */
-export type ClaimRow = ClaimView & { approvalLimitCents: number };
+/** A claim as stored, with what it names, plus its location's approval limit (for the rules) and zone (for its days). */
+export type ClaimRow = Omit<ClaimView, 'overdue'> & { approvalLimitCents: number; timeZone: string };
+
+/** Today at a location, YYYY-MM-DD. */
+export const localToday = (timeZone: string, now: Date) => isoDay(localDay(timeZone, now.getTime()));
+
+/** The day the step after `status` is due, counted from today at the location; null once closed. */
+export function dueOnFor(status: ClaimStatus, timeZone: string, now: Date): string | null {
+  const days = CLAIM_DUE_DAYS[status];
+  return days === null ? null : isoDay(localDay(timeZone, now.getTime()) + days);
+}
 
 function claimsWithNames(db: Db) {
   return db
@@ -19,7 +29,7 @@ function claimsWithNames(db: Db) {
     .select([
       'w.id', 'w.number', 'w.locationId', 'w.buildId', 'b.number as buildNumber', 'w.buildItemId', 'i.sku', 'ci.name as itemName',
       'i.serialNumber', 'ci.vendorId', 'v.name as vendorName', 'b.deliveredAt as installedOn', 'w.failedOn', 'w.failureMode',
-      'w.coverage', 'w.symptoms', 'w.foundHow', 'w.laborHours', 'w.outOfWarranty', 'w.status', 'w.vendorRmaNumber',
+      'w.coverage', 'w.symptoms', 'w.foundHow', 'w.laborHours', 'w.outOfWarranty', 'w.status', 'w.dueOn', 'w.vendorRmaNumber',
       'w.creditRequestedCents', 'w.creditApprovedCents', 'w.creditReceivedCents', 'w.replacementItemId', 'r.serialNumber as replacementSerialNumber',
       'w.createdAt', 'w.updatedAt', 'w.version',
       'l.claimApprovalLimitCents as approvalLimitCents', 'l.timeZone',
@@ -28,10 +38,10 @@ function claimsWithNames(db: Db) {
 
 type Raw = Awaited<ReturnType<ReturnType<typeof claimsWithNames>['executeTakeFirstOrThrow']>>;
 // The unit went in on its build's delivery day, in the location's own zone.
-const toRow = ({ outOfWarranty, installedOn, timeZone, ...raw }: Raw): ClaimRow => ({
+const toRow = ({ outOfWarranty, installedOn, ...raw }: Raw): ClaimRow => ({
   ...raw,
   outOfWarranty: outOfWarranty === 1,
-  installedOn: installedOn ? isoDay(localDay(timeZone, Date.parse(installedOn))) : null,
+  installedOn: installedOn ? isoDay(localDay(raw.timeZone, Date.parse(installedOn))) : null,
 });
 
 export async function findClaim(db: Db, id: number): Promise<ClaimRow | undefined> {
@@ -39,10 +49,12 @@ export async function findClaim(db: Db, id: number): Promise<ClaimRow | undefine
   return raw && toRow(raw);
 }
 
-/** One page of the claims at the given locations, oldest open work first. */
-export async function listClaims(db: Db, scope: LocationScope, query: ClaimQuery): Promise<Page<ClaimRow>> {
+/** One page of the claims at the given locations: the next step due soonest (overdue) first, closed claims last. */
+export async function listClaims(db: Db, scope: LocationScope, query: ClaimQuery, now: Date): Promise<Page<ClaimRow>> {
   const page = { page: query.page, pageSize: query.pageSize };
   if (scope !== 'all' && scope.length === 0) return { items: [], total: 0, totalCapped: false, ...page };
+  // "Overdue" is against each location's own today; the network has a handful of zones.
+  const zones = query.overdue ? (await db.selectFrom('locations').select('timeZone').distinct().execute()).map((l) => l.timeZone) : [];
   const filtered = claimsWithNames(db).where((eb) => {
     const conditions = scope === 'all' ? [] : [eb('w.locationId', 'in', scope)];
     if (query.status) conditions.push(eb('w.status', '=', query.status));
@@ -50,10 +62,17 @@ export async function listClaims(db: Db, scope: LocationScope, query: ClaimQuery
     if (query.failureMode) conditions.push(eb('w.failureMode', '=', query.failureMode));
     if (query.locationId) conditions.push(eb('w.locationId', '=', query.locationId));
     if (query.buildId) conditions.push(eb('w.buildId', '=', query.buildId));
+    if (query.overdue) conditions.push(eb.or(zones.map((zone) => eb.and([eb('l.timeZone', '=', zone), eb('w.dueOn', '<', localToday(zone, now))]))));
     return eb.and(conditions);
   });
   const [items, count] = await Promise.all([
-    filtered.orderBy('w.createdAt', 'asc').orderBy('w.id', 'asc').limit(query.pageSize).offset((query.page - 1) * query.pageSize).execute(),
+    filtered
+      .orderBy(sql`w.due_on is null`)
+      .orderBy('w.dueOn', 'asc')
+      .orderBy('w.id', 'asc')
+      .limit(query.pageSize)
+      .offset((query.page - 1) * query.pageSize)
+      .execute(),
     filtered.clearSelect().select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow(),
   ]);
   return { items: items.map(toRow), total: Number(count.n), totalCapped: false, ...page };
@@ -81,7 +100,7 @@ export async function nextClaimNumber(db: Db, location: { id: number; code: stri
 }
 
 type ClaimChange = Partial<{
-  [K in 'failedOn' | 'failureMode' | 'coverage' | 'symptoms' | 'foundHow' | 'laborHours' | 'creditRequestedCents' | 'vendorRmaNumber' | 'status' | 'creditApprovedCents' | 'creditReceivedCents' | 'replacementItemId']: ClaimRow[K];
+  [K in 'dueOn' | 'failedOn' | 'failureMode' | 'coverage' | 'symptoms' | 'foundHow' | 'laborHours' | 'creditRequestedCents' | 'vendorRmaNumber' | 'status' | 'creditApprovedCents' | 'creditReceivedCents' | 'replacementItemId']: ClaimRow[K];
 }>;
 
 /** Applies a change made against `version`; a claim changed since answers 409 stale. */

@@ -47,7 +47,7 @@ export function claimEvidenceRouter({ db, config, now }: AppContext): Router {
         await discardEvidence(config.dataDir, stored.storedName);
         throw error;
       }
-      res.status(201).json(await claimDetail(db, viewer, claim.id));
+      res.status(201).json(await claimDetail(db, viewer, claim.id, now()));
     }),
   );
 
@@ -81,7 +81,7 @@ export function claimEvidenceRouter({ db, config, now }: AppContext): Router {
         await writeAudit(trx, { at, actorId: viewer.id, action: 'claim.evidence.delete', entity: 'claim', entityId: claim.id, before: { evidenceId: evidence.id, fileName: evidence.fileName }, after: { reason: body.reason } });
       });
       await discardEvidence(config.dataDir, evidence.storedName);
-      res.json(await claimDetail(db, viewer, claim.id));
+      res.json(await claimDetail(db, viewer, claim.id, now()));
     }),
   );
 

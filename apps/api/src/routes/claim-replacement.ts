@@ -45,7 +45,7 @@ export function claimReplacementRouter({ db, now }: AppContext): Router {
         await addBuildEvent(trx, { buildId: claim.buildId, at, actorId: viewer.id, kind: 'correction', note });
         await writeAudit(trx, { at, actorId: viewer.id, action: 'claim.replace', entity: 'claim', entityId: claim.id, after: { replacementItemId: line.id, sku: item.sku, serialNumber: body.serialNumber, replacedOn: body.replacedOn } });
       });
-      res.json(await claimDetail(db, viewer, claim.id));
+      res.json(await claimDetail(db, viewer, claim.id, now()));
     }),
   );
   return router;

@@ -8,7 +8,7 @@ import { vendorRequest } from '../mail/vendor-request.ts';
 import { viewerOf } from '../middleware/session.ts';
 import { validate } from '../middleware/validate.ts';
 import { writeAudit } from '../queries/audit.ts';
-import { addClaimEvent, changeClaim } from '../queries/claims.ts';
+import { addClaimEvent, changeClaim, dueOnFor } from '../queries/claims.ts';
 
 /** "Send to vendor": e-mails the return request with the evidence, then records it; a failed send changes nothing but is shown on the claim. */
 export function claimSendRouter({ db, config, mailer, now }: AppContext): Router {
@@ -38,11 +38,11 @@ export function claimSendRouter({ db, config, mailer, now }: AppContext): Router
       await db.transaction().execute(async (trx) => {
         const at = now().toISOString();
         const note = `Return request e-mailed to ${vendor.rmaEmail} with ${files.length} file${files.length === 1 ? '' : 's'}`;
-        await changeClaim(trx, claim.id, body.version, at, { status: 'sent_to_vendor' });
+        await changeClaim(trx, claim.id, body.version, at, { status: 'sent_to_vendor', dueOn: dueOnFor('sent_to_vendor', claim.timeZone, now()) });
         await addClaimEvent(trx, { claimId: claim.id, at, actorId: viewer.id, fromStatus: claim.status, toStatus: 'sent_to_vendor', note });
         await writeAudit(trx, { at, actorId: viewer.id, action: 'claim.send', entity: 'claim', entityId: claim.id, before: { status: claim.status }, after: { status: 'sent_to_vendor', to: vendor.rmaEmail, subject: message.subject } });
       });
-      res.json(await claimDetail(db, viewer, claim.id));
+      res.json(await claimDetail(db, viewer, claim.id, now()));
     }),
   );
   return router;

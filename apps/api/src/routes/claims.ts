@@ -1,6 +1,6 @@
 import { CLAIM_STATUS_LABELS, claimCreate, claimQuery, claimStatusChange, claimUpdate, findClaimTransition, idParams } from '@busbar/shared';
 import { Router } from 'express';
-import { claimDetail, claimSubject, loadClaim } from '../access/claims.ts';
+import { claimDetail, claimSubject, claimView, loadClaim } from '../access/claims.ts';
 import { unitToClaim } from '../access/claim-unit.ts';
 import { locationScope, narrowScope } from '../access/locations.ts';
 import type { AppContext } from '../context.ts';
@@ -8,7 +8,7 @@ import { conflict, forbidden, invalidField } from '../errors.ts';
 import { viewerOf } from '../middleware/session.ts';
 import { validate } from '../middleware/validate.ts';
 import { writeAudit } from '../queries/audit.ts';
-import { addClaimEvent, changeClaim, listClaims, nextClaimNumber } from '../queries/claims.ts';
+import { addClaimEvent, changeClaim, dueOnFor, listClaims, nextClaimNumber } from '../queries/claims.ts';
 import { countLiveEvidence } from '../queries/evidence.ts';
 
 /** Claims may be edited until the vendor has answered. */
@@ -22,15 +22,16 @@ export function claimsRouter({ db, now }: AppContext): Router {
     '/',
     validate({ query: claimQuery }, async ({ query }, req, res) => {
       const scope = narrowScope(await locationScope(db, viewerOf(req), 'read', 'Claim'), query.locationId);
-      const page = await listClaims(db, scope, query);
-      res.json({ ...page, items: page.items.map(({ approvalLimitCents: _, ...claim }) => claim) });
+      const at = now();
+      const page = await listClaims(db, scope, query, at);
+      res.json({ ...page, items: page.items.map((row) => claimView(row, at)) });
     }),
   );
 
   router.get(
     '/:id',
     validate({ params: idParams }, async ({ params }, req, res) => {
-      res.json(await claimDetail(db, viewerOf(req), params.id));
+      res.json(await claimDetail(db, viewerOf(req), params.id, now()));
     }),
   );
 
@@ -42,7 +43,7 @@ export function claimsRouter({ db, now }: AppContext): Router {
       const id = await db.transaction().execute(async (trx) => {
         const at = now().toISOString();
         const { sequence, number } = await nextClaimNumber(trx, { id: unit.locationId, code: unit.code });
-        const values = { ...body, locationId: unit.locationId, buildId: unit.buildId, sequence, number, status: 'logged' as const };
+        const values = { ...body, locationId: unit.locationId, buildId: unit.buildId, sequence, number, status: 'logged' as const, dueOn: dueOnFor('logged', unit.timeZone, now()) };
         const row = await trx
           .insertInto('warrantyClaims')
           .values({ ...values, outOfWarranty: unit.outOfWarranty ? 1 : 0, createdBy: viewer.id, createdAt: at, updatedAt: at })
@@ -52,7 +53,7 @@ export function claimsRouter({ db, now }: AppContext): Router {
         await writeAudit(trx, { at, actorId: viewer.id, action: 'claim.create', entity: 'claim', entityId: row.id, after: { ...values, outOfWarranty: unit.outOfWarranty } });
         return row.id;
       });
-      res.status(201).json(await claimDetail(db, viewer, id));
+      res.status(201).json(await claimDetail(db, viewer, id, now()));
     }),
   );
 
@@ -70,7 +71,7 @@ export function claimsRouter({ db, now }: AppContext): Router {
         const before = Object.fromEntries(Object.keys(patch).map((k) => [k, row[k as keyof typeof row]]));
         await writeAudit(trx, { at, actorId: viewer.id, action: 'claim.update', entity: 'claim', entityId: row.id, before, after: patch });
       });
-      res.json(await claimDetail(db, viewer, row.id));
+      res.json(await claimDetail(db, viewer, row.id, now()));
     }),
   );
 
@@ -92,11 +93,11 @@ export function claimsRouter({ db, now }: AppContext): Router {
       await db.transaction().execute(async (trx) => {
         const at = now().toISOString();
         const credits = { ...(approvedCents !== undefined && { creditApprovedCents: approvedCents }), ...(body.to === 'credited' && { creditReceivedCents: body.creditReceivedCents }) };
-        await changeClaim(trx, row.id, body.version, at, { status: body.to, ...credits });
+        await changeClaim(trx, row.id, body.version, at, { status: body.to, dueOn: dueOnFor(body.to, row.timeZone, now()), ...credits });
         await addClaimEvent(trx, { claimId: row.id, at, actorId: viewer.id, fromStatus: row.status, toStatus: body.to, note: body.note });
         await writeAudit(trx, { at, actorId: viewer.id, action: 'claim.status', entity: 'claim', entityId: row.id, before: { status: row.status }, after: { status: body.to, note: body.note, ...credits } });
       });
-      res.json(await claimDetail(db, viewer, row.id));
+      res.json(await claimDetail(db, viewer, row.id, now()));
     }),
   );
 

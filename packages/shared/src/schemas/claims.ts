@@ -63,6 +63,20 @@ export const CLAIM_TRANSITIONS: readonly { from: ClaimStatus; to: ClaimStatus; a
   { from: 'denied', to: 'closed', action: 'update' },
 ];
 
+/**
+ * Days a claim may wait in each status before its next step is overdue: Busbar's own service
+ * targets (evidence within 3 days, sent within 2, the vendor's answer within 14, the credit within 30).
+ */
+export const CLAIM_DUE_DAYS: Record<ClaimStatus, number | null> = {
+  logged: 3,
+  evidence_ready: 2,
+  sent_to_vendor: 14,
+  approved: 30,
+  denied: 7,
+  credited: 7,
+  closed: null,
+};
+
 export function findClaimTransition(from: ClaimStatus, to: ClaimStatus) {
   return CLAIM_TRANSITIONS.find((t) => t.from === from && t.to === to);
 }
@@ -113,6 +127,8 @@ export const claimQuery = z.strictObject({
   failureMode: z.enum(FAILURE_MODES).optional(),
   locationId: idSchema.optional(),
   buildId: idSchema.optional(),
+  /** Only claims whose next step is past due. */
+  overdue: z.literal('true').optional(),
   ...pagingOf(100),
 });
 export type ClaimQuery = z.infer<typeof claimQuery>;
@@ -139,6 +155,10 @@ export interface ClaimView {
   /** Past the catalog item's warranty months from the delivery date when logged. */
   outOfWarranty: boolean;
   status: ClaimStatus;
+  /** When the next step is due (YYYY-MM-DD, the location's day); null once closed. */
+  dueOn: string | null;
+  /** The next step is past due today at the claim's location. */
+  overdue: boolean;
   vendorRmaNumber: string;
   creditRequestedCents: number;
   creditApprovedCents: number | null;
