@@ -7,6 +7,7 @@ import * as createBuildSearch from './005-create-build-search.ts';
 import * as dropPlanResults from './006-drop-plan-results.ts';
 import * as indexBuildNumbers from './008-index-build-numbers.ts';
 import * as createCustomerSearch from './009-create-customer-search.ts';
+import * as indexCustomerEmails from './011-index-customer-emails.ts';
 import * as createClaims from './007-create-claims.ts';
 import * as createClaimEvidence from './008-create-claim-evidence.ts';
 import * as addUnitReplacement from './009-add-unit-replacement.ts';
@@ -26,4 +27,5 @@ export const migrations: Record<string, Migration> = {
   '010-add-claim-due-dates': addClaimDueDates,
   '008-index-build-numbers': indexBuildNumbers,
   '009-create-customer-search': createCustomerSearch,
+  '011-index-customer-emails': indexCustomerEmails,
 };
