@@ -54,6 +54,12 @@ describe('quick plans', () => {
     await page.getByRole('heading', { level: 1, name: 'Okonkwo, 2019 van' }).waitFor();
     await expect.poll(() => new URL(page.url()).pathname).toMatch(/^\/plans\/\d+$/);
 
+    // Listed with its verdict beside the safety caution, then opened again.
+    await page.getByRole('navigation').getByText('Quick plans', { exact: true }).click();
+    await page.getByRole('note', { name: 'Safety caution' }).waitFor();
+    await page.getByRole('link', { name: 'Okonkwo, 2019 van' }).click();
+    await page.getByRole('heading', { level: 1, name: 'Okonkwo, 2019 van' }).waitFor();
+
     await page.getByRole('button', { name: 'Attach to a build' }).click();
     const dialog = page.getByRole('dialog');
     await choose(page, dialog, 'Build', build.number);
@@ -70,6 +76,7 @@ describe('quick plans', () => {
     // Attached, it leaves the list of quick plans.
     await page.getByRole('navigation').getByText('Quick plans', { exact: true }).click();
     await page.getByText('No quick plans yet', { exact: false }).waitFor();
+    expect(await page.getByRole('note', { name: 'Safety caution' }).count()).toBe(0);
     await page.context().close();
   });
 });
