@@ -5,13 +5,13 @@ import * as createPowerPlans from './003-create-power-plans.ts';
 import * as indexLists from './004-index-lists.ts';
 import * as createBuildSearch from './005-create-build-search.ts';
 import * as dropPlanResults from './006-drop-plan-results.ts';
+import * as createClaims from './007-create-claims.ts';
 import * as indexBuildNumbers from './008-index-build-numbers.ts';
 import * as createCustomerSearch from './009-create-customer-search.ts';
+import * as createClaimEvidence from './010-create-claim-evidence.ts';
 import * as indexCustomerEmails from './011-index-customer-emails.ts';
-import * as createClaims from './007-create-claims.ts';
-import * as createClaimEvidence from './008-create-claim-evidence.ts';
-import * as addUnitReplacement from './009-add-unit-replacement.ts';
-import * as addClaimDueDates from './010-add-claim-due-dates.ts';
+import * as addUnitReplacement from './012-add-unit-replacement.ts';
+import * as addClaimDueDates from './013-add-claim-due-dates.ts';
 
 /** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
 export const migrations: Record<string, Migration> = {
@@ -22,10 +22,10 @@ export const migrations: Record<string, Migration> = {
   '005-create-build-search': createBuildSearch,
   '006-drop-plan-results': dropPlanResults,
   '007-create-claims': createClaims,
-  '008-create-claim-evidence': createClaimEvidence,
-  '009-add-unit-replacement': addUnitReplacement,
-  '010-add-claim-due-dates': addClaimDueDates,
   '008-index-build-numbers': indexBuildNumbers,
   '009-create-customer-search': createCustomerSearch,
+  '010-create-claim-evidence': createClaimEvidence,
   '011-index-customer-emails': indexCustomerEmails,
+  '012-add-unit-replacement': addUnitReplacement,
+  '013-add-claim-due-dates': addClaimDueDates,
 };
