@@ -1,6 +1,7 @@
 import type { Db } from '@busbar/db';
 import type { PersonStatus } from '@busbar/shared';
 import { forgetViewers } from '../access/viewer-cache.ts';
+import { cappedCount, offsetOf } from './paging.ts';
 import { contains } from './search.ts';
 
 export interface UserRow {
@@ -25,15 +26,30 @@ export async function emailTaken(db: Db, email: string): Promise<boolean> {
   return !!(await db.selectFrom('users').select('id').where('email', '=', email).executeTakeFirst());
 }
 
-/** People matching a status and a text search, by name; visibility is decided by the caller. */
-export function searchUsers(db: Db, filter: { status: PersonStatus | 'all'; q?: string | undefined }): Promise<UserRow[]> {
-  let query = db.selectFrom('users').select(USER_COLUMNS);
+type UserFilter = { status: PersonStatus | 'all'; q?: string | undefined };
+
+function matchingUsers(db: Db, filter: UserFilter) {
+  let query = db.selectFrom('users');
   if (filter.status !== 'all') query = query.where('status', '=', filter.status);
   if (filter.q) {
     const q = filter.q;
     query = query.where((eb) => eb.or([contains('name', q), contains('email', q)]));
   }
-  return query.orderBy('name').orderBy('id').execute();
+  return query;
+}
+
+/** People matching a status and a text search, by name; visibility is decided by the caller. */
+export function searchUsers(db: Db, filter: UserFilter): Promise<UserRow[]> {
+  return matchingUsers(db, filter).select(USER_COLUMNS).orderBy('name').orderBy('id').execute();
+}
+
+/** One page of the people matching, by name, for a viewer who sees everyone. */
+export async function pageUsers(db: Db, filter: UserFilter & { page: number; pageSize: number }) {
+  const [rows, count] = await Promise.all([
+    matchingUsers(db, filter).select(USER_COLUMNS).orderBy('name').orderBy('id').limit(filter.pageSize).offset(offsetOf(filter.page, filter.pageSize)).execute(),
+    cappedCount(db, matchingUsers(db, filter).select('id')),
+  ]);
+  return { rows, ...count };
 }
 
 export async function hasPassword(db: Db, id: number): Promise<boolean> {
