@@ -131,6 +131,25 @@ export const router = createRouter({
           meta: { action: 'read', subject: 'Build', title: 'Find a serial number' },
         },
         {
+          path: 'claims',
+          name: 'claims',
+          component: () => import('./views/claims/ClaimList.vue'),
+          meta: { action: 'read', subject: 'Claim', title: 'Warranty claims' },
+        },
+        {
+          path: 'claims/new',
+          name: 'claims-new',
+          component: () => import('./views/claims/ClaimForm.vue'),
+          meta: { action: 'create', subject: 'Claim', title: 'Log a claim' },
+        },
+        {
+          path: 'claims/:id(\\d+)',
+          name: 'claims-detail',
+          component: () => import('./views/claims/ClaimDetail.vue'),
+          props: (route) => ({ id: Number(route.params.id) }),
+          meta: { action: 'read', subject: 'Claim', title: 'Claim' },
+        },
+        {
           path: 'outbox',
           name: 'outbox',
           component: () => import('./views/outbox/OutboxList.vue'),

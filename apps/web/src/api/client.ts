@@ -32,7 +32,8 @@ export function setUnauthenticatedHandler(handler: (path: string) => void): void
   onUnauthenticated = handler;
 }
 
-function csrfToken(): string | undefined {
+/** The forgery-protection token to send back as a header (also for uploads, which skip `request`). */
+export function csrfToken(): string | undefined {
   const prefix = `${CSRF_COOKIE}=`;
   const cookie = document.cookie.split('; ').find((part) => part.startsWith(prefix));
   return cookie ? decodeURIComponent(cookie.slice(prefix.length)) : undefined;

@@ -3,6 +3,7 @@ import {
   AuditOutlined,
   BarcodeOutlined,
   ContactsOutlined,
+  FileProtectOutlined,
   HomeOutlined,
   MailOutlined,
   ShopOutlined,
@@ -12,16 +13,20 @@ import {
 } from '@ant-design/icons-vue';
 import type { Component } from 'vue';
 
+/** The kinds of work the menu is grouped by (DESIGN.md, "Look"); the overview stands above them. */
+export type NavigationGroup = 'Shop floor' | 'Warranty' | 'Network';
+
 /** The main menu; each entry opens the route of the same name, whose meta says who may use it. */
-export const NAVIGATION: { route: string; label: string; icon: Component }[] = [
+export const NAVIGATION: { route: string; label: string; icon: Component; group?: NavigationGroup }[] = [
   { route: 'overview', label: 'Overview', icon: HomeOutlined },
-  { route: 'builds', label: 'Builds', icon: ToolOutlined },
-  { route: 'plans', label: 'Quick plans', icon: ThunderboltOutlined },
-  { route: 'customers', label: 'Customers', icon: ContactsOutlined },
-  { route: 'serials', label: 'Find a serial', icon: BarcodeOutlined },
-  { route: 'catalog', label: 'Catalog', icon: AppstoreOutlined },
-  { route: 'vendors', label: 'Vendors', icon: ShopOutlined },
-  { route: 'staff', label: 'Staff', icon: TeamOutlined },
-  { route: 'outbox', label: 'Outbox', icon: MailOutlined },
-  { route: 'audit', label: 'Audit log', icon: AuditOutlined },
+  { route: 'builds', label: 'Builds', icon: ToolOutlined, group: 'Shop floor' },
+  { route: 'plans', label: 'Quick plans', icon: ThunderboltOutlined, group: 'Shop floor' },
+  { route: 'customers', label: 'Customers', icon: ContactsOutlined, group: 'Shop floor' },
+  { route: 'serials', label: 'Find a serial', icon: BarcodeOutlined, group: 'Shop floor' },
+  { route: 'claims', label: 'Claims', icon: FileProtectOutlined, group: 'Warranty' },
+  { route: 'catalog', label: 'Catalog', icon: AppstoreOutlined, group: 'Network' },
+  { route: 'vendors', label: 'Vendors', icon: ShopOutlined, group: 'Network' },
+  { route: 'staff', label: 'Staff', icon: TeamOutlined, group: 'Network' },
+  { route: 'outbox', label: 'Outbox', icon: MailOutlined, group: 'Network' },
+  { route: 'audit', label: 'Audit log', icon: AuditOutlined, group: 'Network' },
 ];

@@ -1,0 +1,40 @@
+import {
+  CheckCircleOutlined,
+  CloseCircleOutlined,
+  DollarOutlined,
+  FileSearchOutlined,
+  FormOutlined,
+  LockOutlined,
+  SendOutlined,
+} from '@ant-design/icons-vue';
+import { CLAIM_STATUS_LABELS, type ClaimStatus, type ClaimView } from '@busbar/shared';
+import { subject } from '@casl/ability';
+import type { Component } from 'vue';
+import type { Tone } from '../../theme.ts';
+
+const look: Record<ClaimStatus, { tone: Tone; icon: Component }> = {
+  logged: { tone: 'neutral', icon: FormOutlined },
+  evidence_ready: { tone: 'info', icon: FileSearchOutlined },
+  sent_to_vendor: { tone: 'warning', icon: SendOutlined },
+  approved: { tone: 'success', icon: CheckCircleOutlined },
+  denied: { tone: 'danger', icon: CloseCircleOutlined },
+  credited: { tone: 'success', icon: DollarOutlined },
+  closed: { tone: 'neutral', icon: LockOutlined },
+};
+
+/** How a claim's status reads on screen: its word, an icon and a tone, never colour alone. */
+export function claimStatusTag(status: ClaimStatus): { label: string; tone: Tone; icon: Component } {
+  return { label: CLAIM_STATUS_LABELS[status], ...look[status] };
+}
+
+/** The stages a claim passes, in order; a denied claim skips the credit. */
+export function claimStages(denied: boolean): ClaimStatus[] {
+  return ['logged', 'evidence_ready', 'sent_to_vendor', ...(denied ? (['denied'] as const) : (['approved', 'credited'] as const)), 'closed'];
+}
+
+/** Claims may be edited until the vendor has answered (as the API allows). */
+export const isEditable = (status: ClaimStatus) => ['logged', 'evidence_ready', 'sent_to_vendor'].includes(status);
+
+/** The claim as a CASL subject; `aboveLimit` says whether the credit is above the location's approval limit. */
+export const claimSubject = (claim: Pick<ClaimView, 'locationId'>, aboveLimit = false) =>
+  subject('Claim', { locationId: claim.locationId, aboveLimit });

@@ -1,0 +1,23 @@
+import type { ClaimView } from '@busbar/shared';
+import type { TableColumnsType } from 'ant-design-vue';
+
+/** The claim queue's columns; the shop column only for people who see more than one shop. */
+export function claimColumns(show: { shop: boolean }): TableColumnsType<ClaimView> {
+  const columns: TableColumnsType<ClaimView> = [
+    { key: 'number', title: 'Claim', dataIndex: 'number', width: 120 },
+    { key: 'due', title: 'Next step', width: 210 },
+    { key: 'status', title: 'Status', width: 150 },
+    { key: 'unit', title: 'Unit', width: 240, ellipsis: true },
+    { key: 'build', title: 'Build', dataIndex: 'buildNumber', width: 110 },
+    { key: 'failure', title: 'Failure and coverage', width: 200, ellipsis: true },
+    { key: 'age', title: 'Age', width: 90, align: 'right' },
+  ];
+  if (show.shop) columns.splice(1, 0, { key: 'location', title: 'Shop', width: 70 });
+  return columns;
+}
+
+/** Whole days since the claim was logged, e.g. "12 days". */
+export function claimAge(createdAt: string, now = Date.now()): string {
+  const days = Math.max(0, Math.floor((now - Date.parse(createdAt)) / 86_400_000));
+  return days === 1 ? '1 day' : `${days} days`;
+}
