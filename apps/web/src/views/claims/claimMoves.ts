@@ -32,7 +32,7 @@ export function movesFor(ability: AppAbility, claim: ClaimDetail): Move[] {
     moves.push({ to: 'credited', title: `Record the credit received for ${claim.number}`, okText: 'Record credit received', amount: { field: 'creditReceivedCents', label: 'Credit received ($)', startCents } });
   }
   if ((claim.status === 'credited' || claim.status === 'denied') && can('update')) {
-    moves.push({ to: 'closed', title: `Close ${claim.number}`, okText: 'Close' });
+    moves.push({ to: 'closed', title: `Close ${claim.number}`, okText: 'Close the claim' });
   }
   return moves;
 }

@@ -1,16 +1,20 @@
 import type { ClaimView } from '@busbar/shared';
 import type { TableColumnsType } from 'ant-design-vue';
 
-/** The claim queue's columns; the shop column only for people who see more than one shop. */
-export function claimColumns(show: { shop: boolean }): TableColumnsType<ClaimView> {
+/**
+ * The claim queue's columns; the shop column only for people who see more than one shop. A phone
+ * gets one column that stacks what matters, so the queue never scrolls sideways.
+ */
+export function claimColumns(show: { shop: boolean; narrow: boolean }): TableColumnsType<ClaimView> {
+  if (show.narrow) return [{ key: 'summary', title: 'Claim, next step and unit' }];
   const columns: TableColumnsType<ClaimView> = [
-    { key: 'number', title: 'Claim', dataIndex: 'number', width: 120 },
-    { key: 'due', title: 'Next step', width: 210 },
-    { key: 'status', title: 'Status', width: 150 },
-    { key: 'unit', title: 'Unit', width: 240, ellipsis: true },
-    { key: 'build', title: 'Build', dataIndex: 'buildNumber', width: 110 },
-    { key: 'failure', title: 'Failure and coverage', width: 200, ellipsis: true },
-    { key: 'age', title: 'Age', width: 90, align: 'right' },
+    { key: 'number', title: 'Claim', dataIndex: 'number', width: 110 },
+    { key: 'due', title: 'Next step', width: 190 },
+    { key: 'status', title: 'Status', width: 140 },
+    { key: 'unit', title: 'Unit', width: 220, ellipsis: true },
+    { key: 'build', title: 'Build', dataIndex: 'buildNumber', width: 100 },
+    { key: 'failure', title: 'Failure and coverage', width: 180, ellipsis: true },
+    { key: 'age', title: 'Age', width: 80, align: 'right' },
   ];
   if (show.shop) columns.splice(1, 0, { key: 'location', title: 'Shop', width: 70 });
   return columns;
