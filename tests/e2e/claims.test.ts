@@ -100,7 +100,9 @@ describe('a failed unit from serial number to credit', () => {
     const saved = await db.selectFrom('warrantyClaims').select(['status', 'creditApprovedCents', 'creditReceivedCents']).where('number', '=', 'DEN-W00001').executeTakeFirstOrThrow();
     expect(saved).toEqual({ status: 'credited', creditApprovedCents: 28_000, creditReceivedCents: 28_000 });
 
-    await lead.locator('#main').getByRole('link', { name: /^DEN-\d+$/ }).click();
+    const history = lead.locator('.ant-card').filter({ has: lead.getByText("The unit's history", { exact: true }) });
+    await history.getByText('this claim').waitFor();
+    await lead.locator('#main').getByRole('link', { name: /^DEN-\d+$/ }).first().click();
     await lead.getByRole('heading', { level: 1, name: /^Build DEN-\d+$/ }).waitFor();
     const section = lead.locator('.ant-card').filter({ has: lead.getByText('Warranty claims', { exact: true }) });
     await section.getByRole('link', { name: 'Claim DEN-W00001' }).waitFor();
