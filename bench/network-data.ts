@@ -1,4 +1,4 @@
-import { existsSync, mkdirSync, rmSync } from 'node:fs';
+import { existsSync, mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { DEMO_PASSWORD, openDatabase, seedNetwork } from '@busbar/db';
@@ -11,7 +11,7 @@ export interface DataSize {
   builds: number;
   buildItems: number;
   auditRows: number;
-  /** Seconds the generator took, or null when an earlier run's database was reused. */
+  /** Seconds the generator took (also for a database an earlier run made), or null when not known. */
   generatedSeconds: number | null;
 }
 
@@ -25,10 +25,16 @@ export async function sizeOf(dir: string, label: string, generatedSeconds: numbe
   return size;
 }
 
-/** A data folder with a generated network of the size asked for (pnpm demo:network's generator), made fresh unless `reuse`. */
-export async function networkData(locations: number, years: number, reuse: boolean): Promise<{ dir: string; generatedSeconds: number | null }> {
+/**
+ * A data folder with a generated network of the size asked for (pnpm demo:network's generator),
+ * made fresh unless `reuse`; how long the generator took is kept beside the database.
+ */
+export async function networkData(locations: number, years: number, reuse: boolean): Promise<{ dir: string; generatedSeconds: number | null; reused: boolean }> {
   const dir = join(tmpdir(), `busbar-bench-${locations}x${years}`);
-  if (reuse && existsSync(join(dir, 'busbar.sqlite'))) return { dir, generatedSeconds: null };
+  const timing = join(dir, 'generated-seconds');
+  if (reuse && existsSync(join(dir, 'busbar.sqlite'))) {
+    return { dir, generatedSeconds: existsSync(timing) ? Number(readFileSync(timing, 'utf8')) : null, reused: true };
+  }
   rmSync(dir, { recursive: true, force: true });
   mkdirSync(dir, { recursive: true });
   const started = performance.now();
@@ -42,5 +48,7 @@ export async function networkData(locations: number, years: number, reuse: boole
     onProgress: ({ days, totalDays, builds, indexing }) =>
       indexing ? bar.end(`${builds.toLocaleString('en-US')} builds; building indexes…`) : bar.update(days / totalDays, `${builds.toLocaleString('en-US')} builds`),
   });
-  return { dir, generatedSeconds: (performance.now() - started) / 1000 };
+  const generatedSeconds = (performance.now() - started) / 1000;
+  writeFileSync(timing, `${generatedSeconds.toFixed(0)}\n`);
+  return { dir, generatedSeconds, reused: false };
 }
