@@ -142,7 +142,7 @@ describe('a failed unit from serial number to credit', () => {
     await page.context().close();
   });
 
-  it('tells the clerk a unit past its warranty is for a lead to log as goodwill, and the lead does', async () => {
+  it('tells the clerk a unit past its warranty is for a lead to log as goodwill; the lead does and records the replacement unit', async () => {
     const db = e2e.harness.db;
     const old = await addDeliveredUnit(db, (await demoIds(db)).location('DEN'), { deliveredAt: '2023-01-10T18:00:00.000Z', warrantyMonths: 24 });
     const path = `/claims/new?buildId=${old.buildId}&buildItemId=${old.buildItemId}`;
@@ -172,6 +172,22 @@ describe('a failed unit from serial number to credit', () => {
     await lead.getByRole('heading', { level: 1, name: /^Claim DEN-W\d{5}$/ }).waitFor();
     await lead.getByText('Out of warranty').waitFor();
     expect(await lead.getByText('Goodwill', { exact: true }).count()).toBe(1);
+
+    await lead.getByRole('button', { name: 'Record replacement unit' }).click();
+    const dialog = lead.getByRole('dialog');
+    await dialog.getByLabel('Serial number of the new unit').fill('RPL-2026-0612');
+    const putIn = dialog.getByLabel('Put in on');
+    await putIn.click();
+    await putIn.fill('2026-06-12');
+    await putIn.press('Enter');
+    await dialog.getByRole('button', { name: 'Record replacement' }).click();
+    await lead.locator('.ant-descriptions').getByText('RPL-2026-0612').waitFor();
+    await lead.goto(`/builds/${old.buildId}`);
+    const section = lead.locator('.ant-card').filter({ has: lead.getByText('Warranty claims', { exact: true }) });
+    await section.getByText('Removed Jun 12, 2026, replaced under warranty').waitFor();
+    await section.getByText('RPL-2026-0612').waitFor();
+    // The new unit may fail in its turn; the removed one may not.
+    expect(await section.getByRole('button', { name: /^Log a claim/ }).count()).toBe(1);
     await clerk.context().close();
     await lead.context().close();
   });
