@@ -81,6 +81,11 @@ describe('claims off the straight path', () => {
     const page = await e2e.newPage();
     await e2e.signIn(page, 'warranty@demo.busbar.test');
     await page.goto(`/claims/${claim.id}`);
+    // A file that only claims to be a photo is refused, in words, and nothing is added.
+    await page.locator('input[type="file"]').setInputFiles({ name: 'notes.png', mimeType: 'image/png', buffer: Buffer.from('not a photo at all') });
+    await page.getByText('notes.png was not added: Upload a JPEG, PNG, WebP or HEIC photo, or a PDF').waitFor();
+    expect(await page.getByRole('link', { name: 'notes.png' }).count()).toBe(0);
+
     await page.getByRole('button', { name: 'Delete blurred.png' }).click();
     const dialog = page.getByRole('dialog');
     await dialog.getByRole('button', { name: 'Delete file' }).click();
