@@ -11,9 +11,8 @@ export function claimColumns(show: { shop: boolean; narrow: boolean }): TableCol
     { key: 'number', title: 'Claim', dataIndex: 'number', width: 110 },
     { key: 'due', title: 'Next step', width: 190 },
     { key: 'status', title: 'Status', width: 140 },
-    { key: 'unit', title: 'Unit', width: 220, ellipsis: true },
-    { key: 'build', title: 'Build', dataIndex: 'buildNumber', width: 100 },
-    { key: 'failure', title: 'Failure and coverage', width: 180, ellipsis: true },
+    { key: 'unit', title: 'Unit and build', width: 240, ellipsis: true },
+    { key: 'failure', title: 'Failure and coverage', width: 170, ellipsis: true },
     { key: 'age', title: 'Age', width: 80, align: 'right' },
   ];
   if (show.shop) columns.splice(1, 0, { key: 'location', title: 'Shop', width: 70 });
