@@ -70,7 +70,7 @@ describe('claims off the straight path', () => {
     await lead.context().close();
   });
 
-  it('keeps a file deleted with its reason, shows a failed send and sends it again', async () => {
+  it('keeps a file deleted with its reason, shows a failed send and sends it again, then takes the vendor\'s RMA number', async () => {
     const db = e2e.harness.db;
     const unit = await addDeliveredUnit(db, (await demoIds(db)).location('DEN'));
     const api = await e2e.harness.signedIn('warranty@demo.busbar.test');
@@ -117,6 +117,15 @@ describe('claims off the straight path', () => {
     } finally {
       await back.close();
     }
+
+    // Until the vendor answers, the clerk fills in what they send back.
+    await page.getByRole('button', { name: 'Edit claim' }).click();
+    const edit = page.getByRole('dialog');
+    await edit.getByLabel("Vendor's RMA number").fill('RMA-55120');
+    await edit.getByRole('button', { name: 'Save' }).click();
+    await page.locator('.ant-descriptions').getByText('RMA-55120').waitFor();
+    const saved = await e2e.harness.db.selectFrom('warrantyClaims').select('vendorRmaNumber').where('id', '=', claim.id).executeTakeFirstOrThrow();
+    expect(saved.vendorRmaNumber).toBe('RMA-55120');
     await page.context().close();
   });
 });
