@@ -80,7 +80,7 @@ describe('money and contact details only where the person reads them', () => {
     const page = await signedIn('warranty@demo.busbar.test');
     expect(await countOf(page, '/builds', 'column', 'Total', 'Builds')).toBe(0);
     await page.goto(buildPath);
-    await page.getByText('ACC-0001').waitFor();
+    await page.getByText('ACC-0001').first().waitFor();
     expect(await column(page, 'Unit price').count()).toBe(0);
     expect(await page.getByText('Money', { exact: true }).count()).toBe(0);
     expect(await page.getByText('$').count()).toBe(0);
