@@ -106,6 +106,9 @@ describe('a failed unit from serial number to credit', () => {
     const section = lead.locator('.ant-card').filter({ has: lead.getByText('Warranty claims', { exact: true }) });
     await section.getByRole('link', { name: 'Claim DEN-W00001' }).waitFor();
     expect(await section.getByText('Credited', { exact: true }).count()).toBe(1);
+    // A claim can start from the build's line as well: the form opens with that unit chosen.
+    await section.getByRole('button', { name: `Log a claim for ${unit.item.sku} ${serialNumber}` }).click();
+    await expect.poll(() => lead.getByRole('radio', { name: new RegExp(serialNumber!) }).isChecked()).toBe(true);
 
     await clerk.context().close();
     await lead.context().close();
