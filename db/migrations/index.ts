@@ -12,6 +12,7 @@ import * as createClaimEvidence from './010-create-claim-evidence.ts';
 import * as indexCustomerEmails from './011-index-customer-emails.ts';
 import * as addUnitReplacement from './012-add-unit-replacement.ts';
 import * as addClaimDueDates from './013-add-claim-due-dates.ts';
+import * as indexBuildStatusSorts from './014-index-build-status-sorts.ts';
 
 /** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
 export const migrations: Record<string, Migration> = {
@@ -28,4 +29,5 @@ export const migrations: Record<string, Migration> = {
   '011-index-customer-emails': indexCustomerEmails,
   '012-add-unit-replacement': addUnitReplacement,
   '013-add-claim-due-dates': addClaimDueDates,
+  '014-index-build-status-sorts': indexBuildStatusSorts,
 };
