@@ -13,6 +13,7 @@ import * as indexCustomerEmails from './011-index-customer-emails.ts';
 import * as addUnitReplacement from './012-add-unit-replacement.ts';
 import * as addClaimDueDates from './013-add-claim-due-dates.ts';
 import * as indexBuildStatusSorts from './014-index-build-status-sorts.ts';
+import * as indexClaimFilters from './016-index-claim-filters.ts';
 
 /** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
 export const migrations: Record<string, Migration> = {
@@ -30,4 +31,5 @@ export const migrations: Record<string, Migration> = {
   '012-add-unit-replacement': addUnitReplacement,
   '013-add-claim-due-dates': addClaimDueDates,
   '014-index-build-status-sorts': indexBuildStatusSorts,
+  '016-index-claim-filters': indexClaimFilters,
 };

@@ -1,4 +1,4 @@
-import { AbilityBuilder, createMongoAbility, type ForcedSubject, type MongoAbility, type RawRuleOf } from '@casl/ability';
+import { AbilityBuilder, createMongoAbility, subject, type ForcedSubject, type MongoAbility, type RawRuleOf } from '@casl/ability';
 import { COST_FIELDS, CONTACT_FIELDS, PRICE_FIELDS } from './fields.ts';
 import type { Role, Scope } from './roles.ts';
 
@@ -160,4 +160,13 @@ export function defineRulesFor(person: RulePerson): AppRule[] {
 /** Builds a CASL ability from rules (on the server per request, in the web after sign-in). */
 export function createAbility(rules: AppRule[] = []): AppAbility {
   return createMongoAbility<AppAbility>(rules);
+}
+
+/**
+ * A claim as the rules see it: its location, and whether `creditCents` (the credit to approve) is
+ * above the location's approval limit. A lead approves up to the limit, the regional manager above it.
+ */
+export function claimRuleSubject(claim: { locationId: number; approvalLimitCents?: number }, creditCents = 0) {
+  const aboveLimit = claim.approvalLimitCents !== undefined && creditCents > claim.approvalLimitCents;
+  return subject('Claim', { locationId: claim.locationId, aboveLimit });
 }

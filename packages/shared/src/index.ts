@@ -5,6 +5,7 @@ export * from './schemas/common.ts';
 export * from './schemas/session.ts';
 export * from './schemas/staff.ts';
 export * from './schemas/admin.ts';
+export * from './schemas/locations.ts';
 export * from './schemas/catalog.ts';
 export * from './schemas/customers.ts';
 export * from './schemas/builds.ts';

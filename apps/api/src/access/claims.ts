@@ -1,17 +1,12 @@
 import type { Db } from '@busbar/db';
-import { subject } from '@casl/ability';
-import type { ClaimDetail, ClaimView } from '@busbar/shared';
+import { claimRuleSubject, type ClaimDetail, type ClaimView } from '@busbar/shared';
 import { notFound } from '../errors.ts';
 import { claimEvents, findClaim, localToday, type ClaimRow } from '../queries/claims.ts';
 import { claimEvidence } from '../queries/evidence.ts';
 import type { Viewer } from './viewer.ts';
 
-/**
- * A claim as the rules see it: its location, and whether the credit to approve is above the
- * location's limit (a lead approves up to it, the regional manager above it).
- */
-export const claimSubject = (row: Pick<ClaimRow, 'locationId' | 'approvalLimitCents'>, creditCents = 0) =>
-  subject('Claim', { locationId: row.locationId, aboveLimit: creditCents > row.approvalLimitCents });
+/** A claim as the rules see it (`claimRuleSubject`: its location, and whether the credit is above its limit). */
+export const claimSubject = (row: Pick<ClaimRow, 'locationId' | 'approvalLimitCents'>, creditCents = 0) => claimRuleSubject(row, creditCents);
 
 /** A claim the person may read, or 404 — also for a claim of a location they cannot see. */
 export async function loadClaim(db: Db, viewer: Viewer, id: number): Promise<ClaimRow> {
@@ -28,5 +23,5 @@ export function claimView({ approvalLimitCents: _, timeZone, ...row }: ClaimRow,
 export async function claimDetail(db: Db, viewer: Viewer, id: number, now: Date): Promise<ClaimDetail> {
   const claim = await loadClaim(db, viewer, id);
   const [events, evidence] = await Promise.all([claimEvents(db, id), claimEvidence(db, id)]);
-  return { ...claimView(claim, now), events, evidence };
+  return { ...claimView(claim, now), approvalLimitCents: claim.approvalLimitCents, events, evidence };
 }

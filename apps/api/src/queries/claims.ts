@@ -1,9 +1,7 @@
 import { isoDay, localDay } from '@busbar/calc';
 import type { Db } from '@busbar/db';
-import { CLAIM_DUE_DAYS, type ClaimEventView, type ClaimQuery, type ClaimStatus, type ClaimView, type Page } from '@busbar/shared';
-import { sql } from 'kysely';
+import { CLAIM_DUE_DAYS, type ClaimEventView, type ClaimStatus, type ClaimView } from '@busbar/shared';
 import { stale } from '../errors.ts';
-import type { LocationScope } from '../access/locations.ts';
 
 /** A claim as stored, with what it names, plus its location's approval limit (for the rules) and zone (for its days). */
 export type ClaimRow = Omit<ClaimView, 'overdue'> & { approvalLimitCents: number; timeZone: string };
@@ -17,7 +15,8 @@ export function dueOnFor(status: ClaimStatus, timeZone: string, now: Date): stri
   return days === null ? null : isoDay(localDay(timeZone, now.getTime()) + days);
 }
 
-function claimsWithNames(db: Db) {
+/** Claims with what they name: build, unit, vendor, the replacement's serial number, the location's limit and zone. */
+export function claimsWithNames(db: Db) {
   return db
     .selectFrom('warrantyClaims as w')
     .innerJoin('builds as b', 'b.id', 'w.buildId')
@@ -38,7 +37,7 @@ function claimsWithNames(db: Db) {
 
 type Raw = Awaited<ReturnType<ReturnType<typeof claimsWithNames>['executeTakeFirstOrThrow']>>;
 // The unit went in on its build's delivery day, in the location's own zone.
-const toRow = ({ outOfWarranty, installedOn, ...raw }: Raw): ClaimRow => ({
+export const toRow = ({ outOfWarranty, installedOn, ...raw }: Raw): ClaimRow => ({
   ...raw,
   outOfWarranty: outOfWarranty === 1,
   installedOn: installedOn ? isoDay(localDay(raw.timeZone, Date.parse(installedOn))) : null,
@@ -47,35 +46,6 @@ const toRow = ({ outOfWarranty, installedOn, ...raw }: Raw): ClaimRow => ({
 export async function findClaim(db: Db, id: number): Promise<ClaimRow | undefined> {
   const raw = await claimsWithNames(db).where('w.id', '=', id).executeTakeFirst();
   return raw && toRow(raw);
-}
-
-/** One page of the claims at the given locations: the next step due soonest (overdue) first, closed claims last. */
-export async function listClaims(db: Db, scope: LocationScope, query: ClaimQuery, now: Date): Promise<Page<ClaimRow>> {
-  const page = { page: query.page, pageSize: query.pageSize };
-  if (scope !== 'all' && scope.length === 0) return { items: [], total: 0, totalCapped: false, ...page };
-  // "Overdue" is against each location's own today; the network has a handful of zones.
-  const zones = query.overdue ? (await db.selectFrom('locations').select('timeZone').distinct().execute()).map((l) => l.timeZone) : [];
-  const filtered = claimsWithNames(db).where((eb) => {
-    const conditions = scope === 'all' ? [] : [eb('w.locationId', 'in', scope)];
-    if (query.status) conditions.push(eb('w.status', '=', query.status));
-    if (query.coverage) conditions.push(eb('w.coverage', '=', query.coverage));
-    if (query.failureMode) conditions.push(eb('w.failureMode', '=', query.failureMode));
-    if (query.locationId) conditions.push(eb('w.locationId', '=', query.locationId));
-    if (query.buildId) conditions.push(eb('w.buildId', '=', query.buildId));
-    if (query.overdue) conditions.push(eb.or(zones.map((zone) => eb.and([eb('l.timeZone', '=', zone), eb('w.dueOn', '<', localToday(zone, now))]))));
-    return eb.and(conditions);
-  });
-  const [items, count] = await Promise.all([
-    filtered
-      .orderBy(sql`w.due_on is null`)
-      .orderBy('w.dueOn', 'asc')
-      .orderBy('w.id', 'asc')
-      .limit(query.pageSize)
-      .offset((query.page - 1) * query.pageSize)
-      .execute(),
-    filtered.clearSelect().select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow(),
-  ]);
-  return { items: items.map(toRow), total: Number(count.n), totalCapped: false, ...page };
 }
 
 export function claimEvents(db: Db, claimId: number): Promise<ClaimEventView[]> {

@@ -1,14 +1,14 @@
 import { subject } from '@casl/ability';
-import { auditQuery, idParams, noQuery, outboxQuery, type AppAbility, type Subject } from '@busbar/shared';
+import { auditQuery, noQuery, outboxQuery, type AppAbility, type Subject } from '@busbar/shared';
 import { Router, type Request } from 'express';
 import type { AppContext } from '../context.ts';
-import { forbidden, notFound } from '../errors.ts';
+import { forbidden } from '../errors.ts';
 import { viewerOf } from '../middleware/session.ts';
 import { validate } from '../middleware/validate.ts';
-import { buildLeadsAt } from '../queries/assignments.ts';
 import { listAudit } from '../queries/audit.ts';
-import { listLocations, listRegions } from '../queries/locations.ts';
+import { listRegions } from '../queries/locations.ts';
 import { listMail } from '../queries/mail.ts';
+import { locationsRouter } from './locations.ts';
 
 function authorize(req: Request, action: 'read', on: Subject): AppAbility {
   const { ability } = viewerOf(req);
@@ -17,7 +17,8 @@ function authorize(req: Request, action: 'read', on: Subject): AppAbility {
 }
 
 /** Regions and locations the person may see; the audit log and the outbox for the owner. */
-export function adminRouter({ db }: AppContext): Router {
+export function adminRouter(ctx: AppContext): Router {
+  const { db } = ctx;
   const router = Router();
 
   router.get(
@@ -28,22 +29,7 @@ export function adminRouter({ db }: AppContext): Router {
     }),
   );
 
-  router.get(
-    '/locations',
-    validate({ query: noQuery }, async (_input, req, res) => {
-      const { ability } = viewerOf(req);
-      res.json((await listLocations(db)).filter((l) => ability.can('read', subject('Location', { ...l }))));
-    }),
-  );
-
-  router.get(
-    '/locations/:id/technicians',
-    validate({ params: idParams }, async ({ params }, req, res) => {
-      const { ability } = viewerOf(req);
-      if (!ability.can('read', subject('Location', { id: params.id }))) throw notFound('location');
-      res.json(await buildLeadsAt(db, params.id));
-    }),
-  );
+  router.use('/locations', locationsRouter(ctx));
 
   router.get(
     '/audit',

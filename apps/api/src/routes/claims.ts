@@ -8,7 +8,8 @@ import { conflict, forbidden, invalidField } from '../errors.ts';
 import { viewerOf } from '../middleware/session.ts';
 import { validate } from '../middleware/validate.ts';
 import { writeAudit } from '../queries/audit.ts';
-import { addClaimEvent, changeClaim, dueOnFor, listClaims, nextClaimNumber } from '../queries/claims.ts';
+import { listClaims } from '../queries/claim-list.ts';
+import { addClaimEvent, changeClaim, dueOnFor, nextClaimNumber } from '../queries/claims.ts';
 import { countLiveEvidence } from '../queries/evidence.ts';
 
 /** Claims may be edited until the vendor has answered. */

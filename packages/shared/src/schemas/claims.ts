@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { serialNumberSchema } from './builds.ts';
+import { CATEGORIES } from './catalog.ts';
 import { idSchema, pagingOf } from './common.ts';
 
 /** Where a warranty claim stands, in order (DESIGN.md). */
@@ -121,16 +122,30 @@ export const claimStatusChange = z.strictObject({
 });
 export type ClaimStatusChange = z.infer<typeof claimStatusChange>;
 
-export const claimQuery = z.strictObject({
-  status: z.enum(CLAIM_STATUSES).optional(),
-  coverage: z.enum(COVERAGES).optional(),
-  failureMode: z.enum(FAILURE_MODES).optional(),
-  locationId: idSchema.optional(),
-  buildId: idSchema.optional(),
-  /** Only claims whose next step is past due. */
-  overdue: z.literal('true').optional(),
-  ...pagingOf(100),
-});
+const dayRange = (from: string, to: string) => (q: Record<string, unknown>) => !q[from] || !q[to] || String(q[from]) <= String(q[to]);
+
+export const claimQuery = z
+  .strictObject({
+    status: z.enum(CLAIM_STATUSES).optional(),
+    coverage: z.enum(COVERAGES).optional(),
+    failureMode: z.enum(FAILURE_MODES).optional(),
+    locationId: idSchema.optional(),
+    buildId: idSchema.optional(),
+    /** The vendor and the catalog category of the failed unit. */
+    vendorId: idSchema.optional(),
+    category: z.enum(CATEGORIES).optional(),
+    /** The day it failed, from and to (inclusive). */
+    failedFrom: isoDate.optional(),
+    failedTo: isoDate.optional(),
+    /** The day it was logged at its location, from and to (inclusive). */
+    loggedFrom: isoDate.optional(),
+    loggedTo: isoDate.optional(),
+    /** Only claims whose next step is past due. */
+    overdue: z.literal('true').optional(),
+    ...pagingOf(100),
+  })
+  .refine(dayRange('failedFrom', 'failedTo'), { path: ['failedTo'], message: 'Pick a day on or after the first' })
+  .refine(dayRange('loggedFrom', 'loggedTo'), { path: ['loggedTo'], message: 'Pick a day on or after the first' });
 export type ClaimQuery = z.infer<typeof claimQuery>;
 
 export interface ClaimView {
@@ -210,6 +225,8 @@ export const evidenceFileQuery = z.strictObject({ thumbnail: z.literal('true').o
 export const evidenceDelete = z.strictObject({ reason: text(500).min(1, 'Say why the file is removed') });
 
 export interface ClaimDetail extends ClaimView {
+  /** The location's approval limit: a lead approves a credit up to it, the regional manager above it. */
+  approvalLimitCents: number;
   events: ClaimEventView[];
   evidence: EvidenceView[];
 }

@@ -1,0 +1,85 @@
+import { dayOfIso, localMoment } from '@busbar/calc';
+import type { Db } from '@busbar/db';
+import type { ClaimQuery, Page } from '@busbar/shared';
+import { sql, type Expression, type ExpressionBuilder, type SqlBool } from 'kysely';
+import type { LocationScope } from '../access/locations.ts';
+import { claimsWithNames, localToday, toRow, type ClaimRow } from './claims.ts';
+import { cappedCount, offsetOf } from './paging.ts';
+
+type Claims = ExpressionBuilder<any, any>;
+
+/** The locations of each time zone: "today" and "logged on" are days at the claim's own location. */
+async function locationsByZone(db: Db): Promise<Map<string, number[]>> {
+  const zones = new Map<string, number[]>();
+  for (const l of await db.selectFrom('locations').select(['id', 'timeZone']).execute()) zones.set(l.timeZone, [...(zones.get(l.timeZone) ?? []), l.id]);
+  return zones;
+}
+
+/** Claims logged from the start of `from` to the end of `to`, each day at the claim's location. */
+function loggedBetween(eb: Claims, zones: Map<string, number[]>, from: string | undefined, to: string | undefined): Expression<SqlBool> {
+  const bounds = [...zones].map(([zone, ids]) => ({
+    ids,
+    start: from === undefined ? undefined : new Date(localMoment(zone, dayOfIso(from), 0)).toISOString(),
+    end: to === undefined ? undefined : new Date(localMoment(zone, dayOfIso(to) + 1, 0)).toISOString(),
+  }));
+  const within = (b: { start?: string | undefined; end?: string | undefined }) => [
+    ...(b.start === undefined ? [] : [eb('w.createdAt', '>=', b.start)]),
+    ...(b.end === undefined ? [] : [eb('w.createdAt', '<', b.end)]),
+  ];
+  // The widest span of all zones first, so an index on created_at narrows the rows; then each zone exactly.
+  const widest = { start: bounds.map((b) => b.start!).sort()[0], end: bounds.map((b) => b.end!).sort().at(-1) };
+  return eb.and([...within(widest), eb.or(bounds.map((b) => eb.and([eb('w.locationId', 'in', b.ids), ...within(b)])))]);
+}
+
+/** The list's filters as conditions on `warranty_claims` alone, so paging and counting need no join. */
+async function matchingClaims(db: Db, scope: LocationScope, query: ClaimQuery, now: Date) {
+  const byUnit = query.vendorId !== undefined || query.category !== undefined;
+  let catalogIds: number[] = [];
+  if (byUnit) {
+    let items = db.selectFrom('catalogItems').select('id');
+    if (query.vendorId !== undefined) items = items.where('vendorId', '=', query.vendorId);
+    if (query.category !== undefined) items = items.where('category', '=', query.category);
+    catalogIds = (await items.execute()).map((i) => i.id);
+  }
+  const zones = query.overdue || query.loggedFrom || query.loggedTo ? await locationsByZone(db) : new Map<string, number[]>();
+  return db.selectFrom('warrantyClaims as w').where((eb) => {
+    const conditions: Expression<SqlBool>[] = [];
+    if (scope !== 'all') conditions.push(eb('w.locationId', 'in', scope));
+    if (query.status) conditions.push(eb('w.status', '=', query.status));
+    if (query.coverage) conditions.push(eb('w.coverage', '=', query.coverage));
+    if (query.failureMode) conditions.push(eb('w.failureMode', '=', query.failureMode));
+    if (query.buildId) conditions.push(eb('w.buildId', '=', query.buildId));
+    if (query.failedFrom) conditions.push(eb('w.failedOn', '>=', query.failedFrom));
+    if (query.failedTo) conditions.push(eb('w.failedOn', '<=', query.failedTo));
+    if (query.loggedFrom || query.loggedTo) conditions.push(loggedBetween(eb, zones, query.loggedFrom, query.loggedTo));
+    if (query.overdue) conditions.push(eb.or([...zones].map(([zone, ids]) => eb.and([eb('w.locationId', 'in', ids), eb('w.dueOn', '<', localToday(zone, now))]))));
+    // The catalog is small: its matching items are looked up once, each claim's unit by its key.
+    if (byUnit) {
+      const unitItem = eb.selectFrom('buildItems as i').select('i.catalogItemId').whereRef('i.id', '=', 'w.buildItemId');
+      conditions.push(catalogIds.length > 0 ? eb(unitItem, 'in', catalogIds) : sql<SqlBool>`0`);
+    }
+    return eb.and(conditions);
+  });
+}
+
+/**
+ * One page of the claims at the given locations (already narrowed to the `locationId` asked for):
+ * the next step due soonest (overdue) first, closed claims last. The page's ids come from the
+ * indexes of `warranty_claims`; only those rows are joined to their names.
+ */
+export async function listClaims(db: Db, scope: LocationScope, query: ClaimQuery, now: Date): Promise<Page<ClaimRow>> {
+  const paging = { page: query.page, pageSize: query.pageSize };
+  if (scope !== 'all' && scope.length === 0) return { items: [], total: 0, totalCapped: false, ...paging };
+  const matching = await matchingClaims(db, scope, query, now);
+  const pageIds = matching
+    .select('w.id')
+    .orderBy(sql`w.due_on is null`)
+    .orderBy('w.dueOn', 'asc')
+    .orderBy('w.id', 'asc')
+    .limit(query.pageSize)
+    .offset(offsetOf(query.page, query.pageSize));
+  const [keys, count] = await Promise.all([pageIds.execute(), cappedCount(db, matching.select('w.id'))]);
+  const rows = keys.length === 0 ? [] : await claimsWithNames(db).where('w.id', 'in', keys.map((k) => k.id)).execute();
+  const byId = new Map(rows.map((row) => [row.id, toRow(row)]));
+  return { items: keys.map((k) => byId.get(k.id)!), ...count, ...paging };
+}

@@ -1,0 +1,73 @@
+import { subject } from '@casl/ability';
+import { idParams, locationListQuery, locationUpdate, noQuery, type AppAbility } from '@busbar/shared';
+import { Router } from 'express';
+import type { AppContext } from '../context.ts';
+import { forbidden, notFound } from '../errors.ts';
+import { viewerOf } from '../middleware/session.ts';
+import { validate } from '../middleware/validate.ts';
+import { buildLeadsAt } from '../queries/assignments.ts';
+import { writeAudit } from '../queries/audit.ts';
+import { findLocationSettings, listLocations, pageLocations, setApprovalLimit } from '../queries/locations.ts';
+
+const canRead = (ability: AppAbility, id: number) => ability.can('read', subject('Location', { id }));
+
+/**
+ * Locations: every one a person may see, whole (for pickers and labels); a page of them with their
+ * settings; one location; and the owner's change of its claim approval limit.
+ */
+export function locationsRouter({ db, now }: AppContext): Router {
+  const router = Router();
+
+  router.get(
+    '/',
+    validate({ query: noQuery }, async (_input, req, res) => {
+      const { ability } = viewerOf(req);
+      res.json((await listLocations(db)).filter((l) => canRead(ability, l.id)));
+    }),
+  );
+
+  router.get(
+    '/settings',
+    validate({ query: locationListQuery }, async ({ query }, req, res) => {
+      const { ability } = viewerOf(req);
+      const all = await listLocations(db);
+      const ids = all.filter((l) => canRead(ability, l.id)).map((l) => l.id);
+      res.json(await pageLocations(db, ids.length === all.length ? 'all' : ids, query));
+    }),
+  );
+
+  router.get(
+    '/:id',
+    validate({ params: idParams }, async ({ params }, req, res) => {
+      const location = await findLocationSettings(db, params.id);
+      if (!location || !canRead(viewerOf(req).ability, location.id)) throw notFound('location');
+      res.json(location);
+    }),
+  );
+
+  router.patch(
+    '/:id',
+    validate({ params: idParams, body: locationUpdate }, async ({ params, body }, req, res) => {
+      const viewer = viewerOf(req);
+      const location = await findLocationSettings(db, params.id);
+      if (!location || !canRead(viewer.ability, location.id)) throw notFound('location');
+      if (!viewer.ability.can('update', subject('Location', { id: location.id }))) throw forbidden('Only the network owner sets a location’s approval limit');
+      await db.transaction().execute(async (trx) => {
+        await setApprovalLimit(trx, location.id, body.claimApprovalLimitCents);
+        const before = { claimApprovalLimitCents: location.claimApprovalLimitCents };
+        await writeAudit(trx, { at: now().toISOString(), actorId: viewer.id, action: 'location.update', entity: 'location', entityId: location.id, before, after: body });
+      });
+      res.json(await findLocationSettings(db, location.id));
+    }),
+  );
+
+  router.get(
+    '/:id/technicians',
+    validate({ params: idParams }, async ({ params }, req, res) => {
+      if (!canRead(viewerOf(req).ability, params.id)) throw notFound('location');
+      res.json(await buildLeadsAt(db, params.id));
+    }),
+  );
+
+  return router;
+}
