@@ -81,7 +81,7 @@ describe('finding a serial number', () => {
     });
     expect((await (await h.signedIn(SIGN_INS.lead2)).get('/api/serials?q=KSTR')).body.items).toEqual([]);
     expect((await (await h.signedIn(SIGN_INS.warranty)).get('/api/serials?q=KSTR')).body.items).toHaveLength(1);
-    expect((await lead.get('/api/serials?q=K')).body.error.fields).toEqual({ q: 'Enter at least 2 characters' });
+    expect((await lead.get('/api/serials?q=KS')).body.error.fields).toEqual({ q: 'Enter at least 3 characters' });
   });
 });
 

@@ -23,7 +23,7 @@ const LISTS: [path: string, max: number][] = [
   ['/api/audit', MAX_PAGE_SIZE],
   ['/api/outbox', MAX_PAGE_SIZE],
   ['/api/plans', MAX_PAGE_SIZE],
-  ['/api/serials?q=KS', 100],
+  ['/api/serials?q=KST', 100],
 ];
 const withPageSize = (path: string, size: number) => `${path}${path.includes('?') ? '&' : '?'}pageSize=${size}`;
 

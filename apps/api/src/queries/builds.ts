@@ -3,7 +3,7 @@ import type { BuildEventView, BuildItemView, BuildQuery, BuildStatus, BuildView,
 import { sql, type Expression, type SqlBool } from 'kysely';
 import type { LocationScope } from '../access/locations.ts';
 import { afterKey, cappedCount, decodeCursor, encodeCursor, offsetOf, type Keyset } from './paging.ts';
-import { buildTextMatches, countCapFor } from './search.ts';
+import { buildTextQuery, countCapFor, isIndexable, SEARCH_CAP, shortBuildTextMatch } from './search.ts';
 
 export type BuildRow = Required<Omit<BuildView, 'marginCents'>>;
 
@@ -31,9 +31,11 @@ const SORT_COLUMNS = {
   updatedAt: 'b.updatedAt',
 } as const;
 
-/** The filters of a build list as conditions on `builds` alone, so counting and paging need no join. */
-function matchingBuilds(db: Db, scope: LocationScope, query: BuildQuery) {
-  const statuses = query.status === undefined ? [] : ([] as BuildStatus[]).concat(query.status);
+const statusesOf = (query: BuildQuery) => (query.status === undefined ? [] : ([] as BuildStatus[]).concat(query.status));
+
+/** The filters of a build list but its text, as conditions on `builds` alone, so counting and paging need no join. */
+function filteredBuilds(db: Db, scope: LocationScope, query: BuildQuery) {
+  const statuses = statusesOf(query);
   return db.selectFrom('builds as b').where((eb) => {
     const conditions: Expression<SqlBool>[] = [];
     if (scope !== 'all') conditions.push(eb('b.locationId', 'in', scope));
@@ -45,9 +47,26 @@ function matchingBuilds(db: Db, scope: LocationScope, query: BuildQuery) {
       const planned = eb.exists(eb.selectFrom('powerPlans as p').select('p.id').whereRef('p.buildId', '=', 'b.id'));
       conditions.push(query.hasPlan === 'true' ? planned : eb.not(planned));
     }
-    if (query.q) conditions.push(buildTextMatches('b.id', query.q));
     return eb.and(conditions);
   });
+}
+
+/**
+ * The builds a list shows. Searched text of 3 or more characters walks the full-text index newest
+ * first, in the scope's locations, and keeps the first `reach` builds that pass the other filters:
+ * a common name costs no more than a rare one.
+ */
+function matchingBuilds(db: Db, scope: LocationScope, query: BuildQuery, reach: number) {
+  const filtered = filteredBuilds(db, scope, query);
+  if (!query.q) return filtered;
+  if (!isIndexable(query.q)) return filtered.where(shortBuildTextMatch('b.id', query.q));
+  const newest = filtered
+    .innerJoin(sql<{ rowid: number }>`build_search`.as('s'), 's.rowid', 'b.id')
+    .where(sql<SqlBool>`s.build_search match ${buildTextQuery(query.q, scope, statusesOf(query))}`)
+    .select('b.id')
+    .orderBy('s.rowid', 'desc')
+    .limit(reach);
+  return db.selectFrom('builds as b').where('b.id', 'in', newest);
 }
 
 /**
@@ -59,11 +78,12 @@ export async function listBuilds(db: Db, scope: LocationScope, query: BuildQuery
   const paging = { page: query.page, pageSize: query.pageSize };
   if (scope !== 'all' && scope.length === 0) return { items: [], total: 0, totalCapped: false, nextCursor: null, ...paging };
   const sortColumn = SORT_COLUMNS[query.sort];
-  const matching = matchingBuilds(db, scope, query);
+  // The list shows the newest SEARCH_CAP matches of a text; one more tells the count there are more.
+  const matching = matchingBuilds(db, scope, query, SEARCH_CAP);
   let pageIds = matching.select(['b.id', `${sortColumn} as sortValue`]).orderBy(sortColumn, query.order).orderBy('b.id', query.order).limit(query.pageSize);
   if (query.cursor) pageIds = pageIds.where(afterKey(sortColumn, 'b.id', query.order, decodeCursor(query.cursor), query.sort === 'bookedFor'));
   else pageIds = pageIds.offset(offsetOf(query.page, query.pageSize));
-  const [keys, count] = await Promise.all([pageIds.execute(), cappedCount(db, matching.select('b.id'), countCapFor(query.q))]);
+  const [keys, count] = await Promise.all([pageIds.execute(), cappedCount(db, matchingBuilds(db, scope, query, SEARCH_CAP + 1).select('b.id'), countCapFor(query.q))]);
   const rows = keys.length === 0 ? [] : await buildsWithNames(db).where('b.id', 'in', keys.map((k) => k.id)).execute();
   const byId = new Map(rows.map((row) => [row.id, row]));
   const last = keys.length === query.pageSize ? keys.at(-1) : undefined;

@@ -1,5 +1,6 @@
 import { COUNT_CAP } from '@busbar/shared';
 import { sql, type Expression, type SqlBool } from 'kysely';
+import type { LocationScope } from '../access/locations.ts';
 
 /** SQLite's LIKE has no escape character unless a query names one: `\` here, so % and _ are literal. */
 const literal = (text: string) => text.replace(/[\\%_]/g, (c) => `\\${c}`);
@@ -10,37 +11,49 @@ export const contains = (column: string, text: string) => sql<boolean>`${sql.ref
 /** `column` starts with `text`, in any case. */
 export const startsWith = (column: string, text: string) => sql<boolean>`${sql.ref(column)} like ${`${literal(text)}%`} escape '\\'`;
 
-/** The trigram index finds any run of 3 or more characters; shorter text is looked for row by row. */
-export const TRIGRAM_LENGTH = 3;
+/** The trigram indexes find any run of 3 or more characters; shorter text is looked for row by row. */
+const TRIGRAM_LENGTH = 3;
 
-/** Text looked for row by row is counted only this far (then "more than"): each row costs a match. */
-export const SCAN_COUNT_CAP = 1_000;
-
-/** The count cap of a list searched for `text`. */
-export const countCapFor = (text: string | undefined) => (text && [...text].length < TRIGRAM_LENGTH ? SCAN_COUNT_CAP : COUNT_CAP);
+export const isIndexable = (text: string) => [...text].length >= TRIGRAM_LENGTH;
 
 /**
- * Customers (by `idColumn`) whose `column` (name, email or phone) contains `text`, in any case:
- * through the FTS5 trigram index `customer_search` from 3 characters, with LIKE below that.
+ * A text search reads at most this many matches, newest first, and then says "more than": a
+ * common name matches thousands of builds in a large network, and no one pages through them
+ * (the screen asks for more of the name instead).
  */
-export function customerTextMatches(idColumn: string, column: 'name' | 'email' | 'phone', text: string): Expression<SqlBool> {
-  if ([...text].length < TRIGRAM_LENGTH) return contains(column, text);
-  const query = `${column} : "${text.replaceAll('"', '""')}"`;
-  return sql<SqlBool>`${sql.ref(idColumn)} in (select rowid from customer_search where customer_search match ${query})`;
+export const SEARCH_CAP = 1_000;
+
+/** The count cap of a list searched for `text`. */
+export const countCapFor = (text: string | undefined) => (text ? SEARCH_CAP : COUNT_CAP);
+
+/** `text` as one FTS5 phrase: any run of its characters, in any case. */
+export const phrase = (text: string) => `"${text.replaceAll('"', '""')}"`;
+
+/**
+ * An FTS5 query narrowed to the scope's locations through the `place` markers of the indexes
+ * (migration 015), so the index walks only those locations' rows.
+ */
+export function inPlaces(query: string, scope: LocationScope): string {
+  if (scope === 'all') return query;
+  return `(${query}) AND place : (${scope.map((id) => `"@${id}@"`).join(' OR ')})`;
 }
 
 /**
- * Builds (by `idColumn`) whose number, customer name, vehicle or a serial number contains `text`,
- * in any case. From 3 characters the FTS5 trigram index `build_search` answers; shorter text is
- * matched with LIKE against the same text (`build_search_source`) as the sort order reaches each build.
+ * The FTS5 query for builds whose number, customer name, vehicle or a serial number contains
+ * `text`, in the scope and, when some are asked for, in these statuses (the `state` markers).
  */
-export function buildTextMatches(idColumn: string, text: string): Expression<SqlBool> {
-  const id = sql.ref(idColumn);
-  if ([...text].length >= TRIGRAM_LENGTH) {
-    const phrase = `"${text.replaceAll('"', '""')}"`;
-    return sql<SqlBool>`${id} in (select rowid from build_search where build_search match ${phrase})`;
-  }
+export function buildTextQuery(text: string, scope: LocationScope, statuses: readonly string[]): string {
+  const query = `{number customer vehicle serials} : ${phrase(text)}`;
+  return inPlaces(statuses.length === 0 ? query : `${query} AND state : (${statuses.map((s) => `"#${s}#"`).join(' OR ')})`, scope);
+}
+
+/**
+ * Builds (by `idColumn`) whose number, customer name, vehicle or a serial number contains `text`
+ * of 1 or 2 characters, in any case: matched with LIKE against the text the index is made from
+ * (`build_search_source`) as the sort order reaches each build.
+ */
+export function shortBuildTextMatch(idColumn: string, text: string): Expression<SqlBool> {
   const like = `%${literal(text)}%`;
-  return sql<SqlBool>`exists (select 1 from build_search_source s where s.id = ${id} and (s.number like ${like} escape '\\'
+  return sql<SqlBool>`exists (select 1 from build_search_source s where s.id = ${sql.ref(idColumn)} and (s.number like ${like} escape '\\'
     or s.customer like ${like} escape '\\' or s.vehicle like ${like} escape '\\' or s.serials like ${like} escape '\\'))`;
 }

@@ -176,7 +176,7 @@ export interface BuildDetail extends BuildView {
   events: BuildEventView[];
 }
 
-export const serialQuery = z.strictObject({ q: z.string().trim().min(2, 'Enter at least 2 characters').max(60), ...pagingOf(100) });
+export const serialQuery = z.strictObject({ q: z.string().trim().min(3, 'Enter at least 3 characters').max(60), ...pagingOf(100) });
 
 /** One installed unit found by its serial number. */
 export interface SerialMatch {
