@@ -22,7 +22,7 @@ beforeAll(async () => {
 afterAll(() => h.close());
 
 /** Every page of a list, read by cursor. */
-async function everyId<T>(agent: Agent, path: string, query: Record<string, string>, key: (row: T) => string): Promise<string[]> {
+async function everyId<T>(agent: Agent, path: string, query: Record<string, string | string[]>, key: (row: T) => string): Promise<string[]> {
   const found: string[] = [];
   let cursor: string | undefined;
   for (;;) {

@@ -1,9 +1,9 @@
 import type { Db } from '@busbar/db';
-import type { BuildEventView, BuildItemView, BuildQuery, BuildStatus, BuildView, Page } from '@busbar/shared';
+import { SEARCH_CAP, type BuildEventView, type BuildItemView, type BuildQuery, type BuildStatus, type BuildView, type Page } from '@busbar/shared';
 import { sql, type Expression, type SqlBool } from 'kysely';
 import type { LocationScope } from '../access/locations.ts';
 import { afterKey, cappedCount, decodeCursor, encodeCursor, offsetOf, type Keyset } from './paging.ts';
-import { buildTextQuery, countCapFor, isIndexable, SEARCH_CAP, shortBuildTextMatch } from './search.ts';
+import { buildTextQuery, countCapFor, isIndexable, shortBuildTextMatch } from './search.ts';
 
 export type BuildRow = Required<Omit<BuildView, 'marginCents'>>;
 

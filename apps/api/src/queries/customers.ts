@@ -1,9 +1,9 @@
 import type { Database, Db } from '@busbar/db';
 import { sql, type Expression, type ExpressionBuilder, type SqlBool } from 'kysely';
-import type { CustomerBody, CustomerView, Page } from '@busbar/shared';
+import { SEARCH_CAP, type CustomerBody, type CustomerView, type Page } from '@busbar/shared';
 import type { LocationScope } from '../access/locations.ts';
 import { cappedCount, offsetOf } from './paging.ts';
-import { contains, countCapFor, inPlaces, isIndexable, phrase, SEARCH_CAP } from './search.ts';
+import { contains, countCapFor, inPlaces, isIndexable, phrase } from './search.ts';
 
 const CUSTOMER_COLUMNS = [
   'id', 'locationId', 'name', 'email', 'phone', 'addressLine1', 'addressLine2', 'city', 'region', 'postalCode', 'notes', 'version',

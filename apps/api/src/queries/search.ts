@@ -1,4 +1,4 @@
-import { COUNT_CAP } from '@busbar/shared';
+import { COUNT_CAP, SEARCH_CAP } from '@busbar/shared';
 import { sql, type Expression, type SqlBool } from 'kysely';
 import type { LocationScope } from '../access/locations.ts';
 
@@ -15,13 +15,6 @@ export const startsWith = (column: string, text: string) => sql<boolean>`${sql.r
 const TRIGRAM_LENGTH = 3;
 
 export const isIndexable = (text: string) => [...text].length >= TRIGRAM_LENGTH;
-
-/**
- * A text search reads at most this many matches, newest first, and then says "more than": a
- * common name matches thousands of builds in a large network, and no one pages through them
- * (the screen asks for more of the name instead).
- */
-export const SEARCH_CAP = 1_000;
 
 /** The count cap of a list searched for `text`. */
 export const countCapFor = (text: string | undefined) => (text ? SEARCH_CAP : COUNT_CAP);

@@ -105,5 +105,5 @@ export function usePagedList<T, Filters extends object>(
     pagination: pagination.value,
   }));
 
-  return { request, loading, error, load, setFilters, onTableChange, table };
+  return { request, result, loading, error, load, setFilters, onTableChange, table };
 }

@@ -30,6 +30,13 @@ export const MAX_PAGE_SIZE = 200;
  */
 export const COUNT_CAP = 10_000;
 
+/**
+ * A text search lists at most this many matches, newest first, and then says "more than": a
+ * common name matches thousands of builds in a large network, and no one pages through them
+ * (the screen asks for more of the name instead).
+ */
+export const SEARCH_CAP = 1_000;
+
 /** `page` and `pageSize` of a list, with its own largest page where smaller than MAX_PAGE_SIZE. */
 export const pagingOf = (maxPageSize = MAX_PAGE_SIZE, defaultPageSize = 50) => ({
   page: z.coerce.number().int().min(1).default(1),
