@@ -1,6 +1,6 @@
 import { createAbility, defineRulesFor, type ClaimDetail, type ClaimStatus, type Role } from '@busbar/shared';
 import { describe, expect, it } from 'vitest';
-import { movesFor } from '../../apps/web/src/views/claims/claimMoves.ts';
+import { approvalRefusal, movesFor } from '../../apps/web/src/views/claims/claimMoves.ts';
 import { claimStages } from '../../apps/web/src/views/claims/claimStatus.ts';
 
 const DEN = 1;
@@ -36,6 +36,19 @@ describe('the workflow steps a claim page offers', () => {
     expect(offered('regional_manager', 'credited')).toEqual([]);
     expect(offered('location_lead', 'sent_to_vendor', 2)).toEqual([]);
     expect(offered('warranty_clerk', 'closed')).toEqual([]);
+  });
+
+  it("offers a lead approval only up to the shop's limit, saying the regional manager approves above it", () => {
+    const above = { ...claimAt('sent_to_vendor'), approvalLimitCents: 10_000 };
+    expect(movesFor(abilityOf('location_lead'), above).map((m) => m.okText)).toEqual(['Deny']);
+    expect(approvalRefusal(abilityOf('location_lead'), above, above.creditRequestedCents)).toBe("$120.00 is above this shop's approval limit of $100.00: the regional manager approves it.");
+    expect(approvalRefusal(abilityOf('location_lead'), above, 10_000)).toBeNull();
+    expect(movesFor(abilityOf('regional_manager'), above).map((m) => m.okText)).toEqual(['Record approval', 'Deny']);
+    expect(approvalRefusal(abilityOf('regional_manager'), above, 500_000)).toBeNull();
+    // Someone who records no vendor answers is told nothing about approving.
+    expect(approvalRefusal(abilityOf('warranty_clerk'), above, above.creditRequestedCents)).toBeNull();
+    const within = { ...above, approvalLimitCents: 12_000 };
+    expect(movesFor(abilityOf('location_lead'), within).map((m) => m.okText)).toEqual(['Record approval', 'Deny']);
   });
 
   it('draws a denied claim without the credit stages', () => {

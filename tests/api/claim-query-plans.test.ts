@@ -1,0 +1,105 @@
+import type { Db } from '@busbar/db';
+import { claimQuery } from '@busbar/shared';
+import { CompiledQuery, createQueryId, sql, type KyselyPlugin, type RootOperationNode } from 'kysely';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { listClaims } from '../../apps/api/src/queries/claim-list.ts';
+import { demoIds, startHarness, type Harness } from '../support/api-harness.ts';
+
+/**
+ * SQLite's plan for the claims list on the demo network's history with a claim on every tenth
+ * unit and statistics gathered: claims are read through an index, a page in the queue's order
+ * without sorting every claim.
+ */
+let h: Harness;
+let den: number;
+const sent: RootOperationNode[] = [];
+const recorder: KyselyPlugin = {
+  transformQuery: ({ node }) => {
+    sent.push(node);
+    return node;
+  },
+  transformResult: async ({ result }) => result,
+};
+
+beforeAll(async () => {
+  h = await startHarness({}, true, { history: true });
+  den = (await demoIds(h.db)).location('DEN');
+  // A claim on every tenth delivered unit, failing and logged across two years, a fifth closed.
+  await sql`insert into warranty_claims (location_id, sequence, number, build_id, build_item_id, failed_on, failure_mode, coverage, symptoms, status, due_on, created_at, updated_at)
+    select b.location_id, 1000000 + i.id, 'T-' || i.id, b.id, i.id, date('2024-07-01', '+' || (i.id % 700) || ' days'), 'overheating', 'vendor_defect', 'Hot',
+      case when i.id % 5 = 0 then 'closed' else 'sent_to_vendor' end, case when i.id % 5 = 0 then null else date('2026-01-01', '+' || (i.id % 200) || ' days') end,
+      strftime('%Y-%m-%dT%H:%M:%fZ', '2024-07-02', '+' || (i.id % 700) || ' days'), '2026-06-01T00:00:00.000Z'
+    from build_items i join builds b on b.id = i.build_id where b.status = 'delivered' and i.id % 10 = 0`.execute(h.db);
+  await sql`pragma optimize = 0x10002`.execute(h.db);
+}, 120_000);
+afterAll(() => h.close());
+
+/** The plan of each statement `run` sends, line by line. */
+async function plansOf(run: (db: Db) => Promise<unknown>): Promise<string[][]> {
+  sent.length = 0;
+  await run(h.db.withPlugin(recorder));
+  const plans: string[][] = [];
+  for (const node of [...sent]) {
+    const compiled = h.db.getExecutor().compileQuery(node, createQueryId());
+    const plan = await h.db.executeQuery<{ detail: string }>(CompiledQuery.raw(`explain query plan ${compiled.sql}`, [...compiled.parameters]));
+    plans.push(plan.rows.map((r) => r.detail));
+  }
+  return plans;
+}
+
+/** Lists whose page is read in the queue's order straight from an index, stopping at the page. */
+const IN_ORDER: Record<string, Record<string, string>> = {
+  'the queue': {},
+  'one status': { status: 'sent_to_vendor' },
+  overdue: { overdue: 'true' },
+  'a vendor': { vendorId: '1' },
+  'a category': { category: 'house_battery' },
+  'a deep page': { page: '40' },
+};
+
+/** Lists narrowed to a span of days: the span is read from its index, and only its claims are sorted. */
+const BY_DAYS: Record<string, [query: Record<string, string>, column: string]> = {
+  'failed in a month': [{ failedFrom: '2025-03-01', failedTo: '2025-03-31' }, 'failed_on'],
+  'logged in a month': [{ loggedFrom: '2025-03-01', loggedTo: '2025-03-31' }, 'created_at'],
+};
+
+const AT = new Date('2026-06-15T15:00:00Z');
+
+/** The plans of a claims list: every statement, and the one that reads the page's ids. */
+async function listPlans(scope: 'all' | number[], query: Record<string, string>) {
+  const plans = await plansOf((db) => listClaims(db, scope, claimQuery.parse(query), AT));
+  const page = plans.find((lines) => lines.some((line) => /^(SCAN|SEARCH) w\b/.test(line)));
+  return { plans, page: page ?? [] };
+}
+
+/** Statements that read a table row by row, not through an index. */
+const tableScans = (plans: string[][]) => plans.flat().filter((line) => /^SCAN (w|i|b|ci)\b/.test(line) && !/USING (COVERING )?INDEX/.test(line));
+
+describe('claims list query plans', () => {
+  it('has claims to plan for', async () => {
+    const { n } = await h.db.selectFrom('warrantyClaims').select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow();
+    expect(Number(n)).toBeGreaterThan(1000);
+  });
+
+  it("reads one status of a lead's shop from the shop's status index, sorting only those claims", async () => {
+    const { plans, page } = await listPlans([den], { status: 'sent_to_vendor' });
+    expect(page[0]).toBe('SEARCH w USING INDEX warranty_claims_queue (location_id=? AND status=?)');
+    expect(tableScans(plans)).toEqual([]);
+  });
+
+  for (const [who, scope] of [['the owner', 'all'], ['a lead', 'den']] as const) {
+    const lists = Object.entries(IN_ORDER).filter(([name]) => scope === 'all' || name !== 'one status');
+    it.each(lists)(`reads a page for ${who} in the queue's order from an index, sorting nothing: %s`, async (_name, query) => {
+      const { plans, page } = await listPlans(scope === 'all' ? 'all' : [den], query);
+      expect(page.join('\n')).toMatch(/USING (COVERING )?INDEX warranty_claims_(location_)?(status_)?queue_order/);
+      expect(page.filter((line) => line.includes('TEMP B-TREE'))).toEqual([]);
+      expect(tableScans(plans)).toEqual([]);
+    });
+
+    it.each(Object.entries(BY_DAYS))(`reads a span of days for ${who} from its index: %s`, async (_name, [query, column]) => {
+      const { plans, page } = await listPlans(scope === 'all' ? 'all' : [den], query);
+      expect(page.some((line) => line.startsWith('SEARCH w USING') && line.includes(`${column}>? AND ${column}<?`))).toBe(true);
+      expect(tableScans(plans)).toEqual([]);
+    });
+  }
+});

@@ -1,0 +1,18 @@
+import type { Role } from '@busbar/shared';
+import { describe, expect, it } from 'vitest';
+import { homeOf } from '../../apps/web/src/layout/home.ts';
+
+const as = (...roles: Role[]) => roles.map((role) => ({ role }));
+
+describe('where a person lands after signing in', () => {
+  it('lands the warranty clerk on the claim queue', () => {
+    expect(homeOf(as('warranty_clerk'))).toBe('claims');
+    expect(homeOf(as('warranty_clerk', 'warranty_clerk'))).toBe('claims');
+  });
+
+  it('lands everyone else, and anyone whose wider role comes first, on the overview', () => {
+    for (const role of ['owner', 'regional_manager', 'location_lead', 'technician', 'accountant'] as const) expect(homeOf(as(role))).toBe('overview');
+    expect(homeOf(as('warranty_clerk', 'location_lead'))).toBe('overview');
+    expect(homeOf([])).toBe('overview');
+  });
+});
