@@ -19,6 +19,13 @@ export const SCREENS: readonly (readonly [label: string, path: (ids: Ids) => str
   ['audit log', () => '/api/audit'],
   ['audit log, builds only', () => '/api/audit?entity=build'],
   ['quick plans', () => '/api/plans'],
+  ['claims, queue', () => '/api/claims'],
+  ['claims, overdue', () => '/api/claims?overdue=true'],
+  ['claims, sent to vendor', () => '/api/claims?status=sent_to_vendor'],
+  ['claims, filtered by vendor', () => '/api/claims?vendorId=1'],
+  ['claims, house batteries', () => '/api/claims?category=house_battery'],
+  ['claims, failed in a month', () => '/api/claims?failedFrom=2025-03-01&failedTo=2025-03-31'],
+  ['claims, logged in a month', () => '/api/claims?loggedFrom=2025-03-01&loggedTo=2025-03-31'],
 ];
 
 export interface Ids {

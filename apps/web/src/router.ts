@@ -1,5 +1,6 @@
 import type { Action, Subject } from '@busbar/shared';
 import { createRouter, createWebHistory, type RouteLocationNormalized } from 'vue-router';
+import { homeOf } from './layout/home.ts';
 import { ability, useSessionStore } from './stores/session.ts';
 
 declare module 'vue-router' {
@@ -27,7 +28,18 @@ export const router = createRouter({
       path: '/',
       component: () => import('./layout/AppLayout.vue'),
       children: [
-        { path: '', name: 'overview', component: () => import('./views/Overview.vue'), meta: { title: 'Overview' } },
+        {
+          path: '',
+          name: 'overview',
+          component: () => import('./views/Overview.vue'),
+          meta: { title: 'Overview' },
+          // Arriving (signing in, opening Busbar) lands a person on their own work; the menu's Overview stays the overview.
+          beforeEnter: (_to, from) => {
+            const arriving = from.matched.length === 0 || from.name === 'sign-in' || from.name === 'set-password';
+            const home = homeOf(useSessionStore().assignments);
+            return arriving && home !== 'overview' ? { name: home } : true;
+          },
+        },
         {
           path: 'staff',
           name: 'staff',
@@ -148,6 +160,12 @@ export const router = createRouter({
           component: () => import('./views/claims/ClaimDetail.vue'),
           props: (route) => ({ id: Number(route.params.id) }),
           meta: { action: 'read', subject: 'Claim', title: 'Claim' },
+        },
+        {
+          path: 'locations',
+          name: 'locations',
+          component: () => import('./views/locations/LocationList.vue'),
+          meta: { action: 'update', subject: 'Location', title: 'Locations' },
         },
         {
           path: 'outbox',

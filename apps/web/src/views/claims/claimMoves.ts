@@ -1,4 +1,5 @@
 import type { AppAbility, ClaimDetail, ClaimStatus } from '@busbar/shared';
+import { formatMoney } from '../../format.ts';
 import { claimSubject } from './claimStatus.ts';
 
 /** A workflow step as its dialog shows it. */
@@ -11,20 +12,31 @@ export interface Move {
 }
 
 /**
+ * Why this person may not approve `creditCents` on the claim though they record vendors' answers
+ * at its location (a lead above the location's limit), or null when they may.
+ */
+export function approvalRefusal(ability: AppAbility, claim: ClaimDetail, creditCents: number): string | null {
+  if (!ability.can('approve', claimSubject(claim)) || ability.can('approve', claimSubject(claim, creditCents))) return null;
+  return `${formatMoney(creditCents)} is above this shop's approval limit of ${formatMoney(claim.approvalLimitCents)}: the regional manager approves it.`;
+}
+
+/**
  * The workflow steps this person may take on the claim now, as dialogs. Approving is offered to
- * whoever may approve at the location; a credit above the lead's limit is refused by the API with
- * the reason (the regional manager approves it), shown on the dialog.
+ * whoever may approve the credit asked at the location: a lead up to its limit, above it the
+ * regional manager (`approvalRefusal` says so instead). Denying is theirs either way.
  */
 export function movesFor(ability: AppAbility, claim: ClaimDetail): Move[] {
   const can = (action: 'update' | 'approve') => ability.can(action, claimSubject(claim));
   const moves: Move[] = [];
   if (claim.status === 'sent_to_vendor' && can('approve')) {
-    moves.push({
-      to: 'approved',
-      title: `Record the vendor's approval of ${claim.number}`,
-      okText: 'Record approval',
-      amount: { field: 'creditApprovedCents', label: 'Credit the vendor approved ($)', startCents: claim.creditRequestedCents },
-    });
+    if (approvalRefusal(ability, claim, claim.creditRequestedCents) === null) {
+      moves.push({
+        to: 'approved',
+        title: `Record the vendor's approval of ${claim.number}`,
+        okText: 'Record approval',
+        amount: { field: 'creditApprovedCents', label: 'Credit the vendor approved ($)', startCents: claim.creditRequestedCents },
+      });
+    }
     moves.push({ to: 'denied', title: `Record that the vendor denied ${claim.number}`, okText: 'Deny' });
   }
   if (claim.status === 'approved' && can('update')) {

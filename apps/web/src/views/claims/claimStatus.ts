@@ -7,8 +7,7 @@ import {
   LockOutlined,
   SendOutlined,
 } from '@ant-design/icons-vue';
-import { CLAIM_STATUS_LABELS, type ClaimStatus, type ClaimView } from '@busbar/shared';
-import { subject } from '@casl/ability';
+import { CLAIM_STATUS_LABELS, claimRuleSubject, type ClaimStatus, type ClaimView } from '@busbar/shared';
 import type { Component } from 'vue';
 import type { Tone } from '../../theme.ts';
 
@@ -35,6 +34,9 @@ export function claimStages(denied: boolean): ClaimStatus[] {
 /** Claims may be edited until the vendor has answered (as the API allows). */
 export const isEditable = (status: ClaimStatus) => ['logged', 'evidence_ready', 'sent_to_vendor'].includes(status);
 
-/** The claim as a CASL subject; `aboveLimit` says whether the credit is above the location's approval limit. */
-export const claimSubject = (claim: Pick<ClaimView, 'locationId'>, aboveLimit = false) =>
-  subject('Claim', { locationId: claim.locationId, aboveLimit });
+/**
+ * The claim as a CASL subject (`claimRuleSubject`, as the API builds it); with `creditCents`, whether
+ * approving that credit is above the location's approval limit.
+ */
+export const claimSubject = (claim: Pick<ClaimView, 'locationId'> & { approvalLimitCents?: number }, creditCents = 0) =>
+  claimRuleSubject(claim, creditCents);

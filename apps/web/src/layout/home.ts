@@ -1,0 +1,20 @@
+import { ROLES, type AssignmentView, type Role } from '@busbar/shared';
+
+/**
+ * Where each role lands after signing in (DESIGN.md, "home"): the clerk on the claim queue; the
+ * others' own homes come with their screens, the overview until then.
+ */
+const HOME_BY_ROLE: Record<Role, 'overview' | 'claims'> = {
+  owner: 'overview',
+  regional_manager: 'overview',
+  location_lead: 'overview',
+  technician: 'overview',
+  warranty_clerk: 'claims',
+  accountant: 'overview',
+};
+
+/** The home of a person's first role in the order of ROLES (the widest work first). */
+export function homeOf(assignments: Pick<AssignmentView, 'role'>[]): 'overview' | 'claims' {
+  const first = ROLES.find((role) => assignments.some((a) => a.role === role));
+  return first ? HOME_BY_ROLE[first] : 'overview';
+}
