@@ -8,17 +8,30 @@
  * - Phoenix (PHX) sells solar: about 45 % of its builds are solar-and-inverter builds, elsewhere 16 %.
  * - Boise (BOI) buys nearly all its house batteries (about 88 %) from Northvane, elsewhere 30 %.
  * - Burlington (BTV) opened about 200 days before the clock and is still the smallest shop.
+ * Warranty claims follow the delivered units (failure rates in claims-rates.ts, invented):
+ * - Austin (AUS) has clearly more workmanship claims: loose or burnt connections within months of
+ *   the install, about six times the network's rate; over half of its claims are workmanship.
+ * - Tidewell Relay 40 A chargers (TDW-DC40) made 12 to 10 months before the clock are a bad batch:
+ *   serial numbers TW<yymm>- of those three months (TW2506- to TW2508- with the clock in June
+ *   2026) fail several times as often as the item's other serials.
+ * - Electronics fail early, batteries and compressors wear out; units past their warranty come
+ *   back only as goodwill logged by the lead. Claims reach every status by the clock.
  */
 import type { Role } from '@busbar/shared';
 import type { Db } from '../connect.ts';
 import { DEMO_CATALOG, SERIALIZED_CATEGORIES } from './catalog.ts';
 import { historyRows, type CatalogEntry } from './history-rows.ts';
 import { DEMO_AREAS, type Area } from './customers.ts';
+import { claimContext } from './claims-context.ts';
+import { claimMaker } from './claims-rows.ts';
 import { insertInChunks, nextIds } from './insert.ts';
 import { LOCATION_PROFILES, type LocationProfile } from './profiles.ts';
 import { seededRandom } from './random.ts';
 import { simulateShop, type Shop } from './shop-history.ts';
 import { DEMO_VENDORS } from './vendors.ts';
+
+/** The claims draw from a stream of their own, so the builds stay as they were without them. */
+export const CLAIM_STREAM = 0xc1a1_7e57;
 
 export interface HistoryOptions {
   now: Date;
@@ -70,9 +83,14 @@ export async function seedDemoHistory(db: Db, options: HistoryOptions): Promise<
   const catalog = await insertCatalog(db);
   const simulated = shops.map((shop) => simulateShop(random, shop, nowMs));
   const rows = historyRows(random, { builds: simulated.flatMap((s) => s.builds) }, catalog, await nextIds(db), nowMs);
+  const claims = claimMaker(seededRandom(options.seed ^ CLAIM_STREAM), { ...(await claimContext(db, catalog, nowMs)), everyStatus: true });
+  claims.add(rows);
+  const claimRows = claims.flush(Infinity);
   await insertInChunks(db, 'customers', rows.customers);
   await insertInChunks(db, 'vehicles', rows.vehicles);
   await insertInChunks(db, 'builds', rows.builds);
-  await insertInChunks(db, 'buildItems', rows.buildItems);
-  await insertInChunks(db, 'buildEvents', rows.buildEvents);
+  await insertInChunks(db, 'buildItems', [...rows.buildItems, ...claimRows.buildItems]);
+  await insertInChunks(db, 'buildEvents', [...rows.buildEvents, ...claimRows.buildEvents]);
+  await insertInChunks(db, 'warrantyClaims', claimRows.warrantyClaims);
+  await insertInChunks(db, 'claimEvents', claimRows.claimEvents);
 }

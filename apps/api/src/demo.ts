@@ -1,10 +1,15 @@
 import { DEMO_PASSWORD, seedDemoNetwork, type Db } from '@busbar/db';
 import { hashPassword } from './auth/password.ts';
+import { addDemoEvidence } from './demo-evidence.ts';
 
-/** Fills an empty database with the demo network and its history; a database with people in it is left alone. */
-export async function ensureDemoData(db: Db, scryptLogN: number, now: Date): Promise<boolean> {
+/**
+ * Fills an empty database with the demo network and its history, and the evidence files of its
+ * claims under `dataDir`; a database with people in it is left alone.
+ */
+export async function ensureDemoData(db: Db, scryptLogN: number, now: Date, dataDir: string): Promise<boolean> {
   const anyone = await db.selectFrom('users').select('id').limit(1).executeTakeFirst();
   if (anyone) return false;
   await seedDemoNetwork(db, { passwordHash: await hashPassword(DEMO_PASSWORD, scryptLogN), now, history: true });
+  await addDemoEvidence(db, dataDir);
   return true;
 }

@@ -11,7 +11,7 @@ const config = loadConfig();
 const now = () => new Date();
 const db = openDatabase(config.databaseFile);
 await migrateToLatest(db);
-if (config.demoData && (await ensureDemoData(db, config.scryptLogN, now()))) {
+if (config.demoData && (await ensureDemoData(db, config.scryptLogN, now(), config.dataDir))) {
   console.log('Filled the empty database with the demo network.');
 }
 await keepPlannerStatistics(db);

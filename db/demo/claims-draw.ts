@@ -1,0 +1,122 @@
+import { addMonthsIso, isoDay, localDay } from '@busbar/calc';
+import type { Category, ClaimStatus, Coverage, FailureMode } from '@busbar/shared';
+import { between, chance, weighted, type Random } from './draw.ts';
+import { FAILURE_RATES, FOUND_HOW, SKU_FAILURE_RATES, SYMPTOMS, VENDOR_MODES, WORKMANSHIP, WORKMANSHIP_FACTOR, BAD_BATCH, yearsToFailure } from './claims-rates.ts';
+import { claimAnswer, laterAt } from './claims-answer.ts';
+import { pick } from './random.ts';
+
+/** An installed unit as the claims need it: its line, its delivery and what the catalog says of it. */
+export interface ClaimUnit {
+  itemId: number;
+  buildId: number;
+  catalogItemId: number;
+  sku: string;
+  serialNumber: string;
+  unitCostCents: number;
+  deliveredAt: number;
+  category: Category;
+  warrantyMonths: number;
+  rmaEmail: string;
+}
+
+/** A shop with the people who work its claims. */
+export interface ClaimShop {
+  id: number;
+  code: string;
+  timeZone: string;
+  clerkId: number;
+  leadId: number;
+  managerId: number;
+  approvalLimitCents: number;
+}
+
+export interface ClaimStep {
+  at: number;
+  by: number;
+  to: ClaimStatus;
+  note: string;
+}
+
+/** A claim as it happened up to the clock, before it has its number. */
+export interface ClaimDraft {
+  unit: ClaimUnit;
+  shop: ClaimShop;
+  failedOn: string;
+  failureMode: FailureMode;
+  coverage: Coverage;
+  symptoms: string;
+  foundHow: string;
+  laborHours: number;
+  outOfWarranty: boolean;
+  creditRequestedCents: number;
+  creditApprovedCents: number | null;
+  creditReceivedCents: number | null;
+  vendorRmaNumber: string;
+  /** The first step is `logged`; the last is where the claim stands at the clock. */
+  steps: ClaimStep[];
+  replacement: { at: number; on: string; by: number } | null;
+}
+
+const YEAR_MS = 365.25 * 86_400_000;
+
+/** When a unit fails (the sooner of its own failure and a loose connection of the shop's), or null for a category that does not. */
+export function failureAt(
+  random: Random,
+  unit: { sku: string; category: Category; deliveredAt: number; inBadBatch: boolean },
+  shop: ClaimShop,
+): { at: number; workmanship: boolean } | null {
+  const rate = SKU_FAILURE_RATES[unit.sku] ?? FAILURE_RATES[unit.category];
+  if (!rate) return null;
+  const own = yearsToFailure(random, unit.inBadBatch ? BAD_BATCH.rate : rate);
+  const loose = unit.category === 'solar_panel' ? Infinity : yearsToFailure(random, WORKMANSHIP, WORKMANSHIP_FACTOR[shop.code] ?? 1);
+  return { at: unit.deliveredAt + Math.min(own, loose) * YEAR_MS, workmanship: loose < own };
+}
+
+function modeOf(random: Random, unit: ClaimUnit, coverage: Coverage, outOfWarranty: boolean): FailureMode {
+  if (coverage === 'workmanship') return chance(random, 0.85) ? 'loose_or_burnt_connection' : 'physical_damage';
+  // Goodwill inside the warranty: damage that is nobody's defect, covered to keep the customer.
+  if (coverage === 'goodwill' && !outOfWarranty) return 'physical_damage';
+  return weighted(random, VENDOR_MODES[unit.category]!);
+}
+
+/**
+ * The claim of a unit that failed before the clock, if it was logged by then, with its steps up to
+ * the clock: logged within a week of the failure (past the warranty only as goodwill by the lead,
+ * and not for every such customer), evidence, the request to the vendor, the vendor's answer, the
+ * credit and closing.
+ */
+export function drawClaim(random: Random, unit: ClaimUnit, shop: ClaimShop, failure: { at: number; workmanship: boolean }, nowMs: number): ClaimDraft | null {
+  const failMs = failure.at;
+  const zone = shop.timeZone;
+  const deliveredOn = isoDay(localDay(zone, unit.deliveredAt));
+  const failedOn = isoDay(localDay(zone, failMs));
+  const outOfWarranty = failedOn > addMonthsIso(deliveredOn, unit.warrantyMonths);
+  // Past the warranty, about a third of customers buy a new unit without asking.
+  if (outOfWarranty && chance(random, 0.35)) return null;
+  const loggedAt = Math.max(laterAt(random, zone, failMs, between(random, 0, 6)), failMs);
+  if (loggedAt > nowMs) return null;
+  const coverage: Coverage = outOfWarranty ? 'goodwill' : failure.workmanship ? 'workmanship' : chance(random, 0.05) ? 'goodwill' : 'vendor_defect';
+  const failureMode = modeOf(random, unit, coverage, outOfWarranty);
+  const steps: ClaimStep[] = [{ at: loggedAt, by: outOfWarranty ? shop.leadId : shop.clerkId, to: 'logged', note: '' }];
+  const draft: ClaimDraft = {
+    unit,
+    shop,
+    failedOn,
+    failureMode,
+    coverage,
+    symptoms: pick(random, SYMPTOMS[failureMode]),
+    foundHow: pick(random, FOUND_HOW),
+    laborHours: between(random, 0.5, 2.5, 0.25),
+    outOfWarranty,
+    creditRequestedCents: unit.unitCostCents,
+    creditApprovedCents: null,
+    creditReceivedCents: null,
+    vendorRmaNumber: '',
+    steps,
+    replacement: null,
+  };
+  // The shop puts right its own loose connection at once, whatever the vendor says later.
+  if (coverage === 'workmanship') draft.replacement = { at: laterAt(random, zone, loggedAt, between(random, 0, 3)), on: '', by: shop.clerkId };
+  claimAnswer(random, draft, nowMs);
+  return draft;
+}
