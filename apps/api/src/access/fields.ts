@@ -1,4 +1,3 @@
-import type { Db } from '@busbar/db';
 import { subject } from '@casl/ability';
 import type { AppAbility, Subject } from '@busbar/shared';
 
@@ -14,10 +13,4 @@ export function readable<T extends object>(ability: AppAbility, type: Exclude<Su
     if (ability.can('read', target, key)) out[key as keyof T] = value;
   }
   return out;
-}
-
-/** Ids of the locations where the person may do `action` on records of `type`. */
-export async function locationsWhere(db: Db, ability: AppAbility, action: 'read' | 'create', type: Exclude<Subject, 'all'>): Promise<number[]> {
-  const ids = (await db.selectFrom('locations').select('id').execute()).map((l) => l.id);
-  return ids.filter((locationId) => ability.can(action, subject(type, { locationId })));
 }

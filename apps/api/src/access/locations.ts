@@ -17,11 +17,19 @@ export async function locationToAddAt(db: Db, viewer: Viewer, locationId: number
 /** Every location (people who see the whole network: lists take no location filter), or these ids. */
 export type LocationScope = 'all' | number[];
 
-/** Where the person may do `action` on records of `type` (or on its `field`): 'all' when that is every location. */
-export async function locationScope(db: Db, viewer: Viewer, action: 'read' | 'create', type: 'Build' | 'Customer' | 'Plan' | 'Claim', field?: string): Promise<LocationScope> {
-  const all = (await db.selectFrom('locations').select('id').execute()).map((l) => l.id);
-  const ids = all.filter((locationId) => viewer.ability.can(action, subject(type, { locationId }), field));
-  return ids.length === all.length ? 'all' : ids;
+/**
+ * Where the person may do `action` on records of `type` (or on its `field`): 'all' when that is
+ * every location. Worked out once per cached viewer (the network's locations come with it).
+ */
+export function locationScope(viewer: Viewer, action: 'read' | 'create', type: 'Build' | 'Customer' | 'Plan' | 'Claim', field?: string): LocationScope {
+  const key = `${action} ${type} ${field ?? ''}`;
+  let scope = viewer.scopes.get(key);
+  if (!scope) {
+    const ids = viewer.locationIds.filter((locationId) => viewer.ability.can(action, subject(type, { locationId }), field));
+    scope = ids.length === viewer.locationIds.length ? 'all' : ids;
+    viewer.scopes.set(key, scope);
+  }
+  return scope;
 }
 
 /** The scope narrowed to one location the request asks for (none of it when out of scope). */

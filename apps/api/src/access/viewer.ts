@@ -1,6 +1,7 @@
 import type { Db } from '@busbar/db';
 import { createAbility, defineRulesFor, type AppAbility, type AppRule, type AssignmentView, type RuleAssignment } from '@busbar/shared';
 import { assignmentsOf } from '../queries/assignments.ts';
+import type { LocationScope } from './locations.ts';
 
 /** The signed-in person with what they may do, built fresh for every request. */
 export interface Viewer {
@@ -10,6 +11,10 @@ export interface Viewer {
   assignments: AssignmentView[];
   rules: AppRule[];
   ability: AppAbility;
+  /** Every location of the network when the viewer was loaded. */
+  locationIds: number[];
+  /** Where the person may do what, worked out as first asked (see locationScope). */
+  scopes: Map<string, LocationScope>;
 }
 
 /** Resolves each assignment to the locations it covers, as defineRulesFor needs. */
@@ -43,5 +48,5 @@ export async function loadViewer(db: Db, userId: number): Promise<Viewer | null>
   ]);
   const views = assignments.map(({ userId: _, ...view }) => view);
   const rules = defineRulesFor({ id: user.id, assignments: toRuleAssignments(views, locations) });
-  return { ...user, assignments: views, rules, ability: createAbility(rules) };
+  return { ...user, assignments: views, rules, ability: createAbility(rules), locationIds: locations.map((l) => l.id), scopes: new Map() };
 }

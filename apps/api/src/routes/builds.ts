@@ -20,7 +20,7 @@ export function buildsRouter({ db, now }: AppContext): Router {
     '/',
     validate({ query: buildQuery }, async ({ query }, req, res) => {
       const viewer = viewerOf(req);
-      const scope = narrowScope(await locationScope(db, viewer, 'read', 'Build'), query.locationId);
+      const scope = narrowScope(locationScope(viewer, 'read', 'Build'), query.locationId);
       const page = await listBuilds(db, scope, query);
       res.json({ ...page, items: page.items.map((row) => buildView(viewer, row)) });
     }),

@@ -1,6 +1,5 @@
 import { subject } from '@casl/ability';
 import { customerBody, customerQuery, customerUpdate, idParams } from '@busbar/shared';
-import type { Db } from '@busbar/db';
 import { Router } from 'express';
 import { readable } from '../access/fields.ts';
 import { locationScope, locationToAddAt, narrowScope, type LocationScope } from '../access/locations.ts';
@@ -14,8 +13,8 @@ import { findCustomer, insertCustomer, listCustomers, updateCustomer } from '../
 import { vehiclesOf } from '../queries/vehicles.ts';
 
 /** Of the scope, where the person reads a customer's field. */
-async function readingField(db: Db, viewer: Viewer, field: string, scope: LocationScope): Promise<LocationScope> {
-  if (scope === 'all') return locationScope(db, viewer, 'read', 'Customer', field);
+function readingField(viewer: Viewer, field: string, scope: LocationScope): LocationScope {
+  if (scope === 'all') return locationScope(viewer, 'read', 'Customer', field);
   return scope.filter((locationId) => viewer.ability.can('read', subject('Customer', { locationId }), field));
 }
 
@@ -29,14 +28,14 @@ export function customersRouter({ db, now }: AppContext): Router {
       const viewer = viewerOf(req);
       const { ability } = viewer;
       if (!ability.can('read', 'Customer')) throw forbidden();
-      const scope = narrowScope(await locationScope(db, viewer, 'read', 'Customer'), query.locationId);
+      const scope = narrowScope(locationScope(viewer, 'read', 'Customer'), query.locationId);
       const page = await listCustomers(db, {
         q: query.q,
         page: query.page,
         pageSize: query.pageSize,
         scope,
-        emailScope: await readingField(db, viewer, 'email', scope),
-        phoneScope: await readingField(db, viewer, 'phone', scope),
+        emailScope: readingField(viewer, 'email', scope),
+        phoneScope: readingField(viewer, 'phone', scope),
       });
       res.json({ ...page, items: page.items.map((c) => readable(ability, 'Customer', c)) });
     }),

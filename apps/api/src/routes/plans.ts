@@ -22,7 +22,7 @@ export function plansRouter({ db, now }: AppContext): Router {
   router.get(
     '/',
     validate({ query: quickPlanQuery }, async ({ query }, req, res) => {
-      const scope = narrowScope(await locationScope(db, viewerOf(req), 'read', 'Plan'), query.locationId);
+      const scope = narrowScope(locationScope(viewerOf(req), 'read', 'Plan'), query.locationId);
       const { rows, ...page } = await listQuickPlans(db, scope, query);
       res.json({ ...page, items: await quickPlanSummaries(db, rows) });
     }),

@@ -13,7 +13,7 @@ export function serialsRouter({ db }: AppContext): Router {
     '/',
     validate({ query: serialQuery }, async ({ query }, req, res) => {
       const viewer = viewerOf(req);
-      res.json(await findSerials(db, await locationScope(db, viewer, 'read', 'Build'), query));
+      res.json(await findSerials(db, locationScope(viewer, 'read', 'Build'), query));
     }),
   );
   return router;
