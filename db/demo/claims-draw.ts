@@ -81,8 +81,8 @@ function modeOf(random: Random, unit: ClaimUnit, coverage: Coverage, outOfWarran
 
 /**
  * The claim of a unit that failed before the clock, if it was logged by then, with its steps up to
- * the clock: logged within a week of the failure (past the warranty only as goodwill by the lead,
- * and not for every such customer), evidence, the request to the vendor, the vendor's answer, the
+ * the clock: logged within a week of the failure (past the warranty only as goodwill, by the
+ * lead), evidence, the request to the vendor, the vendor's answer, the
  * credit and closing.
  */
 export function drawClaim(random: Random, unit: ClaimUnit, shop: ClaimShop, failure: { at: number; workmanship: boolean }, nowMs: number): ClaimDraft | null {
@@ -91,8 +91,6 @@ export function drawClaim(random: Random, unit: ClaimUnit, shop: ClaimShop, fail
   const deliveredOn = isoDay(localDay(zone, unit.deliveredAt));
   const failedOn = isoDay(localDay(zone, failMs));
   const outOfWarranty = failedOn > addMonthsIso(deliveredOn, unit.warrantyMonths);
-  // Past the warranty, about a third of customers buy a new unit without asking.
-  if (outOfWarranty && chance(random, 0.35)) return null;
   const loggedAt = Math.max(laterAt(random, zone, failMs, between(random, 0, 6)), failMs);
   if (loggedAt > nowMs) return null;
   const coverage: Coverage = outOfWarranty ? 'goodwill' : failure.workmanship ? 'workmanship' : chance(random, 0.05) ? 'goodwill' : 'vendor_defect';

@@ -23,9 +23,12 @@ export const FAILURE_RATES: Partial<Record<Category, Weibull>> = {
   air_compressor: { shape: 2.4, firstYearShare: 0.03 },
 };
 
-/** Lead-acid house batteries wear out sooner than lithium; the flooded one carries only 12 months, so many come back past it. */
+/**
+ * Lead-acid house batteries wear out sooner than lithium. The flooded one carries only 12 months,
+ * so it is the unit that comes back past its warranty within the demo's two years.
+ */
 export const SKU_FAILURE_RATES: Readonly<Record<string, Weibull>> = {
-  'NVB-FLD115': { shape: 2.2, firstYearShare: 0.12 },
+  'NVB-FLD115': { shape: 2.5, firstYearShare: 0.2 },
   'NVB-AGM100': { shape: 2, firstYearShare: 0.05 },
 };
 

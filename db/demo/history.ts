@@ -10,12 +10,13 @@
  * - Burlington (BTV) opened about 200 days before the clock and is still the smallest shop.
  * Warranty claims follow the delivered units (failure rates in claims-rates.ts, invented):
  * - Austin (AUS) has clearly more workmanship claims: loose or burnt connections within months of
- *   the install, about six times the network's rate; over half of its claims are workmanship.
+ *   the install, about eight times the network's rate; over half of its claims are workmanship.
  * - Tidewell Relay 40 A chargers (TDW-DC40) made 12 to 10 months before the clock are a bad batch:
  *   serial numbers TW<yymm>- of those three months (TW2506- to TW2508- with the clock in June
  *   2026) fail several times as often as the item's other serials.
- * - Electronics fail early, batteries and compressors wear out; units past their warranty come
- *   back only as goodwill logged by the lead. Claims reach every status by the clock.
+ * - Electronics fail early, batteries and compressors wear out. Within two years nearly only the
+ *   flooded battery (NVB-FLD115, 12 months) outlives its warranty: those come back as goodwill,
+ *   logged by the lead. Claims reach every status by the clock.
  */
 import type { Role } from '@busbar/shared';
 import type { Db } from '../connect.ts';

@@ -120,7 +120,7 @@ describe('demo warranty claims', () => {
     expect(share(austin, workmanship)).toBeGreaterThan(0.45);
     expect(share(austin, workmanship)).toBeGreaterThan(2.5 * share(others, workmanship));
     for (const [code, shopClaims] of groupBy(others, (c) => c.code)) {
-      if (shopClaims.length >= 15) expect(share(shopClaims, workmanship), code).toBeLessThan(share(austin, workmanship) - 0.2);
+      if (shopClaims.length >= 25) expect(share(shopClaims, workmanship), code).toBeLessThan(share(austin, workmanship) - 0.2);
     }
     const connections = (c: Claim) => c.failureMode === 'loose_or_burnt_connection';
     expect(share(austin, connections)).toBeGreaterThan(2 * share(others, connections));

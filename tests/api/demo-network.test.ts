@@ -88,6 +88,38 @@ describe('generated network, 3 locations × 1 year', () => {
     expect(rows).toEqual([]);
   });
 
+  it('writes warranty claims on delivered units, numbered per shop in order, with their events and replacement lines', async () => {
+    expect([counts.warrantyClaims, counts.claimEvents]).toEqual([await count('warranty_claims'), await count('claim_events')]);
+    expect(counts.warrantyClaims / counts.builds).toBeGreaterThan(0.02);
+    expect(counts.warrantyClaims / counts.builds).toBeLessThan(0.1);
+    const numbering = await sql<{ code: string; n: number; top: number; ordered: number }>`
+      select l.code, count(*) as n, max(w.sequence) as top,
+        sum(w.number = l.code || '-W' || substr('0000' || w.sequence, -5)) as ordered
+      from warranty_claims w join locations l on l.id = w.location_id group by l.code`.execute(db);
+    expect(numbering.rows.map((r) => r.code).sort()).toEqual(['BOI', 'DEN', 'PDX']);
+    for (const row of numbering.rows) expect([row.top, row.ordered]).toEqual([row.n, row.n]);
+    const outOfOrder = await sql<{ id: number }>`select a.id from warranty_claims a join warranty_claims b
+      on b.location_id = a.location_id and b.sequence = a.sequence + 1 where b.created_at < a.created_at`.execute(db);
+    expect(outOfOrder.rows).toEqual([]);
+    const strays = await sql<{ id: number }>`
+      select w.id from warranty_claims w
+      left join build_items i on i.id = w.build_item_id and i.build_id = w.build_id and i.serial_number is not null
+      left join builds b on b.id = w.build_id and b.location_id = w.location_id and b.status = 'delivered' and b.delivered_at <= w.created_at
+      left join claim_events first on first.claim_id = w.id and first.from_status is null and first.to_status = 'logged' and first.at = w.created_at
+      where i.id is null or b.id is null or first.id is null
+        or w.status != (select e.to_status from claim_events e where e.claim_id = w.id order by e.id desc limit 1)`.execute(db);
+    expect(strays.rows).toEqual([]);
+    const statuses = await sql<{ status: string }>`select distinct status from warranty_claims`.execute(db);
+    expect(statuses.rows.length).toBeGreaterThanOrEqual(5);
+    const replaced = await sql<{ claims: number; removed: number; lines: number }>`select
+      (select count(*) from warranty_claims where replacement_item_id is not null) as claims,
+      (select count(*) from build_items where removed_on is not null) as removed,
+      (select count(*) from warranty_claims w join build_items r on r.id = w.replacement_item_id and r.build_id = w.build_id and r.unit_price_cents = 0
+        join build_items f on f.id = w.build_item_id and f.removed_on = substr(r.created_at, 1, 10)) as lines`.execute(db);
+    expect(replaced.rows[0]!.claims).toBeGreaterThan(10);
+    expect([replaced.rows[0]!.removed, replaced.rows[0]!.lines]).toEqual([replaced.rows[0]!.claims, replaced.rows[0]!.claims]);
+  });
+
   it('keeps the secondary indexes and triggers, rebuilt full-text indexes and the demo sign-ins', async () => {
     const fresh = openDatabase(join(dir, 'migrated-only.sqlite'));
     await migrateToLatest(fresh);
