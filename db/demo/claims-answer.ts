@@ -17,10 +17,18 @@ const EVIDENCE_NOTES = ['Unit inspected; evidence attached', 'Unit on the bench;
 const dollars = (cents: number) => `$${(cents / 100).toLocaleString('en-US', { minimumFractionDigits: 2 })}`;
 const rmaNumber = (random: Random, sku: string) => `RMA-${sku.slice(0, 3)}-${between(random, 10000, 99999)}`;
 
+/** An instant and its local day at the shop, carried along so the day is rarely worked out again (it is the slow part). */
+export interface Moment {
+  at: number;
+  day: number;
+}
+
 /** A moment `workdays` working days after `from` in the shop's zone, in opening hours, and never before `from`. */
-export function laterAt(random: Random, zone: string, from: number, workdays: number): number {
-  const day = addWorkdays(localDay(zone, from), workdays);
-  return Math.max(localMoment(zone, day, between(random, 480, 1050)), from + between(random, 10, 90) * 60_000);
+export function laterAt(random: Random, zone: string, from: Moment, workdays: number): Moment {
+  const day = addWorkdays(from.day, workdays);
+  const planned = localMoment(zone, day, between(random, 480, 1050));
+  const soonest = from.at + between(random, 10, 90) * 60_000;
+  return planned >= soonest ? { at: planned, day } : { at: soonest, day: localDay(zone, soonest) };
 }
 
 /** Fixes the replacement's day, or drops it when it had not happened by the clock or came after the claim was closed. */
@@ -28,7 +36,7 @@ function settleReplacement(draft: ClaimDraft, nowMs: number): void {
   const closed = draft.steps.find((s) => s.to === 'closed');
   const at = draft.replacement?.at;
   if (at === undefined || at > nowMs || (closed && at >= closed.at)) draft.replacement = null;
-  else draft.replacement!.on = isoDay(localDay(draft.shop.timeZone, at));
+  else draft.replacement!.on = isoDay(draft.replacement!.day);
 }
 
 /**
@@ -41,9 +49,9 @@ function settleReplacement(draft: ClaimDraft, nowMs: number): void {
 export function claimAnswer(random: Random, draft: ClaimDraft, nowMs: number): void {
   const { shop, steps, unit } = draft;
   const step = (to: ClaimStatus, workdays: number, by: number, note: string): boolean => {
-    const at = laterAt(random, shop.timeZone, steps[steps.length - 1]!.at, workdays);
+    const { at, day } = laterAt(random, shop.timeZone, steps[steps.length - 1]!, workdays);
     if (at > nowMs) return false;
-    steps.push({ at, by, to, note });
+    steps.push({ at, day, by, to, note });
     return true;
   };
   const done = () => settleReplacement(draft, nowMs);
@@ -60,7 +68,7 @@ export function claimAnswer(random: Random, draft: ClaimDraft, nowMs: number): v
   if (approved) {
     draft.creditApprovedCents = creditCents;
     // The vendor ships the replacement a few days after approving.
-    draft.replacement ??= { at: laterAt(random, shop.timeZone, steps[steps.length - 1]!.at, between(random, 2, 8)), on: '', by: shop.clerkId };
+    draft.replacement ??= { ...laterAt(random, shop.timeZone, steps[steps.length - 1]!, between(random, 2, 8)), on: '', by: shop.clerkId };
     const receivedCents = chance(random, 0.9) ? creditCents : creditCents - Math.min(2500, creditCents);
     const fee = receivedCents < creditCents ? ' less the vendor\'s handling fee' : '';
     if (!step('credited', between(random, 8, 32), shop.clerkId, `Credit of ${dollars(receivedCents)} received${fee}`)) return done();

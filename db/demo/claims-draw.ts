@@ -32,6 +32,8 @@ export interface ClaimShop {
 
 export interface ClaimStep {
   at: number;
+  /** The local day of `at` at the shop. */
+  day: number;
   by: number;
   to: ClaimStatus;
   note: string;
@@ -54,7 +56,7 @@ export interface ClaimDraft {
   vendorRmaNumber: string;
   /** The first step is `logged`; the last is where the claim stands at the clock. */
   steps: ClaimStep[];
-  replacement: { at: number; on: string; by: number } | null;
+  replacement: { at: number; day: number; on: string; by: number } | null;
 }
 
 const YEAR_MS = 365.25 * 86_400_000;
@@ -89,13 +91,14 @@ export function drawClaim(random: Random, unit: ClaimUnit, shop: ClaimShop, fail
   const failMs = failure.at;
   const zone = shop.timeZone;
   const deliveredOn = isoDay(localDay(zone, unit.deliveredAt));
-  const failedOn = isoDay(localDay(zone, failMs));
+  const failedDay = localDay(zone, failMs);
+  const failedOn = isoDay(failedDay);
   const outOfWarranty = failedOn > addMonthsIso(deliveredOn, unit.warrantyMonths);
-  const loggedAt = Math.max(laterAt(random, zone, failMs, between(random, 0, 6)), failMs);
-  if (loggedAt > nowMs) return null;
+  const logged = laterAt(random, zone, { at: failMs, day: failedDay }, between(random, 0, 6));
+  if (logged.at > nowMs) return null;
   const coverage: Coverage = outOfWarranty ? 'goodwill' : failure.workmanship ? 'workmanship' : chance(random, 0.05) ? 'goodwill' : 'vendor_defect';
   const failureMode = modeOf(random, unit, coverage, outOfWarranty);
-  const steps: ClaimStep[] = [{ at: loggedAt, by: outOfWarranty ? shop.leadId : shop.clerkId, to: 'logged', note: '' }];
+  const steps: ClaimStep[] = [{ ...logged, by: outOfWarranty ? shop.leadId : shop.clerkId, to: 'logged', note: '' }];
   const draft: ClaimDraft = {
     unit,
     shop,
@@ -114,7 +117,7 @@ export function drawClaim(random: Random, unit: ClaimUnit, shop: ClaimShop, fail
     replacement: null,
   };
   // The shop puts right its own loose connection at once, whatever the vendor says later.
-  if (coverage === 'workmanship') draft.replacement = { at: laterAt(random, zone, loggedAt, between(random, 0, 3)), on: '', by: shop.clerkId };
+  if (coverage === 'workmanship') draft.replacement = { ...laterAt(random, zone, logged, between(random, 0, 3)), on: '', by: shop.clerkId };
   claimAnswer(random, draft, nowMs);
   return draft;
 }

@@ -1,4 +1,4 @@
-import { isoDay, localDay } from '@busbar/calc';
+import { isoDay } from '@busbar/calc';
 import { CLAIM_DUE_DAYS, type Category } from '@busbar/shared';
 import type { Insertable } from 'kysely';
 import type { Database } from '../schema/index.ts';
@@ -124,7 +124,7 @@ export function claimMaker(random: Random, { shops, catalog, firstId, nowMs, eve
         id, locationId: shop.id, sequence, number, buildId: unit.buildId, buildItemId: unit.itemId,
         failedOn: draft.failedOn, failureMode: draft.failureMode, coverage: draft.coverage, symptoms: draft.symptoms, foundHow: draft.foundHow,
         laborHours: draft.laborHours, outOfWarranty: draft.outOfWarranty ? 1 : 0, status: last.to,
-        dueOn: dueDays === null ? null : isoDay(localDay(shop.timeZone, last.at) + dueDays),
+        dueOn: dueDays === null ? null : isoDay(last.day + dueDays),
         vendorRmaNumber: draft.vendorRmaNumber, creditRequestedCents: draft.creditRequestedCents,
         creditApprovedCents: draft.creditApprovedCents, creditReceivedCents: draft.creditReceivedCents, replacementItemId,
         createdBy: steps[0]!.by, createdAt: iso(steps[0]!.at), updatedAt: iso(Math.max(last.at, replacement?.at ?? 0)), version: changes,
