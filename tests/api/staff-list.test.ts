@@ -112,4 +112,19 @@ describe('staff list', () => {
     expect(page.body).toMatchObject({ total: all.length, page: 3, pageSize: 4 });
     expect(page.body.items.map((p: Listed) => p.id)).toEqual(all.slice(8, 12).map((p) => p.id));
   });
+
+  it("pages a lead's and a regional manager's list in full pages, with the total of what they see", async () => {
+    for (const agent of [lead, await h.signedIn(SIGN_INS.regional)]) {
+      const all = await everyone(agent);
+      expect(all.length).toBeGreaterThan(3);
+      const seen: number[] = [];
+      for (let page = 1; seen.length < all.length; page++) {
+        const res = await agent.get('/api/staff').query({ page, pageSize: 3 });
+        expect(res.body.total).toBe(all.length);
+        expect(res.body.items.length).toBe(Math.min(3, all.length - seen.length));
+        seen.push(...res.body.items.map((p: Listed) => p.id));
+      }
+      expect(seen).toEqual(all.map((p) => p.id));
+    }
+  });
 });

@@ -5,7 +5,7 @@ import type { RequestHandler } from 'express';
 import { forbidden, notFound } from '../errors.ts';
 import { viewerOf } from '../middleware/session.ts';
 import { assignmentsOf, type AssignmentRow } from '../queries/assignments.ts';
-import { findUser, type UserRow } from '../queries/users.ts';
+import { findUser, type Holding, type UserRow } from '../queries/users.ts';
 import type { Viewer } from './viewer.ts';
 
 type AssignmentFields = { role: Role; scope: Scope; regionId: number | null; locationId: number | null };
@@ -36,6 +36,20 @@ export function canManagePerson(viewer: Viewer, personId: number, assignments: A
 export const canRemoveAssignment = (ability: AppAbility, a: AssignmentFields) => ability.can('delete', asSubject(a));
 
 export const canReadAssignment = (ability: AppAbility, a: AssignmentFields) => ability.can('read', asSubject(a));
+
+/**
+ * Where the viewer reads role assignments, so the staff list is paged in the database: the
+ * locations (only `locationId` when the list asks for one) and the regions.
+ */
+export async function holdingsOf(db: Db, viewer: Viewer, locationId?: number): Promise<Holding> {
+  const reads = (on: { locationId: number } | { regionId: number }) => viewer.ability.can('read', subject('RoleAssignment', on));
+  if (locationId !== undefined) return { locationIds: reads({ locationId }) ? [locationId] : [], regionIds: [] };
+  const regions = await db.selectFrom('regions').select('id').execute();
+  return {
+    locationIds: viewer.locationIds.filter((id) => reads({ locationId: id })),
+    regionIds: regions.map((r) => r.id).filter((id) => reads({ regionId: id })),
+  };
+}
 
 /** A person as this viewer sees them, or null when the viewer may not see them at all. */
 export function staffView(viewer: Viewer, user: UserRow, all: AssignmentRow[]): StaffPerson | null {

@@ -26,28 +26,47 @@ export async function emailTaken(db: Db, email: string): Promise<boolean> {
   return !!(await db.selectFrom('users').select('id').where('email', '=', email).executeTakeFirst());
 }
 
-type UserFilter = { status: PersonStatus | 'all'; q?: string | undefined };
+/** Where a person must hold a role to be listed: at one of these locations or in one of these regions. */
+export interface Holding {
+  locationIds: number[];
+  regionIds: number[];
+}
+
+type UserFilter = { status: PersonStatus | 'all'; q?: string | undefined; holding?: Holding | undefined };
 
 function matchingUsers(db: Db, filter: UserFilter) {
-  let query = db.selectFrom('users');
-  if (filter.status !== 'all') query = query.where('status', '=', filter.status);
+  let query = db.selectFrom('users as u');
+  if (filter.status !== 'all') query = query.where('u.status', '=', filter.status);
   if (filter.q) {
     const q = filter.q;
-    query = query.where((eb) => eb.or([contains('name', q), contains('email', q)]));
+    query = query.where((eb) => eb.or([contains('u.name', q), contains('u.email', q)]));
+  }
+  const { holding } = filter;
+  if (holding) {
+    query = query.where((eb) =>
+      eb.exists(
+        eb
+          .selectFrom('roleAssignments as ra')
+          .select('ra.id')
+          .whereRef('ra.userId', '=', 'u.id')
+          .where((ra) => ra.or([ra('ra.locationId', 'in', [...holding.locationIds, -1]), ra('ra.regionId', 'in', [...holding.regionIds, -1])])),
+      ),
+    );
   }
   return query;
 }
 
-/** People matching a status and a text search, by name; visibility is decided by the caller. */
-export function searchUsers(db: Db, filter: UserFilter): Promise<UserRow[]> {
-  return matchingUsers(db, filter).select(USER_COLUMNS).orderBy('name').orderBy('id').execute();
-}
-
-/** One page of the people matching, by name, for a viewer who sees everyone. */
+/** One page of the people matching, by name; who may see whom is narrowed by `holding` and checked by the caller. */
 export async function pageUsers(db: Db, filter: UserFilter & { page: number; pageSize: number }) {
   const [rows, count] = await Promise.all([
-    matchingUsers(db, filter).select(USER_COLUMNS).orderBy('name').orderBy('id').limit(filter.pageSize).offset(offsetOf(filter.page, filter.pageSize)).execute(),
-    cappedCount(db, matchingUsers(db, filter).select('id')),
+    matchingUsers(db, filter)
+      .select(['u.id', 'u.email', 'u.name', 'u.status', 'u.lastSignInAt'])
+      .orderBy('u.name')
+      .orderBy('u.id')
+      .limit(filter.pageSize)
+      .offset(offsetOf(filter.page, filter.pageSize))
+      .execute(),
+    cappedCount(db, matchingUsers(db, filter).select('u.id')),
   ]);
   return { rows, ...count };
 }

@@ -5,6 +5,7 @@ import {
   canManagePerson,
   canReadAssignment,
   canRemoveAssignment,
+  holdingsOf,
   loadStaffPerson,
   seesEveryone,
   staffView,
@@ -17,7 +18,7 @@ import { validate } from '../middleware/validate.ts';
 import { assignmentsOf, countActiveOwners, deleteAssignment, insertAssignment } from '../queries/assignments.ts';
 import { writeAudit } from '../queries/audit.ts';
 import { closeInvitesOf } from '../queries/invites.ts';
-import { endSessionsOf, hasPassword, pageUsers, searchUsers, setUserStatus } from '../queries/users.ts';
+import { endSessionsOf, hasPassword, pageUsers, setUserStatus } from '../queries/users.ts';
 
 /** Staff of the locations a person may see: list, roles granted and removed, deactivation. */
 export function staffRouter({ db, now }: AppContext): Router {
@@ -27,22 +28,11 @@ export function staffRouter({ db, now }: AppContext): Router {
     '/',
     validate({ query: staffQuery }, async ({ query }, req, res) => {
       const viewer = viewerOf(req);
-      const paging = { page: query.page, pageSize: query.pageSize };
-      if (seesEveryone(viewer.ability) && !query.locationId) {
-        // Everyone is visible: page in the database, and read the roles of that page only.
-        const { rows, ...count } = await pageUsers(db, query);
-        const assignments = await assignmentsOf(db, rows.map((u) => u.id));
-        res.json({ items: rows.map((u) => staffView(viewer, u, assignments)!), ...count, ...paging });
-        return;
-      }
-      const users = await searchUsers(db, query);
-      const assignments = await assignmentsOf(db, users.map((u) => u.id));
-      const people = users
-        .map((u) => staffView(viewer, u, assignments))
-        .filter((p): p is StaffPerson => p !== null)
-        .filter((p) => !query.locationId || p.assignments.some((a) => a.locationId === query.locationId));
-      const start = (query.page - 1) * query.pageSize;
-      res.json({ items: people.slice(start, start + query.pageSize), total: people.length, totalCapped: false, ...paging });
+      const holding = seesEveryone(viewer.ability) && !query.locationId ? undefined : await holdingsOf(db, viewer, query.locationId);
+      const { rows, ...count } = await pageUsers(db, { ...query, holding });
+      const assignments = await assignmentsOf(db, rows.map((u) => u.id));
+      const items = rows.map((u) => staffView(viewer, u, assignments)).filter((p): p is StaffPerson => p !== null);
+      res.json({ items, ...count, page: query.page, pageSize: query.pageSize });
     }),
   );
 
