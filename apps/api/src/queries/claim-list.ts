@@ -8,6 +8,12 @@ import { cappedCount, offsetOf } from './paging.ts';
 
 type Claims = ExpressionBuilder<any, any>;
 
+/**
+ * Claims filtered by their unit's vendor or category are matched one by one (each claim's unit
+ * looked up by its key), so they are counted only this far, then "more than".
+ */
+const UNIT_COUNT_CAP = 1_000;
+
 /** The locations of each time zone: "today" and "logged on" are days at the claim's own location. */
 async function locationsByZone(db: Db): Promise<Map<string, number[]>> {
   const zones = new Map<string, number[]>();
@@ -32,10 +38,11 @@ function loggedBetween(eb: Claims, zones: Map<string, number[]>, from: string | 
 }
 
 /** The list's filters as conditions on `warranty_claims` alone, so paging and counting need no join. */
+const byUnit = (query: ClaimQuery) => query.vendorId !== undefined || query.category !== undefined;
+
 async function matchingClaims(db: Db, scope: LocationScope, query: ClaimQuery, now: Date) {
-  const byUnit = query.vendorId !== undefined || query.category !== undefined;
   let catalogIds: number[] = [];
-  if (byUnit) {
+  if (byUnit(query)) {
     let items = db.selectFrom('catalogItems').select('id');
     if (query.vendorId !== undefined) items = items.where('vendorId', '=', query.vendorId);
     if (query.category !== undefined) items = items.where('category', '=', query.category);
@@ -54,7 +61,7 @@ async function matchingClaims(db: Db, scope: LocationScope, query: ClaimQuery, n
     if (query.loggedFrom || query.loggedTo) conditions.push(loggedBetween(eb, zones, query.loggedFrom, query.loggedTo));
     if (query.overdue) conditions.push(eb.or([...zones].map(([zone, ids]) => eb.and([eb('w.locationId', 'in', ids), eb('w.dueOn', '<', localToday(zone, now))]))));
     // The catalog is small: its matching items are looked up once, each claim's unit by its key.
-    if (byUnit) {
+    if (byUnit(query)) {
       const unitItem = eb.selectFrom('buildItems as i').select('i.catalogItemId').whereRef('i.id', '=', 'w.buildItemId');
       conditions.push(catalogIds.length > 0 ? eb(unitItem, 'in', catalogIds) : sql<SqlBool>`0`);
     }
@@ -78,7 +85,7 @@ export async function listClaims(db: Db, scope: LocationScope, query: ClaimQuery
     .orderBy('w.id', 'asc')
     .limit(query.pageSize)
     .offset(offsetOf(query.page, query.pageSize));
-  const [keys, count] = await Promise.all([pageIds.execute(), cappedCount(db, matching.select('w.id'))]);
+  const [keys, count] = await Promise.all([pageIds.execute(), cappedCount(db, matching.select('w.id'), byUnit(query) ? UNIT_COUNT_CAP : undefined)]);
   const rows = keys.length === 0 ? [] : await claimsWithNames(db).where('w.id', 'in', keys.map((k) => k.id)).execute();
   const byId = new Map(rows.map((row) => [row.id, toRow(row)]));
   return { items: keys.map((k) => byId.get(k.id)!), ...count, ...paging };
