@@ -1,4 +1,4 @@
-import { addWorkdays, isoDay, localDay, localMoment } from '@busbar/calc';
+import { addWorkdays, isoDay, localMoment } from '@busbar/calc';
 import type { ClaimStatus, Coverage } from '@busbar/shared';
 import { between, chance, type Random } from './draw.ts';
 import type { ClaimDraft } from './claims-draw.ts';
@@ -17,18 +17,24 @@ const EVIDENCE_NOTES = ['Unit inspected; evidence attached', 'Unit on the bench;
 const dollars = (cents: number) => `$${(cents / 100).toLocaleString('en-US', { minimumFractionDigits: 2 })}`;
 const rmaNumber = (random: Random, sku: string) => `RMA-${sku.slice(0, 3)}-${between(random, 10000, 99999)}`;
 
-/** An instant and its local day at the shop, carried along so the day is rarely worked out again (it is the slow part). */
+/** An instant and its local day at the shop, carried along so the day is not worked out again (it is the slow part). */
 export interface Moment {
   at: number;
   day: number;
 }
 
-/** A moment `workdays` working days after `from` in the shop's zone, in opening hours, and never before `from`. */
+/**
+ * A moment in opening hours `workdays` working days after `from` in the shop's zone, at least a
+ * few minutes after it: the next working day when that day's hours are already past.
+ */
 export function laterAt(random: Random, zone: string, from: Moment, workdays: number): Moment {
-  const day = addWorkdays(from.day, workdays);
-  const planned = localMoment(zone, day, between(random, 480, 1050));
   const soonest = from.at + between(random, 10, 90) * 60_000;
-  return planned >= soonest ? { at: planned, day } : { at: soonest, day: localDay(zone, soonest) };
+  const minute = between(random, 480, 1050);
+  const day = addWorkdays(from.day, workdays);
+  const at = localMoment(zone, day, minute);
+  if (at >= soonest) return { at, day };
+  const nextDay = addWorkdays(day, 1);
+  return { at: localMoment(zone, nextDay, minute), day: nextDay };
 }
 
 /** Fixes the replacement's day, or drops it when it had not happened by the clock or came after the claim was closed. */

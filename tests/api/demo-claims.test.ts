@@ -42,6 +42,13 @@ function groupBy<T, K>(rows: T[], key: (row: T) => K): Map<K, T[]> {
   for (const row of rows) groups.set(key(row), [...(groups.get(key(row)) ?? []), row]);
   return groups;
 }
+const clocks = new Map<string, Intl.DateTimeFormat>();
+/** Minutes after local midnight at `zone`. */
+function localMinute(zone: string, iso: string): number {
+  if (!clocks.has(zone)) clocks.set(zone, new Intl.DateTimeFormat('en-GB', { timeZone: zone, hour: '2-digit', minute: '2-digit', hourCycle: 'h23' }));
+  const [hours, minutes] = clocks.get(zone)!.format(new Date(iso)).split(':').map(Number);
+  return hours! * 60 + minutes!;
+}
 const share = <T>(rows: T[], test: (row: T) => boolean) => rows.filter(test).length / rows.length;
 
 describe('demo warranty claims', () => {
@@ -57,7 +64,7 @@ describe('demo warranty claims', () => {
     }
   });
 
-  it('follows each claim from a delivered unit through the workflow, each step by someone who may take it, due as the API sets it', async () => {
+  it('follows each claim from a delivered unit through the workflow, each step in opening hours by someone who may take it, due as the API sets it', async () => {
     const events = groupBy(await h.db.selectFrom('claimEvents').selectAll().orderBy('id').execute(), (e) => e.claimId);
     const now = h.clock.now.toISOString();
     for (const claim of await claims()) {
@@ -73,6 +80,8 @@ describe('demo warranty claims', () => {
       expect([last.toStatus, last.at <= now, claim.updatedAt >= last.at]).toEqual([claim.status, true, true]);
       expect(claim.dueOn, claim.number).toBe(dueOnFor(claim.status, claim.timeZone, new Date(last.at)));
       for (const e of trail) {
+        const minute = localMinute(claim.timeZone, e.at);
+        expect(minute >= 480 && minute <= 1050, `${claim.number} ${e.toStatus} at ${e.at}`).toBe(true);
         const role = await roleOf(e.actorId, claim);
         if (e.toStatus === 'approved') expect(role).toBe(claim.creditApprovedCents! > claim.claimApprovalLimitCents ? 'regional_manager' : 'location_lead');
         else if (e.toStatus === 'denied' || (e.toStatus === 'logged' && claim.outOfWarranty)) expect(role).toBe('location_lead');
