@@ -1,4 +1,4 @@
-import { addMonthsIso, isoDay, localDay } from '@busbar/calc';
+import { addMonthsIso, dayOfIso, isoDay, localDay } from '@busbar/calc';
 import type { Category, ClaimStatus, Coverage, FailureMode } from '@busbar/shared';
 import { between, chance, weighted, type Random } from './draw.ts';
 import { FAILURE_RATES, FOUND_HOW, SKU_FAILURE_RATES, SYMPTOMS, VENDOR_MODES, WORKMANSHIP, WORKMANSHIP_FACTOR, BAD_BATCH, yearsToFailure } from './claims-rates.ts';
@@ -60,6 +60,7 @@ export interface ClaimDraft {
 }
 
 const YEAR_MS = 365.25 * 86_400_000;
+const GOODWILL_ASKED_DAYS = 183;
 
 /** When a unit fails (the sooner of its own failure and a loose connection of the shop's), or null for a category that does not. */
 export function failureAt(
@@ -84,7 +85,7 @@ function modeOf(random: Random, unit: ClaimUnit, coverage: Coverage, outOfWarran
 /**
  * The claim of a unit that failed before the clock, if it was logged by then, with its steps up to
  * the clock: logged within a week of the failure (past the warranty only as goodwill, by the
- * lead), evidence, the request to the vendor, the vendor's answer, the
+ * lead, and less often the longer ago the warranty ended), evidence, the request to the vendor, the vendor's answer, the
  * credit and closing.
  */
 export function drawClaim(random: Random, unit: ClaimUnit, shop: ClaimShop, failure: { at: number; workmanship: boolean }, nowMs: number): ClaimDraft | null {
@@ -93,7 +94,10 @@ export function drawClaim(random: Random, unit: ClaimUnit, shop: ClaimShop, fail
   const deliveredOn = isoDay(localDay(zone, unit.deliveredAt));
   const failedDay = localDay(zone, failMs);
   const failedOn = isoDay(failedDay);
-  const outOfWarranty = failedOn > addMonthsIso(deliveredOn, unit.warrantyMonths);
+  const warrantyEnds = addMonthsIso(deliveredOn, unit.warrantyMonths);
+  const outOfWarranty = failedOn > warrantyEnds;
+  // Past the warranty, fewer customers ask the longer it has been over; none after six months.
+  if (outOfWarranty && !chance(random, 1 - (failedDay - dayOfIso(warrantyEnds)) / GOODWILL_ASKED_DAYS)) return null;
   const logged = laterAt(random, zone, { at: failMs, day: failedDay }, between(random, 0, 6));
   if (logged.at > nowMs) return null;
   const coverage: Coverage = outOfWarranty ? 'goodwill' : failure.workmanship ? 'workmanship' : chance(random, 0.05) ? 'goodwill' : 'vendor_defect';

@@ -20,7 +20,7 @@ export const FAILURE_RATES: Partial<Record<Category, Weibull>> = {
   solar_controller: { shape: 0.7, firstYearShare: 0.035 },
   inverter: { shape: 0.8, firstYearShare: 0.04 },
   battery_monitor: { shape: 0.7, firstYearShare: 0.02 },
-  air_compressor: { shape: 2.4, firstYearShare: 0.03 },
+  air_compressor: { shape: 2, firstYearShare: 0.02 },
 };
 
 /**
