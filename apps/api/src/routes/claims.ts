@@ -86,7 +86,8 @@ export function claimsRouter({ db, now }: AppContext): Router {
       const approvedCents = body.to === 'approved' ? (body.creditApprovedCents ?? row.creditRequestedCents) : undefined;
       if (!viewer.ability.can(transition.action, claimSubject(row, approvedCents))) {
         const aboveLimit = approvedCents !== undefined && viewer.ability.can(transition.action, claimSubject(row));
-        throw forbidden(aboveLimit ? 'This credit is above the location’s approval limit: the regional manager approves it' : 'You cannot make this change of status');
+        const limit = (row.approvalLimitCents / 100).toLocaleString('en-US', { style: 'currency', currency: 'USD' });
+        throw forbidden(aboveLimit ? `This credit is above the location’s approval limit of ${limit}: the regional manager approves it` : 'You cannot make this change of status');
       }
       if (body.to === 'sent_to_vendor') throw invalidField('to', 'Use Send to vendor: it e-mails the return request first');
       if (body.to === 'evidence_ready' && (await countLiveEvidence(db, row.id)) === 0) throw invalidField('to', 'Upload a photo or document of the failure first');
