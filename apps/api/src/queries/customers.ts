@@ -22,50 +22,62 @@ export interface CustomerFilter {
   pageSize: number;
 }
 
-const inScope = (eb: ExpressionBuilder<Database, 'customers'>, scope: LocationScope): Expression<SqlBool> =>
-  scope === 'all' ? eb.lit(true) : eb('locationId', 'in', scope);
-
 const sameScope = (a: LocationScope, b: LocationScope) => (a === 'all' ? b === 'all' : b !== 'all' && a.length === b.length && a.every((id, i) => id === b[i]));
 
-/**
- * The FTS5 query for customers whose name contains `text`, or e-mail or phone where the person
- * reads them, in the scope's locations (see search.ts).
- */
-function customerTextQuery(text: string, filter: CustomerFilter): string {
-  const terms = [`name : ${phrase(text)}`];
-  for (const [column, scope] of [['email', filter.emailScope], ['phone', filter.phoneScope]] as const) {
-    // Where the person reads the field wherever they read customers, the scope below narrows it already.
-    const narrowed = sameScope(scope, filter.scope) ? 'all' : scope;
-    if (scope === 'all' || scope.length > 0) terms.push(`(${inPlaces(`${column} : ${phrase(text)}`, narrowed)})`);
-  }
-  return inPlaces(terms.join(' OR '), filter.scope);
+/** Customers a scope sorts by name in memory; past it, walking the name index finds a page sooner. */
+const SORT_MAX = 2_000;
+
+/** In the scope; `walk` keeps the location index out of it, so SQLite walks the names in order instead. */
+function inScope(eb: ExpressionBuilder<Database, 'customers'>, scope: LocationScope, walk = false): Expression<SqlBool> {
+  if (scope === 'all') return eb.lit(true);
+  return walk ? eb(sql<number>`+${sql.ref('customers.locationId')}`, 'in', scope) : eb('customers.locationId', 'in', scope);
 }
 
-/** Customers of the filter; a search matches the name, or e-mail and phone where the person reads them (the newest `reach` of them). */
-function matchingCustomers(db: Db, filter: CustomerFilter, reach: number) {
+/** The name, or the e-mail and phone where the person reads them, contain `q` in any case (LIKE). */
+function textMatches(eb: ExpressionBuilder<Database, 'customers'>, filter: CustomerFilter, q: string): Expression<SqlBool> {
+  const terms: Expression<SqlBool>[] = [contains('customers.name', q)];
+  if (filter.emailScope === 'all' || filter.emailScope.length > 0) terms.push(eb.and([contains('customers.email', q), inScope(eb, filter.emailScope)]));
+  if (filter.phoneScope === 'all' || filter.phoneScope.length > 0) terms.push(eb.and([contains('customers.phone', q), inScope(eb, filter.phoneScope)]));
+  return eb.or(terms);
+}
+
+/**
+ * Customers of the filter. Text of 3 or more characters walks the full-text index newest first
+ * for candidates and keeps the first `reach` whose name, or e-mail and phone where the person
+ * reads them, contain it; shorter text is matched row by row.
+ */
+function matchingCustomers(db: Db, filter: CustomerFilter, reach: number, walkNames = false) {
   const { q, scope } = filter;
-  let query = db.selectFrom('customers');
-  if (scope !== 'all') query = query.where('locationId', 'in', scope);
-  if (q && isIndexable(q)) {
-    return query.where('id', 'in', sql<number>`(select rowid from customer_search where customer_search match ${customerTextQuery(q, filter)} order by rowid desc limit ${reach})`);
-  }
-  if (!q) return query;
-  return query.where((eb) => {
-    const terms: Expression<SqlBool>[] = [contains('name', q)];
-    if (filter.emailScope === 'all' || filter.emailScope.length > 0) terms.push(eb.and([contains('email', q), inScope(eb, filter.emailScope)]));
-    if (filter.phoneScope === 'all' || filter.phoneScope.length > 0) terms.push(eb.and([contains('phone', q), inScope(eb, filter.phoneScope)]));
-    return eb.or(terms);
-  });
+  const inIt = db.selectFrom('customers').where((eb) => inScope(eb, scope, walkNames));
+  if (!q) return inIt;
+  if (!isIndexable(q)) return inIt.where((eb) => textMatches(eb, filter, q));
+  // The index answers for a field the person reads wherever they read customers; one they read
+  // at some of those places only is looked for there, each candidate checked again with LIKE.
+  const fields = [['email', filter.emailScope], ['phone', filter.phoneScope]] as const;
+  const partly = fields.some(([, at]) => at !== 'all' && at.length > 0 && !sameScope(at, scope));
+  const columns = ['name', ...fields.filter(([, at]) => at === 'all' || at.length > 0).map(([name]) => name)];
+  const newest = (partly ? inIt.where((eb) => textMatches(eb, filter, q)) : inIt)
+    .innerJoin(sql<{ rowid: number }>`customer_search`.as('s'), 's.rowid', 'customers.id')
+    .where(sql<SqlBool>`s.customer_search match ${inPlaces(`{${columns.join(' ')}} : ${phrase(q)}`, scope)}`)
+    .select('customers.id')
+    .orderBy('s.rowid', 'desc')
+    .limit(reach);
+  return db.selectFrom('customers').where('id', 'in', newest);
 }
 
 /** Customers by name, a page at a time; a text search lists its newest SEARCH_CAP matches. */
 export async function listCustomers(db: Db, filter: CustomerFilter): Promise<Page<CustomerView>> {
   const { page, pageSize, q, scope } = filter;
   if (scope !== 'all' && scope.length === 0) return { items: [], total: 0, totalCapped: false, page, pageSize };
-  const [items, count] = await Promise.all([
-    matchingCustomers(db, filter, SEARCH_CAP).select(CUSTOMER_COLUMNS).orderBy('name').orderBy('id').limit(pageSize).offset(offsetOf(page, pageSize)).execute(),
-    cappedCount(db, matchingCustomers(db, filter, SEARCH_CAP + 1).select('id'), countCapFor(q)),
-  ]);
+  const count = await cappedCount(db, matchingCustomers(db, filter, SEARCH_CAP + 1).select('id'), countCapFor(q));
+  const walkNames = scope !== 'all' && (count.totalCapped || count.total > SORT_MAX) && !(q && isIndexable(q));
+  const items = await matchingCustomers(db, filter, SEARCH_CAP, walkNames)
+    .select(CUSTOMER_COLUMNS)
+    .orderBy('name')
+    .orderBy('id')
+    .limit(pageSize)
+    .offset(offsetOf(page, pageSize))
+    .execute();
   return { items, ...count, page, pageSize };
 }
 

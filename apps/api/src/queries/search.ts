@@ -23,11 +23,21 @@ export const countCapFor = (text: string | undefined) => (text ? SEARCH_CAP : CO
 export const phrase = (text: string) => `"${text.replaceAll('"', '""')}"`;
 
 /**
- * An FTS5 query narrowed to the scope's locations through the `place` markers of the indexes
- * (migration 015), so the index walks only those locations' rows.
+ * Past this many locations a scope is a good part of the network: walking the matches and
+ * dropping other locations' rows is cheaper than the index's union of that many markers.
+ */
+const PLACE_MARKERS_MAX = 16;
+
+/** Whether the full-text index narrows a search to the scope's locations itself (see inPlaces). */
+export const narrowsByPlace = (scope: LocationScope): scope is number[] => scope !== 'all' && scope.length <= PLACE_MARKERS_MAX;
+
+/**
+ * An FTS5 query narrowed to a few locations through the `place` markers of the indexes
+ * (migration 015), so the index walks only those locations' rows. A larger scope is left to the
+ * caller's own location condition.
  */
 export function inPlaces(query: string, scope: LocationScope): string {
-  if (scope === 'all') return query;
+  if (!narrowsByPlace(scope)) return query;
   return `(${query}) AND place : (${scope.map((id) => `"@${id}@"`).join(' OR ')})`;
 }
 

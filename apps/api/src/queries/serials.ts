@@ -1,9 +1,9 @@
 import type { Db } from '@busbar/db';
-import type { Page, SerialMatch } from '@busbar/shared';
+import { SEARCH_CAP, type Page, type SerialMatch } from '@busbar/shared';
 import { sql } from 'kysely';
 import type { LocationScope } from '../access/locations.ts';
 import { cappedCount, offsetOf } from './paging.ts';
-import { inPlaces, phrase, startsWith } from './search.ts';
+import { inPlaces, narrowsByPlace, phrase, startsWith } from './search.ts';
 
 /** Serial numbers in any case, the order of the `build_items_serial_nocase` index that finds a prefix. */
 const serialOrder = sql`${sql.ref('i.serialNumber')} collate nocase`;
@@ -13,15 +13,18 @@ export async function findSerials(db: Db, scope: LocationScope, filter: { q: str
   const { page, pageSize } = filter;
   if (scope !== 'all' && scope.length === 0) return { items: [], total: 0, totalCapped: false, page, pageSize };
   let matching = db.selectFrom('buildItems as i').where(startsWith('i.serialNumber', filter.q));
-  if (scope !== 'all') {
+  if (narrowsByPlace(scope)) {
     // The scope's builds that hold a serial number with this text (3 or more characters), from the full-text
     // index's place markers: a lead's search reads their own shop's units, not every unit in the network that starts so.
     const held = sql<number>`(select rowid from build_search where build_search match ${inPlaces(`serials : ${phrase(filter.q)}`, scope)})`;
     matching = matching.where('i.buildId', 'in', held);
+  } else if (scope !== 'all') {
+    // A good part of the network: its units come often enough in serial-number order.
+    matching = matching.where((eb) => eb.exists(eb.selectFrom('builds as b').select('b.id').whereRef('b.id', '=', 'i.buildId').where('b.locationId', 'in', scope)));
   }
   const [keys, count] = await Promise.all([
     matching.select('i.id').orderBy(serialOrder).orderBy('i.id').limit(pageSize).offset(offsetOf(page, pageSize)).execute(),
-    cappedCount(db, matching.select('i.id')),
+    cappedCount(db, matching.select('i.id'), SEARCH_CAP),
   ]);
   if (keys.length === 0) return { items: [], ...count, page, pageSize };
   const rows = await db
