@@ -85,8 +85,8 @@ function modeOf(random: Random, unit: ClaimUnit, coverage: Coverage, outOfWarran
 /**
  * The claim of a unit that failed before the clock, if it was logged by then, with its steps up to
  * the clock: logged within a week of the failure (past the warranty only as goodwill, by the
- * lead, and less often the longer ago the warranty ended), evidence, the request to the vendor, the vendor's answer, the
- * credit and closing.
+ * lead, and less often the longer ago the warranty ended), evidence, the request to the vendor,
+ * the vendor's answer, the credit and closing.
  */
 export function drawClaim(random: Random, unit: ClaimUnit, shop: ClaimShop, failure: { at: number; workmanship: boolean }, nowMs: number): ClaimDraft | null {
   const failMs = failure.at;
