@@ -13,9 +13,9 @@ import * as indexCustomerEmails from './011-index-customer-emails.ts';
 import * as addUnitReplacement from './012-add-unit-replacement.ts';
 import * as addClaimDueDates from './013-add-claim-due-dates.ts';
 import * as indexBuildStatusSorts from './014-index-build-status-sorts.ts';
+import * as addSearchPlaces from './015-add-search-places.ts';
 import * as indexClaimFilters from './016-index-claim-filters.ts';
 import * as indexLocationStatusSorts from './017-index-location-status-sorts.ts';
-import * as addSearchPlaces from './015-add-search-places.ts';
 
 /** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
 export const migrations: Record<string, Migration> = {
@@ -33,7 +33,7 @@ export const migrations: Record<string, Migration> = {
   '012-add-unit-replacement': addUnitReplacement,
   '013-add-claim-due-dates': addClaimDueDates,
   '014-index-build-status-sorts': indexBuildStatusSorts,
+  '015-add-search-places': addSearchPlaces,
   '016-index-claim-filters': indexClaimFilters,
   '017-index-location-status-sorts': indexLocationStatusSorts,
-  '015-add-search-places': addSearchPlaces,
 };
