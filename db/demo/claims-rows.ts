@@ -121,7 +121,7 @@ export function claimMaker(random: Random, { shops, catalog, firstId, nowMs, eve
       // Each step is a change of the record, as are the vendor's RMA number and the replacement.
       const changes = steps.length + (draft.vendorRmaNumber ? 1 : 0) + (replacement ? 1 : 0);
       rows.warrantyClaims.push({
-        id, locationId: shop.id, sequence, number, buildId: unit.buildId, buildItemId: unit.itemId,
+        id, locationId: shop.id, sequence, number, buildId: unit.buildId, buildItemId: unit.itemId, catalogItemId: unit.catalogItemId,
         failedOn: draft.failedOn, failureMode: draft.failureMode, coverage: draft.coverage, symptoms: draft.symptoms, foundHow: draft.foundHow,
         laborHours: draft.laborHours, outOfWarranty: draft.outOfWarranty ? 1 : 0, status: last.to,
         dueOn: dueDays === null ? null : isoDay(last.day + dueDays),

@@ -10,6 +10,8 @@ export interface WarrantyClaimsTable {
   buildId: number;
   /** The failed unit: one line of the build it came from. */
   buildItemId: number;
+  /** The failed unit's catalog item (its vendor and category filter the claims list). */
+  catalogItemId: number;
   failedOn: string;
   failureMode: FailureMode;
   coverage: Coverage;

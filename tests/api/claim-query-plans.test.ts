@@ -25,8 +25,8 @@ beforeAll(async () => {
   h = await startHarness({}, true, { history: true });
   den = (await demoIds(h.db)).location('DEN');
   // A claim on every tenth delivered unit, failing and logged across two years, a fifth closed.
-  await sql`insert into warranty_claims (location_id, sequence, number, build_id, build_item_id, failed_on, failure_mode, coverage, symptoms, status, due_on, created_at, updated_at)
-    select b.location_id, 1000000 + i.id, 'T-' || i.id, b.id, i.id, date('2024-07-01', '+' || (i.id % 700) || ' days'), 'overheating', 'vendor_defect', 'Hot',
+  await sql`insert into warranty_claims (location_id, sequence, number, build_id, build_item_id, catalog_item_id, failed_on, failure_mode, coverage, symptoms, status, due_on, created_at, updated_at)
+    select b.location_id, 1000000 + i.id, 'T-' || i.id, b.id, i.id, i.catalog_item_id, date('2024-07-01', '+' || (i.id % 700) || ' days'), 'overheating', 'vendor_defect', 'Hot',
       case when i.id % 5 = 0 then 'closed' else 'sent_to_vendor' end, case when i.id % 5 = 0 then null else date('2026-01-01', '+' || (i.id % 200) || ' days') end,
       strftime('%Y-%m-%dT%H:%M:%fZ', '2024-07-02', '+' || (i.id % 700) || ' days'), '2026-06-01T00:00:00.000Z'
     from build_items i join builds b on b.id = i.build_id where b.status = 'delivered' and i.id % 10 = 0`.execute(h.db);
@@ -52,9 +52,13 @@ const IN_ORDER: Record<string, Record<string, string>> = {
   'the queue': {},
   'one status': { status: 'sent_to_vendor' },
   overdue: { overdue: 'true' },
+  'a deep page': { page: '40' },
+};
+
+/** Lists narrowed to a vendor's or a category's items: read in the queue's order, or from the items' own index. */
+const BY_ITEM: Record<string, Record<string, string>> = {
   'a vendor': { vendorId: '1' },
   'a category': { category: 'house_battery' },
-  'a deep page': { page: '40' },
 };
 
 /** Lists narrowed to a span of days: the span is read from its index, and only its claims are sorted. */
@@ -88,6 +92,13 @@ describe('claims list query plans', () => {
     expect(tableScans(plans)).toEqual([]);
   });
 
+  it.each(Object.entries(BY_ITEM))("reads a network-wide page of some items' claims from an index, never each claim's unit: %s", async (_name, query) => {
+    const { plans, page } = await listPlans('all', query);
+    expect(page.join('\n')).toMatch(/USING (COVERING )?INDEX warranty_claims_(queue_order|item_queue_order \(catalog_item_id=\?)/);
+    expect(page.filter((line) => /\b(build_items|i)\b/.test(line))).toEqual([]);
+    expect(tableScans(plans)).toEqual([]);
+  });
+
   it.each(Object.entries(BY_DAYS))('reads a network-wide span of days from its index: %s', async (_name, [query, column]) => {
     const { plans, page } = await listPlans('all', query);
     expect(page.some((line) => line.startsWith('SEARCH w USING') && line.includes(`${column}>? AND ${column}<?`))).toBe(true);
@@ -95,7 +106,7 @@ describe('claims list query plans', () => {
   });
 
   // A shop's claims are few: whichever index the statistics choose (the shop's, or a status's in order), nothing is read whole.
-  it.each([...Object.entries(IN_ORDER), ...Object.entries(BY_DAYS).map(([name, [query]]) => [name, query] as const)])(
+  it.each([...Object.entries(IN_ORDER), ...Object.entries(BY_ITEM), ...Object.entries(BY_DAYS).map(([name, [query]]) => [name, query] as const)])(
     "reads a lead's page by searching an index: %s",
     async (_name, query) => {
       const { plans, page } = await listPlans([den], query);

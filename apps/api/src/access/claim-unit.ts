@@ -16,7 +16,7 @@ export async function unitToClaim(db: Db, viewer: Viewer, body: ClaimCreate, now
     .innerJoin('builds as b', 'b.id', 'i.buildId')
     .innerJoin('catalogItems as ci', 'ci.id', 'i.catalogItemId')
     .innerJoin('locations as l', 'l.id', 'b.locationId')
-    .select(['i.id', 'i.buildId', 'b.locationId', 'l.code', 'l.timeZone', 'b.status', 'b.deliveredAt', 'ci.warrantyMonths'])
+    .select(['i.id', 'i.buildId', 'i.catalogItemId', 'b.locationId', 'l.code', 'l.timeZone', 'b.status', 'b.deliveredAt', 'ci.warrantyMonths'])
     .where('i.id', '=', body.buildItemId)
     .executeTakeFirst();
   if (!unit || !viewer.ability.can('read', subject('Build', { locationId: unit.locationId }))) throw notFound('component');

@@ -8,12 +8,6 @@ import { cappedCount, offsetOf } from './paging.ts';
 
 type Claims = ExpressionBuilder<any, any>;
 
-/**
- * Claims filtered by their unit's vendor or category are matched one by one (each claim's unit
- * looked up by its key), so they are counted only this far, then "more than".
- */
-const UNIT_COUNT_CAP = 1_000;
-
 /** The locations of each time zone: "today" and "logged on" are days at the claim's own location. */
 async function locationsByZone(db: Db): Promise<Map<string, number[]>> {
   const zones = new Map<string, number[]>();
@@ -60,11 +54,8 @@ async function matchingClaims(db: Db, scope: LocationScope, query: ClaimQuery, n
     if (query.failedTo) conditions.push(eb('w.failedOn', '<=', query.failedTo));
     if (query.loggedFrom || query.loggedTo) conditions.push(loggedBetween(eb, zones, query.loggedFrom, query.loggedTo));
     if (query.overdue) conditions.push(eb.or([...zones].map(([zone, ids]) => eb.and([eb('w.locationId', 'in', ids), eb('w.dueOn', '<', localToday(zone, now))]))));
-    // The catalog is small: its matching items are looked up once, each claim's unit by its key.
-    if (byUnit(query)) {
-      const unitItem = eb.selectFrom('buildItems as i').select('i.catalogItemId').whereRef('i.id', '=', 'w.buildItemId');
-      conditions.push(catalogIds.length > 0 ? eb(unitItem, 'in', catalogIds) : sql<SqlBool>`0`);
-    }
+    // The catalog is small: its matching items are looked up once, and each claim keeps its unit's item.
+    if (byUnit(query)) conditions.push(catalogIds.length > 0 ? eb('w.catalogItemId', 'in', catalogIds) : sql<SqlBool>`0`);
     return eb.and(conditions);
   });
 }
@@ -85,7 +76,7 @@ export async function listClaims(db: Db, scope: LocationScope, query: ClaimQuery
     .orderBy('w.id', 'asc')
     .limit(query.pageSize)
     .offset(offsetOf(query.page, query.pageSize));
-  const [keys, count] = await Promise.all([pageIds.execute(), cappedCount(db, matching.select('w.id'), byUnit(query) ? UNIT_COUNT_CAP : undefined)]);
+  const [keys, count] = await Promise.all([pageIds.execute(), cappedCount(db, matching.select('w.id'))]);
   const rows = keys.length === 0 ? [] : await claimsWithNames(db).where('w.id', 'in', keys.map((k) => k.id)).execute();
   const byId = new Map(rows.map((row) => [row.id, toRow(row)]));
   return { items: keys.map((k) => byId.get(k.id)!), ...count, ...paging };

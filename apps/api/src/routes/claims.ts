@@ -47,7 +47,7 @@ export function claimsRouter({ db, now }: AppContext): Router {
         const values = { ...body, locationId: unit.locationId, buildId: unit.buildId, sequence, number, status: 'logged' as const, dueOn: dueOnFor('logged', unit.timeZone, now()) };
         const row = await trx
           .insertInto('warrantyClaims')
-          .values({ ...values, outOfWarranty: unit.outOfWarranty ? 1 : 0, createdBy: viewer.id, createdAt: at, updatedAt: at })
+          .values({ ...values, catalogItemId: unit.catalogItemId, outOfWarranty: unit.outOfWarranty ? 1 : 0, createdBy: viewer.id, createdAt: at, updatedAt: at })
           .returning('id')
           .executeTakeFirstOrThrow();
         await addClaimEvent(trx, { claimId: row.id, at, actorId: viewer.id, fromStatus: null, toStatus: 'logged', note: '' });
