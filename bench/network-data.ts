@@ -10,6 +10,7 @@ export interface DataSize {
   locations: number;
   builds: number;
   buildItems: number;
+  claims: number;
   auditRows: number;
   /** Seconds the generator took (also for a database an earlier run made), or null when not known. */
   generatedSeconds: number | null;
@@ -18,9 +19,9 @@ export interface DataSize {
 /** What a data folder holds, counted from its database. */
 export async function sizeOf(dir: string, label: string, generatedSeconds: number | null): Promise<DataSize> {
   const db = openDatabase(join(dir, 'busbar.sqlite'));
-  const count = async (table: 'locations' | 'builds' | 'buildItems' | 'auditLog') =>
+  const count = async (table: 'locations' | 'builds' | 'buildItems' | 'warrantyClaims' | 'auditLog') =>
     Number((await db.selectFrom(table).select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow()).n);
-  const size = { label, locations: await count('locations'), builds: await count('builds'), buildItems: await count('buildItems'), auditRows: await count('auditLog'), generatedSeconds };
+  const size = { label, locations: await count('locations'), builds: await count('builds'), buildItems: await count('buildItems'), claims: await count('warrantyClaims'), auditRows: await count('auditLog'), generatedSeconds };
   await db.destroy();
   return size;
 }

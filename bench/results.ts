@@ -6,10 +6,14 @@ import type { DataSize } from './network-data.ts';
 import { SCREENS, type ScreenFigure } from './screens.ts';
 import { ms } from './stats.ts';
 
+/** The people each screen is measured for: the whole network, a region, one shop. */
+export const PEOPLE = ['owner', 'regional manager', 'lead'] as const;
+export type Who = (typeof PEOPLE)[number];
+
 /** Everything measured at one size of data. */
 export interface SizeRun {
   size: DataSize;
-  screens: { owner: Map<string, ScreenFigure>; lead: Map<string, ScreenFigure> };
+  screens: Record<Who, Map<string, ScreenFigure>>;
   load: LoadFigures;
   contention: ContentionFigures;
   peakRssMiB: number;
@@ -20,7 +24,7 @@ const cell = (figure: ScreenFigure | undefined) =>
 const ratio = (demo: ScreenFigure | undefined, network: ScreenFigure | undefined) =>
   demo && network && 'p95' in demo && 'p95' in network ? `${(network.p95 / demo.p95).toFixed(1)}×` : '–';
 
-function screenTable(demo: SizeRun, network: SizeRun, who: 'owner' | 'lead'): string[] {
+function screenTable(demo: SizeRun, network: SizeRun, who: Who): string[] {
   const rows = SCREENS.map(([label]) => {
     const [d, n] = [demo.screens[who].get(label), network.screens[who].get(label)];
     return `| ${label} | ${cell(d)} | ${cell(n)} | ${ratio(d, n)} |`;
@@ -29,7 +33,7 @@ function screenTable(demo: SizeRun, network: SizeRun, who: 'owner' | 'lead'): st
 }
 
 const sizeLine = ({ size }: SizeRun) =>
-  `${size.label}: ${size.locations} locations, ${size.builds.toLocaleString('en-US')} builds, ${size.buildItems.toLocaleString('en-US')} build lines, ${size.auditRows.toLocaleString('en-US')} audit rows` +
+  `${size.label}: ${size.locations} locations, ${size.builds.toLocaleString('en-US')} builds, ${size.buildItems.toLocaleString('en-US')} build lines, ${size.claims.toLocaleString('en-US')} warranty claims, ${size.auditRows.toLocaleString('en-US')} audit rows` +
   (size.generatedSeconds === null ? '' : ` (generated in ${Math.round(size.generatedSeconds)} s)`);
 
 const otherRows = (run: SizeRun) => [
@@ -48,12 +52,9 @@ export function report(demo: SizeRun, network: SizeRun, samples: number, loadAtS
     `- ${sizeLine(demo)}`,
     `- ${sizeLine(network)}`,
     '',
-    `Each screen's API request through HTTP with a signed-in person, after 5 warm-up requests, ${samples} timed requests one after another (ms to the last byte, brotli as a browser asks). A lead reads no audit log: (403).`,
+    `Each screen's API request through HTTP with a signed-in person, after 5 warm-up requests, ${samples} timed requests one after another (ms to the last byte, brotli as a browser asks). A regional manager and a lead read no audit log: (403).`,
     '',
-    ...screenTable(demo, network, 'owner'),
-    '',
-    ...screenTable(demo, network, 'lead'),
-    '',
+    ...PEOPLE.flatMap((who) => [...screenTable(demo, network, who), '']),
     `| data | ${demo.load.connections} connections, reads and writes, ${demo.load.seconds.toFixed(0)} s | a lead's build detail p95 while the owner imports and reads big lists | peak RSS of the app |`,
     '|---|---|---|---|',
     ...otherRows(demo),

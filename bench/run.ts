@@ -1,7 +1,7 @@
 /**
  * `pnpm bench [-- --locations 200 --years 5]`: the real app, started as its own process, measured
  * through HTTP at the demo's size and at a generated network's size in the same run: every list
- * and search screen for the owner and a location lead, 50 connections mixing reads and writes,
+ * and search screen for the owner, a regional manager and a location lead, 50 connections mixing reads and writes,
  * a lead's build detail while the owner imports and reads, and the app's peak memory. Prints the
  * figures and writes them to bench/RESULTS.md; asserts nothing.
  */
@@ -14,7 +14,7 @@ import { detailDuringOwnerWork } from './contention.ts';
 import { mixedLoad } from './load.ts';
 import { networkData, sizeOf } from './network-data.ts';
 import { benchOptions, type BenchOptions } from './options.ts';
-import { report, writeReport, type SizeRun } from './results.ts';
+import { PEOPLE, report, writeReport, type SizeRun } from './results.ts';
 import { idsFor, measureScreens } from './screens.ts';
 import { startApp } from './server.ts';
 
@@ -29,10 +29,9 @@ async function measure(dir: string, label: string, generatedSeconds: number | nu
     const lead = await signIn(app.baseUrl, 'lead@demo.busbar.test', DEMO_PASSWORD);
     const session = JSON.parse((await call(lead, 'GET', '/api/session')).body) as { assignments: { locationId: number }[] };
     const shop = { locationId: session.assignments[0]!.locationId, buildId: (await idsFor(lead)).buildId };
-    const screens = {
-      owner: await measureScreens(owner, options.samples, (s) => log(`${label}: owner, ${s}`)),
-      lead: await measureScreens(lead, options.samples, (s) => log(`${label}: lead, ${s}`)),
-    };
+    const people = { owner, 'regional manager': await signIn(app.baseUrl, 'regional@demo.busbar.test', DEMO_PASSWORD), lead };
+    const screens = {} as SizeRun['screens'];
+    for (const who of PEOPLE) screens[who] = await measureScreens(people[who], options.samples, (s) => log(`${label}: ${who}, ${s}`));
     log(`${label}: 50 connections for ${options.seconds} s`);
     const load = await mixedLoad(owner, lead, shop, 50, options.seconds);
     log(`${label}: a lead's build detail while the owner imports 2,000 builds`);
