@@ -1,9 +1,9 @@
-import type { Db } from '@busbar/db';
 import { claimQuery } from '@busbar/shared';
-import { CompiledQuery, createQueryId, sql, type KyselyPlugin, type RootOperationNode } from 'kysely';
+import { sql } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { listClaims } from '../../apps/api/src/queries/claim-list.ts';
 import { demoIds, startHarness, type Harness } from '../support/api-harness.ts';
+import { plansOf } from '../support/query-plans.ts';
 
 /**
  * SQLite's plan for the claims list on the demo network's history with a claim on every tenth
@@ -12,14 +12,6 @@ import { demoIds, startHarness, type Harness } from '../support/api-harness.ts';
  */
 let h: Harness;
 let den: number;
-const sent: RootOperationNode[] = [];
-const recorder: KyselyPlugin = {
-  transformQuery: ({ node }) => {
-    sent.push(node);
-    return node;
-  },
-  transformResult: async ({ result }) => result,
-};
 
 beforeAll(async () => {
   h = await startHarness({}, true, { history: true });
@@ -33,19 +25,6 @@ beforeAll(async () => {
   await sql`pragma optimize = 0x10002`.execute(h.db);
 }, 120_000);
 afterAll(() => h.close());
-
-/** The plan of each statement `run` sends, line by line. */
-async function plansOf(run: (db: Db) => Promise<unknown>): Promise<string[][]> {
-  sent.length = 0;
-  await run(h.db.withPlugin(recorder));
-  const plans: string[][] = [];
-  for (const node of [...sent]) {
-    const compiled = h.db.getExecutor().compileQuery(node, createQueryId());
-    const plan = await h.db.executeQuery<{ detail: string }>(CompiledQuery.raw(`explain query plan ${compiled.sql}`, [...compiled.parameters]));
-    plans.push(plan.rows.map((r) => r.detail));
-  }
-  return plans;
-}
 
 /** Lists whose page is read in the queue's order straight from an index, stopping at the page. */
 const IN_ORDER: Record<string, Record<string, string>> = {
@@ -71,7 +50,7 @@ const AT = new Date('2026-06-15T15:00:00Z');
 
 /** The plans of a claims list: every statement, and the one that reads the page's ids. */
 async function listPlans(scope: 'all' | number[], query: Record<string, string>) {
-  const plans = await plansOf((db) => listClaims(db, scope, claimQuery.parse(query), AT));
+  const plans = await plansOf(h.db, (db) => listClaims(db, scope, claimQuery.parse(query), AT));
   const page = plans.find((lines) => lines.some((line) => /^(SCAN|SEARCH) w\b/.test(line)));
   return { plans, page: page ?? [] };
 }

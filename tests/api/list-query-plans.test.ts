@@ -1,6 +1,6 @@
 import type { Db } from '@busbar/db';
 import { auditQuery, buildQuery, customerQuery, quickPlanQuery, serialQuery } from '@busbar/shared';
-import { CompiledQuery, createQueryId, sql, type KyselyPlugin, type RootOperationNode } from 'kysely';
+import { sql } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { LocationScope } from '../../apps/api/src/access/locations.ts';
 import { listAudit } from '../../apps/api/src/queries/audit.ts';
@@ -9,6 +9,7 @@ import { listCustomers } from '../../apps/api/src/queries/customers.ts';
 import { listQuickPlans } from '../../apps/api/src/queries/plans.ts';
 import { findSerials } from '../../apps/api/src/queries/serials.ts';
 import { demoIds, startHarness, type Harness } from '../support/api-harness.ts';
+import { plansOf } from '../support/query-plans.ts';
 
 /**
  * SQLite's plan for every list query, on the demo network with statistics gathered: builds,
@@ -16,14 +17,6 @@ import { demoIds, startHarness, type Harness } from '../support/api-harness.ts';
  */
 let h: Harness;
 let den: number;
-const sent: RootOperationNode[] = [];
-const recorder: KyselyPlugin = {
-  transformQuery: ({ node }) => {
-    sent.push(node);
-    return node;
-  },
-  transformResult: async ({ result }) => result,
-};
 
 beforeAll(async () => {
   h = await startHarness({}, true, { history: true });
@@ -31,19 +24,6 @@ beforeAll(async () => {
   await sql`pragma optimize = 0x10002`.execute(h.db);
 }, 60_000);
 afterAll(() => h.close());
-
-/** The plan of each statement `run` sends, line by line. */
-async function plansOf(run: (db: Db) => Promise<unknown>): Promise<string[][]> {
-  sent.length = 0;
-  await run(h.db.withPlugin(recorder));
-  const plans: string[][] = [];
-  for (const node of [...sent]) {
-    const compiled = h.db.getExecutor().compileQuery(node, createQueryId());
-    const plan = await h.db.executeQuery<{ detail: string }>(CompiledQuery.raw(`explain query plan ${compiled.sql}`, [...compiled.parameters]));
-    plans.push(plan.rows.map((r) => r.detail));
-  }
-  return plans;
-}
 
 /**
  * Statements that read a big table whole: row by row through the table, or through an index
@@ -71,7 +51,7 @@ const BUILD_LISTS: Record<string, Record<string, unknown>> = {
 describe('list query plans', () => {
   for (const [who, scope] of [['the owner', 'all'], ['a lead', 'den']] as const) {
     it.each(Object.entries(BUILD_LISTS))(`reads builds for ${who} through indexes: %s`, async (_name, query) => {
-      const plans = await plansOf((db) => listBuilds(db, scope === 'all' ? 'all' : [den], buildQuery.parse(query)));
+      const plans = await plansOf(h.db, (db) => listBuilds(db, scope === 'all' ? 'all' : [den], buildQuery.parse(query)));
       expect(plans.flat().some((line) => /USING (COVERING )?INDEX|USING INTEGER PRIMARY KEY|VIRTUAL TABLE/.test(line))).toBe(true);
       expect(tableScans(plans)).toEqual([]);
     });
@@ -84,14 +64,14 @@ describe('list query plans', () => {
         (db: Db) => listCustomers(db, { ...customerQuery.parse({ q: 'Marrow' }), scope: at, emailScope: at, phoneScope: at }),
         (db: Db) => listQuickPlans(db, at, quickPlanQuery.parse({})),
       ]) {
-        expect(tableScans(await plansOf(run))).toEqual([]);
+        expect(tableScans(await plansOf(h.db, run))).toEqual([]);
       }
     });
   }
 
   it.each(['totalCents', 'bookedFor', 'number', 'updatedAt'])('reads one status sorted by %s straight from an index that seeks to the status, with no sort of every row', async (sort) => {
     for (const scope of ['all', [den]] as const) {
-      const plans = await plansOf((db) => listBuilds(db, scope === 'all' ? 'all' : [...scope], buildQuery.parse({ status: 'delivered', sort })));
+      const plans = await plansOf(h.db, (db) => listBuilds(db, scope === 'all' ? 'all' : [...scope], buildQuery.parse({ status: 'delivered', sort })));
       expect(plans.flat().filter((line) => line.includes('TEMP B-TREE'))).toEqual([]);
       const seek = scope === 'all' ? 'status=?' : 'location_id=? AND status=?';
       expect(plans[0]!.some((line) => line.includes(`INDEX`) && line.includes(`(${seek})`)), plans[0]!.join('\n')).toBe(true);
@@ -100,9 +80,9 @@ describe('list query plans', () => {
 
   it('reads the audit log newest first without sorting it, filtered by an index', async () => {
     for (const query of [{}, { entity: 'build' }]) {
-      const plans = await plansOf((db) => listAudit(db, auditQuery.parse(query)));
+      const plans = await plansOf(h.db, (db) => listAudit(db, auditQuery.parse(query)));
       expect(plans.flat().filter((line) => line.includes('TEMP B-TREE'))).toEqual([]);
     }
-    expect((await plansOf((db) => listAudit(db, auditQuery.parse({ entity: 'build' })))).flat()).toContain('SEARCH a USING COVERING INDEX audit_log_entity_recent (entity=?)');
+    expect((await plansOf(h.db, (db) => listAudit(db, auditQuery.parse({ entity: 'build' })))).flat()).toContain('SEARCH a USING COVERING INDEX audit_log_entity_recent (entity=?)');
   });
 });
