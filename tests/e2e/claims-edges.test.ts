@@ -60,6 +60,8 @@ describe('claims off the straight path', () => {
     await putIn.press('Enter');
     await dialog.getByRole('button', { name: 'Record replacement' }).click();
     await lead.locator('.ant-descriptions').getByText('RPL-2026-0612').waitFor();
+    // As laid out on screen, the word and the serial number keep their space.
+    expect(await lead.locator('.ant-descriptions-item-content', { hasText: 'RPL-2026-0612' }).innerText()).toBe('Serial RPL-2026-0612');
     await lead.goto(`/builds/${old.buildId}`);
     const section = lead.locator('.ant-card').filter({ has: lead.getByText('Warranty claims', { exact: true }) });
     await section.getByText('Removed Jun 12, 2026, replaced under warranty').waitFor();

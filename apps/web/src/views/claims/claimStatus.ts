@@ -7,7 +7,7 @@ import {
   LockOutlined,
   SendOutlined,
 } from '@ant-design/icons-vue';
-import { CLAIM_STATUS_LABELS, claimRuleSubject, type ClaimStatus, type ClaimView } from '@busbar/shared';
+import { CLAIM_STATUS_LABELS, claimRuleSubject, type ClaimDetail, type ClaimStatus, type ClaimView } from '@busbar/shared';
 import type { Component } from 'vue';
 import type { Tone } from '../../theme.ts';
 
@@ -30,6 +30,9 @@ export function claimStatusTag(status: ClaimStatus): { label: string; tone: Tone
 export function claimStages(denied: boolean): ClaimStatus[] {
   return ['logged', 'evidence_ready', 'sent_to_vendor', ...(denied ? (['denied'] as const) : (['approved', 'credited'] as const)), 'closed'];
 }
+
+/** Whether the vendor denied the claim: it stands denied now, or was denied before it was closed. */
+export const wasDenied = (claim: Pick<ClaimDetail, 'status' | 'events'>) => claim.status === 'denied' || claim.events.some((e) => e.toStatus === 'denied');
 
 /** Claims may be edited until the vendor has answered (as the API allows). */
 export const isEditable = (status: ClaimStatus) => ['logged', 'evidence_ready', 'sent_to_vendor'].includes(status);
