@@ -3,6 +3,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { DEMO_PASSWORD, openDatabase, seedNetwork } from '@busbar/db';
 import { hashPassword } from '../apps/api/src/auth/password.ts';
+import { loadConfig } from '../apps/api/src/config.ts';
 import { progressBar } from '../apps/api/src/progress.ts';
 
 export interface DataSize {
@@ -45,7 +46,7 @@ export async function networkData(locations: number, years: number, reuse: boole
     locations,
     years,
     now: new Date(),
-    passwordHash: await hashPassword(DEMO_PASSWORD, 17),
+    passwordHash: await hashPassword(DEMO_PASSWORD, loadConfig().scryptLogN),
     onProgress: ({ days, totalDays, builds, indexing }) =>
       indexing ? bar.end(`${builds.toLocaleString('en-US')} builds; building indexes…`) : bar.update(days / totalDays, `${builds.toLocaleString('en-US')} builds`),
   });

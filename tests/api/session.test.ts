@@ -1,3 +1,4 @@
+import { scryptSync } from 'node:crypto';
 import { DEMO_PASSWORD } from '@busbar/db';
 import request from 'supertest';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
@@ -20,6 +21,18 @@ describe('sign-in and sign-out', () => {
     h = await startHarness();
   });
   afterEach(() => h.close());
+
+  it("makes a password hash of an older cost again at today's cost when its person signs in", async () => {
+    const salt = Buffer.from('older-cost-salt!');
+    const old = ['scrypt', 10, 8, 1, salt.toString('base64url'), scryptSync(DEMO_PASSWORD, salt, 32, { N: 1024, r: 8, p: 1 }).toString('base64url')].join('$');
+    await h.db.updateTable('users').set({ passwordHash: old }).where('email', '=', SIGN_INS.lead).execute();
+    expect((await (await h.agent()).post('/api/session').send({ email: SIGN_INS.lead, password: DEMO_PASSWORD })).status).toBe(200);
+    const { passwordHash } = await h.db.selectFrom('users').select('passwordHash').where('email', '=', SIGN_INS.lead).executeTakeFirstOrThrow();
+    expect(passwordHash).not.toBe(old);
+    expect(passwordHash!.split('$').slice(0, 4)).toEqual(['scrypt', '10', '8', '3']);
+    expect((await (await h.agent()).post('/api/session').send({ email: SIGN_INS.lead, password: DEMO_PASSWORD })).status).toBe(200);
+    expect((await (await h.agent()).post('/api/session').send({ email: SIGN_INS.lead, password: 'not the password' })).status).toBe(401);
+  });
 
   it('signs a person in with their roles and rules and keeps them signed in', async () => {
     const ids = await demoIds(h.db);

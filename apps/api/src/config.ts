@@ -27,7 +27,7 @@ export interface Config {
   mailFrom: string;
   trustProxy: boolean;
   demoData: boolean;
-  /** log2 of scrypt's cost N; 17 is OWASP's recommended minimum for scrypt. */
+  /** log2 of scrypt's cost N; with r=8 and p=3 (password.ts), 15 is as strong as OWASP's N=2^17, p=1. */
   scryptLogN: number;
   inviteTtlHours: number;
   signInLimit: { windowMs: number; perAccount: number; perAddress: number };
@@ -63,7 +63,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     mailFrom: e.MAIL_FROM,
     trustProxy: e.TRUST_PROXY === 'true',
     demoData: e.DEMO_DATA === 'true',
-    scryptLogN: 17,
+    scryptLogN: 15,
     inviteTtlHours: 72,
     signInLimit: { windowMs: 15 * 60 * 1000, perAccount: 10, perAddress: 100 },
     webDist: existsSync(join(webDist, 'index.html')) ? webDist : null,

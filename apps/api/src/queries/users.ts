@@ -90,6 +90,11 @@ export async function setUserStatus(db: Db, id: number, status: PersonStatus): P
   await db.updateTable('users').set({ status }).where('id', '=', id).execute();
 }
 
+/** A person's password hash made again at today's cost; who may sign in does not change. */
+export async function setPasswordHash(db: Db, id: number, passwordHash: string): Promise<void> {
+  await db.updateTable('users').set({ passwordHash }).where('id', '=', id).execute();
+}
+
 export async function activateWithPassword(db: Db, id: number, passwordHash: string): Promise<void> {
   forgetViewers();
   await db.updateTable('users').set({ passwordHash, status: 'active' }).where('id', '=', id).execute();

@@ -1,19 +1,17 @@
 import { signInBody, type SessionView } from '@busbar/shared';
 import { Router, type Request, type Response } from 'express';
 import { loadViewer } from '../access/viewer.ts';
-import { verifyPassword } from '../auth/password.ts';
+import { hashPassword, needsRehash, unmatchableHash, verifyPassword } from '../auth/password.ts';
 import type { AppContext } from '../context.ts';
 import { HttpError } from '../errors.ts';
 import { signInLimits } from '../middleware/rate-limit.ts';
 import { requireSession, viewerOf } from '../middleware/session.ts';
 import { validate } from '../middleware/validate.ts';
-import { findUserForSignIn, recordSignIn } from '../queries/users.ts';
+import { findUserForSignIn, recordSignIn, setPasswordHash } from '../queries/users.ts';
 
 export const SESSION_COOKIE = 'busbar.sid';
 
 /** Compared against when the e-mail is unknown, so both failures take the same time. */
-const UNKNOWN_USER_HASH = 'scrypt$17$8$1$AAAAAAAAAAAAAAAAAAAAAA$AAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAA';
-
 /** Starts a fresh session (a new id, against session fixation) for a person and answers their view. */
 export async function signIn({ db, now }: AppContext, req: Request, res: Response, userId: number): Promise<void> {
   await new Promise<void>((resolve, reject) => req.session.regenerate((err) => (err ? reject(err) : resolve())));
@@ -42,11 +40,12 @@ export function sessionRouter(ctx: AppContext): Router {
     ...signInLimits(ctx.config.signInLimit),
     validate({ body: signInBody }, async ({ body }, req, res) => {
       const user = await findUserForSignIn(ctx.db, body.email);
-      const matches = await verifyPassword(body.password, user?.passwordHash ?? UNKNOWN_USER_HASH);
+      const matches = await verifyPassword(body.password, user?.passwordHash ?? unmatchableHash(ctx.config.scryptLogN));
       // One message for every failure, so the answer does not tell which e-mails have accounts.
       if (!user || !matches || user.status !== 'active') {
         throw new HttpError(401, 'invalid_credentials', 'That e-mail and password do not match an active account');
       }
+      if (needsRehash(user.passwordHash!, ctx.config.scryptLogN)) await setPasswordHash(ctx.db, user.id, await hashPassword(body.password, ctx.config.scryptLogN));
       await signIn(ctx, req, res, user.id);
     }),
   );
