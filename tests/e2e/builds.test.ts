@@ -1,6 +1,8 @@
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { demoIds } from '../support/api-harness.ts';
 import { addCatalogItem, addVendor } from '../support/catalog-fixtures.ts';
+import { addDeliveredUnit } from '../support/claim-fixtures.ts';
 import { choose, startE2e, type E2e } from '../support/e2e-harness.ts';
 
 let e2e: E2e;
@@ -131,6 +133,28 @@ describe('a build from booking to delivery', () => {
     expect(await rows.first().textContent()).toContain('Delivered');
 
     await tech.context().close();
+    await lead.context().close();
+  });
+
+  it("fits a phone: a delivered build's page, its components and its claims scroll only downwards", async () => {
+    const db = e2e.harness.db;
+    const unit = await addDeliveredUnit(db, (await demoIds(db)).location('DEN'));
+    const api = await e2e.harness.signedIn('warranty@demo.busbar.test');
+    const claim = await api.post('/api/claims').send({ buildItemId: unit.buildItemId, failedOn: '2026-06-10', failureMode: 'will_not_charge', coverage: 'vendor_defect', symptoms: 'No output' });
+    expect(claim.status).toBe(201);
+
+    const lead = await e2e.newPage();
+    await lead.setViewportSize({ width: 390, height: 800 });
+    await e2e.signIn(lead, 'lead@demo.busbar.test');
+    await lead.goto(`/builds/${unit.buildId}`);
+    await lead.getByRole('heading', { level: 1, name: /^Build DEN-\d+$/ }).waitFor();
+    // The lead sees the most of it: prices and costs, corrections to the components, the claims.
+    const row = lead.locator('.ant-table-row', { hasText: unit.item.sku });
+    await row.getByRole('button', { name: `Edit ${unit.item.sku}` }).waitFor();
+    await lead.getByRole('link', { name: `Claim ${claim.body.number}` }).waitFor();
+    expect(await lead.evaluate(() => document.documentElement.scrollWidth <= document.documentElement.clientWidth)).toBe(true);
+    // Each component stacks its facts, the figures named, so nothing is left out for the width.
+    expect(await row.innerText()).toContain(`Unit cost $${(unit.item.unitCostCents / 100).toFixed(2)}`);
     await lead.context().close();
   });
 });
