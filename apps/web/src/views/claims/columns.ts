@@ -1,3 +1,4 @@
+import { localDay } from '@busbar/calc';
 import type { ClaimView } from '@busbar/shared';
 import type { TableColumnsType } from 'ant-design-vue';
 
@@ -19,8 +20,11 @@ export function claimColumns(show: { shop: boolean; narrow: boolean }): TableCol
   return columns;
 }
 
-/** Whole days since the claim was logged, e.g. "12 days". */
-export function claimAge(createdAt: string, now = Date.now()): string {
-  const days = Math.max(0, Math.floor((now - Date.parse(createdAt)) / 86_400_000));
+/**
+ * Days since the claim was logged, counted in days at its location as its due days and the
+ * logging-day filters are (logged yesterday evening there is "1 day" this morning), e.g. "12 days".
+ */
+export function claimAge(createdAt: string, timeZone: string, now = Date.now()): string {
+  const days = Math.max(0, localDay(timeZone, now) - localDay(timeZone, Date.parse(createdAt)));
   return days === 1 ? '1 day' : `${days} days`;
 }
