@@ -31,6 +31,18 @@ function loggedBetween(eb: Claims, zones: Map<string, number[]>, from: string | 
   return eb.and([...within(widest), eb.or(bounds.map((b) => eb.and([eb('w.locationId', 'in', b.ids), ...within(b)])))]);
 }
 
+/**
+ * Claims whose next step was due before today at their location. The latest "today" of all zones
+ * first, as a range of the queue-order index (which walks only due claims, overdue first); then
+ * each zone exactly.
+ */
+function overdue(eb: Claims, zones: Map<string, number[]>, now: Date): Expression<SqlBool> {
+  const todays = [...zones].map(([zone, ids]) => ({ ids, today: localToday(zone, now) }));
+  const latest = todays.map((t) => t.today).sort().at(-1)!;
+  const exactly = eb.or(todays.map(({ ids, today }) => eb.and([eb('w.locationId', 'in', ids), eb('w.dueOn', '<', today)])));
+  return eb.and([eb('w.dueOn', '<', latest), exactly]);
+}
+
 /** The list's filters as conditions on `warranty_claims` alone, so paging and counting need no join. */
 const byUnit = (query: ClaimQuery) => query.vendorId !== undefined || query.category !== undefined;
 
@@ -53,7 +65,7 @@ async function matchingClaims(db: Db, scope: LocationScope, query: ClaimQuery, n
     if (query.failedFrom) conditions.push(eb('w.failedOn', '>=', query.failedFrom));
     if (query.failedTo) conditions.push(eb('w.failedOn', '<=', query.failedTo));
     if (query.loggedFrom || query.loggedTo) conditions.push(loggedBetween(eb, zones, query.loggedFrom, query.loggedTo));
-    if (query.overdue) conditions.push(eb.or([...zones].map(([zone, ids]) => eb.and([eb('w.locationId', 'in', ids), eb('w.dueOn', '<', localToday(zone, now))]))));
+    if (query.overdue) conditions.push(overdue(eb, zones, now));
     // The catalog is small: its matching items are looked up once, and each claim keeps its unit's item.
     if (byUnit(query)) conditions.push(catalogIds.length > 0 ? eb('w.catalogItemId', 'in', catalogIds) : sql<SqlBool>`0`);
     return eb.and(conditions);

@@ -70,7 +70,8 @@ export async function listCustomers(db: Db, filter: CustomerFilter): Promise<Pag
   const { page, pageSize, q, scope } = filter;
   if (scope !== 'all' && scope.length === 0) return { items: [], total: 0, totalCapped: false, page, pageSize };
   const count = await cappedCount(db, matchingCustomers(db, filter, SEARCH_CAP + 1).select('id'), countCapFor(q));
-  const walkNames = scope !== 'all' && (count.totalCapped || count.total > SORT_MAX) && !(q && isIndexable(q));
+  // One shop reads its names in order from its own index; several shops' names are merged by a sort or a walk.
+  const walkNames = scope !== 'all' && scope.length > 1 && (count.totalCapped || count.total > SORT_MAX) && !(q && isIndexable(q));
   const items = await matchingCustomers(db, filter, SEARCH_CAP, walkNames)
     .select(CUSTOMER_COLUMNS)
     .orderBy('name')
