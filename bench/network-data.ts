@@ -1,9 +1,10 @@
-import { existsSync, mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { DEMO_PASSWORD, openDatabase, seedNetwork } from '@busbar/db';
+import { DEMO_PASSWORD, migrateToLatest, openDatabase, seedNetwork } from '@busbar/db';
 import { hashPassword } from '../apps/api/src/auth/password.ts';
 import { loadConfig } from '../apps/api/src/config.ts';
+import { ensureDemoData } from '../apps/api/src/demo.ts';
 import { progressBar } from '../apps/api/src/progress.ts';
 
 export interface DataSize {
@@ -25,6 +26,19 @@ export async function sizeOf(dir: string, label: string, generatedSeconds: numbe
   const size = { label, locations: await count('locations'), builds: await count('builds'), buildItems: await count('buildItems'), claims: await count('warrantyClaims'), auditRows: await count('auditLog'), generatedSeconds };
   await db.destroy();
   return size;
+}
+
+/**
+ * A new data folder with the demo network, seeded here as `pnpm db:reset` does, so the app's
+ * figures (its peak memory above all) are of serving it, not of making it.
+ */
+export async function demoData(): Promise<string> {
+  const dir = mkdtempSync(join(tmpdir(), 'busbar-bench-demo-'));
+  const db = openDatabase(join(dir, 'busbar.sqlite'));
+  await migrateToLatest(db);
+  await ensureDemoData(db, loadConfig().scryptLogN, new Date(), dir);
+  await db.destroy();
+  return dir;
 }
 
 /**

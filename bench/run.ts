@@ -5,14 +5,13 @@
  * a lead's build detail while the owner imports and reads, and the app's peak memory. Prints the
  * figures and writes them to bench/RESULTS.md; asserts nothing.
  */
-import { mkdtempSync, rmSync } from 'node:fs';
-import { loadavg, tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { rmSync } from 'node:fs';
+import { loadavg } from 'node:os';
 import { DEMO_PASSWORD } from '@busbar/db';
 import { call, signIn } from './client.ts';
 import { detailDuringOwnerWork } from './contention.ts';
 import { mixedLoad } from './load.ts';
-import { networkData, sizeOf } from './network-data.ts';
+import { demoData, networkData, sizeOf } from './network-data.ts';
 import { benchOptions, type BenchOptions } from './options.ts';
 import { PEOPLE, report, writeReport, type SizeRun } from './results.ts';
 import { idsFor, measureScreens } from './screens.ts';
@@ -44,7 +43,8 @@ async function measure(dir: string, label: string, generatedSeconds: number | nu
 
 const options = benchOptions();
 const loadAtStart = loadavg()[0]!;
-const demoDir = mkdtempSync(join(tmpdir(), 'busbar-bench-demo-'));
+log('demo: seeding the demo network');
+const demoDir = await demoData();
 try {
   const demo = await measure(demoDir, 'demo', null, options);
   const network = await networkData(options.locations, options.years, options.reuse);
