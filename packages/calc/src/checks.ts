@@ -1,8 +1,9 @@
-/** Limits for one numeric input; `above` is an exclusive lower bound. */
+/** Limits for one numeric input; `above` and `below` are exclusive bounds. */
 export interface NumberLimits {
   min?: number;
   above?: number;
   max?: number;
+  below?: number;
   integer?: boolean;
 }
 
@@ -11,6 +12,7 @@ function describe(limits: NumberLimits): string {
   if (limits.above !== undefined) bounds.push(`above ${limits.above}`);
   if (limits.min !== undefined) bounds.push(`at least ${limits.min}`);
   if (limits.max !== undefined) bounds.push(`at most ${limits.max}`);
+  if (limits.below !== undefined) bounds.push(`below ${limits.below}`);
   const kind = limits.integer ? 'a whole number' : 'a number';
   return bounds.length ? `${kind} ${bounds.join(' and ')}` : kind;
 }
@@ -23,6 +25,7 @@ export function checkNumber(field: string, value: number, limits: NumberLimits):
     (limits.min === undefined || value >= limits.min) &&
     (limits.above === undefined || value > limits.above) &&
     (limits.max === undefined || value <= limits.max) &&
+    (limits.below === undefined || value < limits.below) &&
     (!limits.integer || Number.isInteger(value));
   if (!ok) throw new RangeError(`${field} must be ${describe(limits)}; got ${String(value)}`);
 }

@@ -1,0 +1,31 @@
+import { checkNumber } from './checks.ts';
+import type { RateInterval } from './poisson-rate.ts';
+import { poissonCdf, poissonQuantile, tailOf } from './quantiles.ts';
+
+/**
+ * Funnel-plot control limits for a location's event rate at its own exposure, around the network's
+ * rate: the Poisson quantiles of the expected count, interpolated between whole counts so the limits
+ * run smoothly with exposure (Spiegelhalter 2005, "Funnel plots for comparing institutional performance",
+ * Stat Med 24:1185–1202, appendix). A location whose rate lies outside [lower, upper] differs from the
+ * network by more than chance at that confidence; Spiegelhalter draws 0.95 and 0.998.
+ */
+export function funnelLimits(networkRate: number, exposure: number, options: { confidence?: number } = {}): RateInterval {
+  const { confidence = 0.95 } = options;
+  checkNumber('networkRate', networkRate, { above: 0 });
+  checkNumber('exposure', exposure, { above: 0 });
+  const alpha = tailOf(confidence);
+  const expectedCount = networkRate * exposure;
+  return {
+    rate: networkRate,
+    lower: Math.max(0, interpolatedQuantile(alpha / 2, expectedCount)) / exposure,
+    upper: interpolatedQuantile(1 - alpha / 2, expectedCount) / exposure,
+  };
+}
+
+// r_p − (F(r_p) − p) / (F(r_p) − F(r_p − 1)), with r_p the p-quantile of the count.
+function interpolatedQuantile(p: number, expectedCount: number): number {
+  const count = poissonQuantile(p, expectedCount);
+  const atCount = poissonCdf(count, expectedCount);
+  const below = poissonCdf(count - 1, expectedCount);
+  return count - (atCount - p) / (atCount - below);
+}
