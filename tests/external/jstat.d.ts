@@ -1,0 +1,11 @@
+// jstat ships no types; only the functions the reliability checks call.
+declare module 'jstat' {
+  interface JStat {
+    normal: { inv(p: number, mean: number, sd: number): number };
+    chisquare: { inv(p: number, degreesOfFreedom: number): number; cdf(x: number, degreesOfFreedom: number): number };
+    poisson: { cdf(count: number, mean: number): number };
+    weibull: { pdf(x: number, scale: number, shape: number): number; cdf(x: number, scale: number, shape: number): number };
+  }
+  const jStat: JStat;
+  export default jStat;
+}
