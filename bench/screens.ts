@@ -10,9 +10,11 @@ export const SCREENS: readonly (readonly [label: string, path: (ids: Ids) => str
   ['builds, text search: serial', () => '/api/builds?q=LK2506'],
   ['builds, page 20', () => '/api/builds?page=20'],
   ['build detail', (ids) => `/api/builds/${ids.buildId}`],
+  ['build detail, power plan', (ids) => `/api/builds/${ids.buildId}/plan`],
   ['serial search, prefix', () => '/api/serials?q=NV25'],
   ['customers', () => '/api/customers'],
   ['customers, search', () => '/api/customers?q=Pemberton'],
+  ['customer detail', (ids) => `/api/customers/${ids.customerId}`],
   ['catalog', () => '/api/catalog'],
   ['vendors', () => '/api/vendors'],
   ['staff', () => '/api/staff'],
@@ -20,6 +22,7 @@ export const SCREENS: readonly (readonly [label: string, path: (ids: Ids) => str
   ['audit log, builds only', () => '/api/audit?entity=build'],
   ['quick plans', () => '/api/plans'],
   ['claims, queue', () => '/api/claims'],
+  ['claim detail', (ids) => `/api/claims/${ids.claimId}`],
   ['claims, overdue', () => '/api/claims?overdue=true'],
   ['claims, sent to vendor', () => '/api/claims?status=sent_to_vendor'],
   ['claims, filtered by vendor', () => '/api/claims?vendorId=1'],
@@ -30,17 +33,24 @@ export const SCREENS: readonly (readonly [label: string, path: (ids: Ids) => str
 
 export interface Ids {
   buildId: number;
+  customerId: number;
+  claimId: number;
 }
 
 /** Figures of one screen for one person: latencies, or the refusal they get (a lead reads no audit log). */
 export type ScreenFigure = Latency | { status: number };
 
-/** A build the person can open: the newest of their list. */
+/** The first record of one of the person's lists. */
+async function firstOf(person: Person, list: string): Promise<number> {
+  const answer = await call(person, 'GET', `/api/${list}?pageSize=1`);
+  const first = (JSON.parse(answer.body) as { items: { id: number }[] }).items[0];
+  if (!first) throw new Error(`the person sees no ${list}`);
+  return first.id;
+}
+
+/** A build, a customer and a claim the person can open: the first of their lists. */
 export async function idsFor(person: Person): Promise<Ids> {
-  const list = await call(person, 'GET', '/api/builds?pageSize=1');
-  const build = (JSON.parse(list.body) as { items: { id: number }[] }).items[0];
-  if (!build) throw new Error('the person sees no builds');
-  return { buildId: build.id };
+  return { buildId: await firstOf(person, 'builds'), customerId: await firstOf(person, 'customers'), claimId: await firstOf(person, 'claims') };
 }
 
 /** Each screen's request, a few times untimed to warm up, then `samples` times one after another. */
