@@ -7,7 +7,8 @@ import { poissonCdf, poissonQuantile, tailOf } from './quantiles.ts';
  * rate: the Poisson quantiles of the expected count, interpolated between whole counts so the limits
  * run smoothly with exposure (Spiegelhalter 2005, "Funnel plots for comparing institutional performance",
  * Stat Med 24:1185–1202, appendix). A location whose rate lies outside [lower, upper] differs from the
- * network by more than chance at that confidence; Spiegelhalter draws 0.95 and 0.998.
+ * network by more than chance at that confidence; Spiegelhalter draws 0.95 and 0.998. Interpolation
+ * below a count of 0 stops at 0: where even one event is past the upper quantile, the upper limit is 0.
  */
 export function funnelLimits(networkRate: number, exposure: number, options: { confidence?: number } = {}): RateInterval {
   const { confidence = 0.95 } = options;
@@ -17,15 +18,15 @@ export function funnelLimits(networkRate: number, exposure: number, options: { c
   const expectedCount = networkRate * exposure;
   return {
     rate: networkRate,
-    lower: Math.max(0, interpolatedQuantile(alpha / 2, expectedCount)) / exposure,
+    lower: interpolatedQuantile(alpha / 2, expectedCount) / exposure,
     upper: interpolatedQuantile(1 - alpha / 2, expectedCount) / exposure,
   };
 }
 
-// r_p − (F(r_p) − p) / (F(r_p) − F(r_p − 1)), with r_p the p-quantile of the count.
+// r_p − (F(r_p) − p) / (F(r_p) − F(r_p − 1)), with r_p the p-quantile of the count, and no less than 0.
 function interpolatedQuantile(p: number, expectedCount: number): number {
   const count = poissonQuantile(p, expectedCount);
   const atCount = poissonCdf(count, expectedCount);
   const below = poissonCdf(count - 1, expectedCount);
-  return count - (atCount - p) / (atCount - below);
+  return Math.max(0, count - (atCount - p) / (atCount - below));
 }

@@ -25,9 +25,10 @@ export function wilsonInterval(failures: number, trials: number, options: Wilson
   const q = 1 - p;
   const centre = 2 * trials * p + z * z;
   const denominator = 2 * (trials + z * z);
+  // Rounding can carry a limit a hair past 0 or 1 when no trial or every trial failed.
   if (!continuityCorrection) {
     const spread = z * Math.sqrt(z * z + 4 * trials * p * q);
-    return { estimate: p, lower: (centre - spread) / denominator, upper: (centre + spread) / denominator };
+    return { estimate: p, lower: Math.max(0, (centre - spread) / denominator), upper: Math.min(1, (centre + spread) / denominator) };
   }
   // Newcombe's method 4 sets the limit to 0 (or 1) when no trial failed (or all did).
   const lower = failures === 0 ? 0 : (centre - 1 - z * Math.sqrt(z * z - 2 - 1 / trials + 4 * p * (trials * q + 1))) / denominator;
