@@ -24,6 +24,8 @@ const LISTS: [path: string, max: number][] = [
   ['/api/outbox', MAX_PAGE_SIZE],
   ['/api/plans', MAX_PAGE_SIZE],
   ['/api/serials?q=KST', 100],
+  ['/api/claims', 100],
+  ['/api/locations/settings', MAX_PAGE_SIZE],
 ];
 const withPageSize = (path: string, size: number) => `${path}${path.includes('?') ? '&' : '?'}pageSize=${size}`;
 
