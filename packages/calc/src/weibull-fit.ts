@@ -25,7 +25,7 @@ export function weibullFit(observations: readonly SurvivalObservation[]): Weibul
     );
   }
   // Times relative to the longest keep t^β within [0, 1] for any shape; the shape does not change.
-  const longest = Math.max(...observations.map((o) => o.time));
+  const longest = observations.reduce((most, o) => Math.max(most, o.time), 0);
   const logTimes = observations.map((o) => Math.log(o.time / longest));
   const failedLogTimes = logTimes.filter((_, i) => observations[i]!.failed);
   const failures = failedLogTimes.length;
