@@ -38,6 +38,19 @@ describe('navigation by role', () => {
     });
   }
 
+  it('fits every list on a phone: filters one a line, wide tables scrolling in their own box', async () => {
+    const page = await e2e.newPage();
+    await e2e.signIn(page, 'owner@demo.busbar.test');
+    await page.setViewportSize({ width: 390, height: 844 });
+    for (const path of ['/builds', '/plans', '/customers', '/serials?q=KST', '/claims', '/catalog', '/vendors', '/locations', '/staff', '/outbox', '/audit']) {
+      await page.goto(path);
+      await page.locator('.ant-table').first().waitFor();
+      const widths = await page.evaluate(() => [document.documentElement.scrollWidth, document.documentElement.clientWidth]);
+      expect(widths[0], path).toBeLessThanOrEqual(widths[1]!);
+    }
+    await page.context().close();
+  });
+
   it('sends a person without the right to a page to the forbidden page, and an unknown address to not found', async () => {
     const page = await e2e.newPage();
     await e2e.signIn(page, 'tech@demo.busbar.test');
