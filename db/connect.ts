@@ -1,7 +1,7 @@
 import { mkdirSync } from 'node:fs';
 import { dirname } from 'node:path';
 import SQLite from 'better-sqlite3';
-import { CamelCasePlugin, Kysely, Migrator, SqliteDialect, type SqliteDatabase } from 'kysely';
+import { CamelCasePlugin, CompiledQuery, Kysely, Migrator, SqliteDialect, SqliteDriver, type DatabaseConnection, type Driver, type SqliteDatabase, type SqliteDialectConfig } from 'kysely';
 import { migrations } from './migrations/index.ts';
 import type { Database } from './schema/index.ts';
 
@@ -14,7 +14,26 @@ export function openDatabase(file: string): Db {
   sqlite.pragma('journal_mode = WAL');
   sqlite.pragma('foreign_keys = ON');
   sqlite.pragma('busy_timeout = 5000');
-  return new Kysely<Database>({ dialect: new SqliteDialect({ database: reusingStatements(sqlite) }), plugins: [new CamelCasePlugin()] });
+  return new Kysely<Database>({ dialect: new ImmediateSqliteDialect({ database: reusingStatements(sqlite) }), plugins: [new CamelCasePlugin()] });
+}
+
+/**
+ * Transactions take the write lock as they begin (BEGIN IMMEDIATE), waiting their turn. One begun
+ * plainly reads first and fails with SQLITE_BUSY when it comes to write if another connection (an
+ * import's worker thread) has written since: a claim number or an import lost to a chance overlap.
+ */
+class ImmediateSqliteDialect extends SqliteDialect {
+  constructor(private readonly settings: SqliteDialectConfig) {
+    super(settings);
+  }
+
+  override createDriver(): Driver {
+    return new (class extends SqliteDriver {
+      override async beginTransaction(connection: DatabaseConnection): Promise<void> {
+        await connection.executeQuery(CompiledQuery.raw('begin immediate'));
+      }
+    })(this.settings);
+  }
 }
 
 /** Prepared statements kept per connection; the most used queries stay, the rest are prepared again. */

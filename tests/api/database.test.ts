@@ -26,6 +26,27 @@ const snapshot = async (db: Db) => ({
 });
 
 describe('database', () => {
+  it('takes the write lock when a transaction begins, so a write between its read and its write cannot make it fail', async () => {
+    const db = await fresh();
+    const other = openDatabase(join(dirs.at(-1)!, 'busbar.sqlite'));
+    await sql`pragma busy_timeout = 0`.execute(other);
+    const elsewhere = () => other.insertInto('regions').values({ code: 'XX', name: 'Elsewhere' }).execute();
+    try {
+      const written = await db.transaction().execute(async (trx) => {
+        const { n } = await trx.selectFrom('regions').select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow();
+        // Another connection (an import's worker thread) cannot write now: this transaction holds the lock.
+        await expect(elsewhere()).rejects.toThrow(/locked|busy/i);
+        await trx.insertInto('regions').values({ code: `R${n}`, name: 'Counted' }).execute();
+        return n;
+      });
+      expect(await db.selectFrom('regions').select('code').where('code', '=', `R${written}`).execute()).toHaveLength(1);
+      await elsewhere();
+    } finally {
+      await other.destroy();
+      await db.destroy();
+    }
+  });
+
   it('opens with WAL, foreign keys and a busy timeout', async () => {
     const db = await fresh();
     const pragma = async (name: string) => Object.values((await sql.raw(`pragma ${name}`).execute(db)).rows[0] as object)[0];
