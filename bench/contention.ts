@@ -7,6 +7,8 @@ export interface ContentionFigures {
   importStatus: number;
   ownerRequests: number;
   leadDetail: Latency;
+  /** A lead's new customers meanwhile, one every 250 ms: a save waits for the import's write lock. */
+  leadWrites: Latency;
 }
 
 /** A CSV of `rows` delivered builds at the lead's shop, with parts of the demo catalog. */
@@ -20,8 +22,9 @@ function importCsv(rows: number): string {
 }
 
 /**
- * The lead opens a build again and again while the owner imports `rows` builds and, meanwhile and
- * for at least five seconds, reads the network's biggest lists (text search, deep pages, the audit log).
+ * The lead opens a build again and again, and adds a customer now and then, while the owner imports
+ * `rows` builds and, meanwhile and for at least five seconds, reads the network's biggest lists
+ * (text search, deep pages, the audit log).
  */
 export async function detailDuringOwnerWork(owner: Person, lead: Person, shop: { locationId: number; buildId: number }, rows: number): Promise<ContentionFigures> {
   let busy = true;
@@ -41,10 +44,19 @@ export async function detailDuringOwnerWork(owner: Person, lead: Person, shop: {
   const leadLoop = (async () => {
     while (busy) times.push((await call(lead, 'GET', `/api/builds/${shop.buildId}`)).ms);
   })();
+  const writeTimes: number[] = [];
+  const writeLoop = (async () => {
+    for (let i = 0; busy; i++) {
+      const answer = await call(lead, 'POST', '/api/customers', { locationId: shop.locationId, name: `Meanwhile Customer ${i}`, email: `meanwhile.${i}.${Date.now()}@example.test` });
+      if (answer.status !== 201) throw new Error(`a save during the import answered ${answer.status}: ${answer.body.slice(0, 200)}`);
+      writeTimes.push(answer.ms);
+      await new Promise((r) => setTimeout(r, 250));
+    }
+  })();
   const imported = await importing;
   // The owner keeps reading for at least five seconds, so a quick import still gives enough samples.
   while (performance.now() - started < 5000) await new Promise((r) => setTimeout(r, 50));
   busy = false;
-  await Promise.all([ownerLists, leadLoop]);
-  return { importRows: rows, importMs: imported.ms, importStatus: imported.status, ownerRequests, leadDetail: latency(times) };
+  await Promise.all([ownerLists, leadLoop, writeLoop]);
+  return { importRows: rows, importMs: imported.ms, importStatus: imported.status, ownerRequests, leadDetail: latency(times), leadWrites: latency(writeTimes) };
 }

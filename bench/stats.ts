@@ -3,6 +3,7 @@ export interface Latency {
   p50: number;
   p95: number;
   p99: number;
+  max: number;
   count: number;
 }
 
@@ -14,7 +15,7 @@ function quantile(sorted: number[], q: number): number {
 
 export function latency(samples: number[]): Latency {
   const sorted = [...samples].sort((a, b) => a - b);
-  return { p50: quantile(sorted, 0.5), p95: quantile(sorted, 0.95), p99: quantile(sorted, 0.99), count: sorted.length };
+  return { p50: quantile(sorted, 0.5), p95: quantile(sorted, 0.95), p99: quantile(sorted, 0.99), max: sorted.at(-1) ?? NaN, count: sorted.length };
 }
 
 export const ms = (value: number) => (Number.isFinite(value) ? (value < 10 ? value.toFixed(1) : value.toFixed(0)) : '–');

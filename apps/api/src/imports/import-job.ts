@@ -13,8 +13,8 @@ export interface ImportJob {
 }
 
 /**
- * Checks an import and, when every row passes and it is not a dry run, writes it in one
- * transaction, on a connection of its own (it runs in a worker thread: see run-import.ts).
+ * Checks an import and, when every row passes and it is not a dry run, writes it whole, a batch
+ * at a time (write-rows.ts), on a connection of its own (it runs in a worker thread: see run-import.ts).
  */
 export async function importBuilds(job: ImportJob): Promise<ImportResult> {
   const db = openDatabase(job.databaseFile);
@@ -22,7 +22,7 @@ export async function importBuilds(job: ImportJob): Promise<ImportResult> {
     const { results, rows } = await checkImport(db, job.location.id, job.csv);
     const ok = results.length > 0 && rows.length === results.length && results.every((r) => Object.keys(r.errors).length === 0);
     let created = 0;
-    if (ok && !job.dryRun) created = await db.transaction().execute((trx) => writeImport(trx, job.location, rows, job.actorId, job.at));
+    if (ok && !job.dryRun) created = await writeImport(db, job.location, rows, job.actorId, job.at);
     return { ok, created, rows: results };
   } finally {
     await db.destroy();
