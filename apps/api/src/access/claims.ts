@@ -5,13 +5,10 @@ import { claimEvents, findClaim, localToday, type ClaimRow } from '../queries/cl
 import { claimEvidence } from '../queries/evidence.ts';
 import type { Viewer } from './viewer.ts';
 
-/** A claim as the rules see it (`claimRuleSubject`: its location, and whether the credit is above its limit). */
-export const claimSubject = (row: Pick<ClaimRow, 'locationId' | 'approvalLimitCents'>, creditCents = 0) => claimRuleSubject(row, creditCents);
-
 /** A claim the person may read, or 404 — also for a claim of a location they cannot see. */
 export async function loadClaim(db: Db, viewer: Viewer, id: number): Promise<ClaimRow> {
   const row = await findClaim(db, id);
-  if (!row || !viewer.ability.can('read', claimSubject(row))) throw notFound('claim');
+  if (!row || !viewer.ability.can('read', claimRuleSubject(row))) throw notFound('claim');
   return row;
 }
 

@@ -1,6 +1,6 @@
-import { evidenceDelete, evidenceFileQuery, evidenceParams, idParams } from '@busbar/shared';
+import { claimRuleSubject, evidenceDelete, evidenceFileQuery, evidenceParams, idParams } from '@busbar/shared';
 import { Router } from 'express';
-import { claimDetail, claimSubject, loadClaim } from '../access/claims.ts';
+import { claimDetail, loadClaim } from '../access/claims.ts';
 import type { AppContext } from '../context.ts';
 import { conflict, forbidden, invalidField, notFound } from '../errors.ts';
 import { cleanFileName, detectEvidenceType } from '../evidence/file-type.ts';
@@ -18,7 +18,7 @@ export function claimEvidenceRouter({ db, config, now }: AppContext): Router {
   async function workableClaim(req: Parameters<typeof viewerOf>[0], id: number) {
     const viewer = viewerOf(req);
     const claim = await loadClaim(db, viewer, id);
-    if (!viewer.ability.can('update', claimSubject(claim))) throw forbidden('You cannot change the evidence of this claim');
+    if (!viewer.ability.can('update', claimRuleSubject(claim))) throw forbidden('You cannot change the evidence of this claim');
     if (claim.status === 'closed') throw conflict('A closed claim takes no more evidence');
     return { viewer, claim };
   }

@@ -1,6 +1,6 @@
-import { claimReplacement, idParams } from '@busbar/shared';
+import { claimReplacement, claimRuleSubject, idParams } from '@busbar/shared';
 import { Router } from 'express';
-import { claimDetail, claimSubject, loadClaim } from '../access/claims.ts';
+import { claimDetail, loadClaim } from '../access/claims.ts';
 import type { AppContext } from '../context.ts';
 import { conflict, forbidden, invalidField } from '../errors.ts';
 import { viewerOf } from '../middleware/session.ts';
@@ -21,7 +21,7 @@ export function claimReplacementRouter({ db, now }: AppContext): Router {
     validate({ params: idParams, body: claimReplacement }, async ({ params, body }, req, res) => {
       const viewer = viewerOf(req);
       const claim = await loadClaim(db, viewer, params.id);
-      if (!viewer.ability.can('update', claimSubject(claim))) throw forbidden('You cannot record a replacement on this claim');
+      if (!viewer.ability.can('update', claimRuleSubject(claim))) throw forbidden('You cannot record a replacement on this claim');
       if (claim.replacementItemId !== null) throw conflict(`The unit was already replaced by serial number ${claim.replacementSerialNumber}`);
       if (claim.status === 'closed') throw conflict('A closed claim takes no replacement');
       if (body.replacedOn < claim.failedOn) throw invalidField('replacedOn', `The unit failed on ${claim.failedOn}: it cannot have been replaced before`);

@@ -1,6 +1,6 @@
-import { claimSend, idParams } from '@busbar/shared';
+import { claimRuleSubject, claimSend, idParams } from '@busbar/shared';
 import { Router } from 'express';
-import { claimDetail, claimSubject, loadClaim } from '../access/claims.ts';
+import { claimDetail, loadClaim } from '../access/claims.ts';
 import type { AppContext } from '../context.ts';
 import { forbidden, invalidField, stale } from '../errors.ts';
 import { readEvidence } from '../evidence/store.ts';
@@ -18,7 +18,7 @@ export function claimSendRouter({ db, config, mailer, now }: AppContext): Router
     validate({ params: idParams, body: claimSend }, async ({ params, body }, req, res) => {
       const viewer = viewerOf(req);
       const claim = await loadClaim(db, viewer, params.id);
-      if (!viewer.ability.can('send', claimSubject(claim))) throw forbidden('You cannot send this claim to the vendor');
+      if (!viewer.ability.can('send', claimRuleSubject(claim))) throw forbidden('You cannot send this claim to the vendor');
       if (claim.status !== 'evidence_ready') throw invalidField('status', 'Only a claim with its evidence ready is sent to the vendor');
       if (claim.version !== body.version) throw stale();
       const [vendor, shop, files] = await Promise.all([

@@ -1,6 +1,6 @@
-import { CLAIM_STATUS_LABELS, claimCreate, claimQuery, claimStatusChange, claimUpdate, findClaimTransition, idParams } from '@busbar/shared';
+import { CLAIM_STATUS_LABELS, claimCreate, claimRuleSubject, claimQuery, claimStatusChange, claimUpdate, findClaimTransition, idParams } from '@busbar/shared';
 import { Router } from 'express';
-import { claimDetail, claimSubject, claimView, loadClaim } from '../access/claims.ts';
+import { claimDetail, claimView, loadClaim } from '../access/claims.ts';
 import { unitToClaim } from '../access/claim-unit.ts';
 import { locationScope, narrowScope } from '../access/locations.ts';
 import type { AppContext } from '../context.ts';
@@ -63,7 +63,7 @@ export function claimsRouter({ db, now }: AppContext): Router {
     validate({ params: idParams, body: claimUpdate }, async ({ params, body }, req, res) => {
       const viewer = viewerOf(req);
       const row = await loadClaim(db, viewer, params.id);
-      if (!viewer.ability.can('update', claimSubject(row))) throw forbidden('You cannot change this claim');
+      if (!viewer.ability.can('update', claimRuleSubject(row))) throw forbidden('You cannot change this claim');
       if (!EDITABLE.includes(row.status)) throw conflict(`A claim that is ${CLAIM_STATUS_LABELS[row.status].toLowerCase()} can no longer be edited`);
       const { version, ...patch } = body;
       await db.transaction().execute(async (trx) => {
@@ -84,8 +84,8 @@ export function claimsRouter({ db, now }: AppContext): Router {
       const transition = findClaimTransition(row.status, body.to);
       if (!transition) throw invalidField('to', `A claim cannot go from ${CLAIM_STATUS_LABELS[row.status]} to ${CLAIM_STATUS_LABELS[body.to]}`);
       const approvedCents = body.to === 'approved' ? (body.creditApprovedCents ?? row.creditRequestedCents) : undefined;
-      if (!viewer.ability.can(transition.action, claimSubject(row, approvedCents))) {
-        const aboveLimit = approvedCents !== undefined && viewer.ability.can(transition.action, claimSubject(row));
+      if (!viewer.ability.can(transition.action, claimRuleSubject(row, approvedCents))) {
+        const aboveLimit = approvedCents !== undefined && viewer.ability.can(transition.action, claimRuleSubject(row));
         const limit = (row.approvalLimitCents / 100).toLocaleString('en-US', { style: 'currency', currency: 'USD' });
         throw forbidden(aboveLimit ? `This credit is above the location’s approval limit of ${limit}: the regional manager approves it` : 'You cannot make this change of status');
       }

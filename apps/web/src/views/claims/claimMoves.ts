@@ -1,6 +1,5 @@
-import type { AppAbility, ClaimDetail, ClaimStatus } from '@busbar/shared';
+import { claimRuleSubject, type AppAbility, type ClaimDetail, type ClaimStatus } from '@busbar/shared';
 import { formatMoney } from '../../format.ts';
-import { claimSubject } from './claimStatus.ts';
 
 /** A workflow step as its dialog shows it. */
 export interface Move {
@@ -16,7 +15,7 @@ export interface Move {
  * at its location (a lead above the location's limit), or null when they may.
  */
 export function approvalRefusal(ability: AppAbility, claim: ClaimDetail, creditCents: number): string | null {
-  if (!ability.can('approve', claimSubject(claim)) || ability.can('approve', claimSubject(claim, creditCents))) return null;
+  if (!ability.can('approve', claimRuleSubject(claim)) || ability.can('approve', claimRuleSubject(claim, creditCents))) return null;
   return `${formatMoney(creditCents)} is above this shop's approval limit of ${formatMoney(claim.approvalLimitCents)}: the regional manager approves it.`;
 }
 
@@ -26,7 +25,7 @@ export function approvalRefusal(ability: AppAbility, claim: ClaimDetail, creditC
  * regional manager (`approvalRefusal` says so instead). Denying is theirs either way.
  */
 export function movesFor(ability: AppAbility, claim: ClaimDetail): Move[] {
-  const can = (action: 'update' | 'approve') => ability.can(action, claimSubject(claim));
+  const can = (action: 'update' | 'approve') => ability.can(action, claimRuleSubject(claim));
   const moves: Move[] = [];
   if (claim.status === 'sent_to_vendor' && can('approve')) {
     if (approvalRefusal(ability, claim, claim.creditRequestedCents) === null) {

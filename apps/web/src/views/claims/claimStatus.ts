@@ -7,7 +7,7 @@ import {
   LockOutlined,
   SendOutlined,
 } from '@ant-design/icons-vue';
-import { CLAIM_STATUS_LABELS, claimRuleSubject, type ClaimDetail, type ClaimStatus, type ClaimView } from '@busbar/shared';
+import { CLAIM_STATUS_LABELS, type ClaimDetail, type ClaimStatus } from '@busbar/shared';
 import type { Component } from 'vue';
 import type { Tone } from '../../theme.ts';
 
@@ -36,10 +36,3 @@ export const wasDenied = (claim: Pick<ClaimDetail, 'status' | 'events'>) => clai
 
 /** Claims may be edited until the vendor has answered (as the API allows). */
 export const isEditable = (status: ClaimStatus) => ['logged', 'evidence_ready', 'sent_to_vendor'].includes(status);
-
-/**
- * The claim as a CASL subject (`claimRuleSubject`, as the API builds it); with `creditCents`, whether
- * approving that credit is above the location's approval limit.
- */
-export const claimSubject = (claim: Pick<ClaimView, 'locationId'> & { approvalLimitCents?: number }, creditCents = 0) =>
-  claimRuleSubject(claim, creditCents);
