@@ -1,4 +1,5 @@
 import type SQLite from 'better-sqlite3';
+import { REFILL_UNIT_EXPOSURE } from '../migrations/019-create-unit-exposure.ts';
 
 /**
  * Bulk loading into SQLite: secondary indexes and triggers are dropped before and re-created from
@@ -12,10 +13,11 @@ export function dropSecondaryIndexes(sqlite: SQLite.Database): () => void {
     .all() as { type: 'index' | 'trigger'; name: string; sql: string }[];
   for (const { type, name } of saved) sqlite.exec(`drop ${type} "${name}"`);
   return () => {
-    // Indexes first, so a trigger's statements find them; then refill full-text tables and gather statistics.
+    // Indexes first, so a trigger's statements find them; then refill full-text and reliability tables and gather statistics.
     for (const { sql } of saved.filter((s) => s.type === 'index')) sqlite.exec(sql);
     for (const { sql } of saved.filter((s) => s.type === 'trigger')) sqlite.exec(sql);
     for (const name of fullText) sqlite.exec(`insert into "${name}"("${name}") values ('rebuild')`);
+    sqlite.exec(REFILL_UNIT_EXPOSURE);
     sqlite.pragma('analysis_limit = 1000');
     sqlite.exec('analyze');
     sqlite.pragma('optimize');

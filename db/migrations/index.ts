@@ -17,6 +17,7 @@ import * as addSearchPlaces from './015-add-search-places.ts';
 import * as indexClaimFilters from './016-index-claim-filters.ts';
 import * as indexLocationStatusSorts from './017-index-location-status-sorts.ts';
 import * as addClaimCatalogItems from './018-add-claim-catalog-items.ts';
+import * as createUnitExposure from './019-create-unit-exposure.ts';
 
 /** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
 export const migrations: Record<string, Migration> = {
@@ -38,4 +39,5 @@ export const migrations: Record<string, Migration> = {
   '016-index-claim-filters': indexClaimFilters,
   '017-index-location-status-sorts': indexLocationStatusSorts,
   '018-add-claim-catalog-items': addClaimCatalogItems,
+  '019-create-unit-exposure': createUnitExposure,
 };

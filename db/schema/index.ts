@@ -17,6 +17,7 @@ import type { PowerPlansTable } from './power-plans.ts';
 import type { RegionsTable } from './regions.ts';
 import type { RoleAssignmentsTable } from './role-assignments.ts';
 import type { SessionsTable } from './sessions.ts';
+import type { UnitExposureTable, PlanMarginsTable } from './unit-exposure.ts';
 import type { UsersTable } from './users.ts';
 
 export interface Database {
@@ -40,4 +41,6 @@ export interface Database {
   warrantyClaims: WarrantyClaimsTable;
   claimEvents: ClaimEventsTable;
   claimEvidence: ClaimEvidenceTable;
+  unitExposure: UnitExposureTable;
+  planMargins: PlanMarginsTable;
 }

@@ -122,3 +122,53 @@ describe('weibullFit', () => {
     expect(() => weibullFit([{ time: -3, failed: true }])).toThrow(/observations\[0\]\.time must be/);
   });
 });
+
+describe('grouped observations', () => {
+  // A group of `count` units sharing a time and outcome must weigh exactly as many single units.
+  const groups = fc.array(fc.record({ time: fc.integer({ min: 1, max: 60 }), failed: fc.boolean(), count: fc.integer({ min: 1, max: 6 }) }), {
+    minLength: 1,
+    maxLength: 30,
+  });
+  const expand = (grouped: SurvivalObservation[]) => grouped.flatMap(({ time, failed, count = 1 }) => Array.from({ length: count }, () => ({ time, failed })));
+
+  it('give the Kaplan–Meier curve of the same units one by one', () => {
+    fc.assert(
+      fc.property(groups, (grouped) => {
+        const single = kaplanMeier(expand(grouped));
+        kaplanMeier(grouped).forEach((row, i) => {
+          expect(row.atRisk).toBe(single[i]!.atRisk);
+          expect(row.events).toBe(single[i]!.events);
+          expect(row.survival).toBeCloseTo(single[i]!.survival, 12);
+          expect(row.lower).toBeCloseTo(single[i]!.lower, 12);
+        });
+      }),
+      runs,
+    );
+  });
+
+  it('give the Weibull fit of the same units one by one', () => {
+    fc.assert(
+      fc.property(fc.integer({ min: 1, max: 1_000 }), (seed) => {
+        const units = simulate(1.3, 30, 40, 80, seed).map((u) => ({ ...u, time: Math.ceil(u.time) }));
+        const groups = new Map<string, SurvivalObservation>();
+        for (const u of units) {
+          const group = groups.get(`${u.time}:${u.failed}`);
+          if (group) group.count = (group.count ?? 1) + 1;
+          else groups.set(`${u.time}:${u.failed}`, { ...u, count: 1 });
+        }
+        const grouped = [...groups.values()];
+        const fit = weibullFit(units);
+        const groupedFit = weibullFit(grouped);
+        expect(groupedFit.shape).toBeCloseTo(fit.shape, 9);
+        expect(groupedFit.scale).toBeCloseTo(fit.scale, 7);
+        expect(groupedFit.logLikelihood).toBeCloseTo(fit.logLikelihood, 7);
+      }),
+      { seed: 10_013, numRuns: 40 },
+    );
+  });
+
+  it('refuse a count that is not a whole number of 1 or more', () => {
+    expect(() => kaplanMeier([{ time: 2, failed: true, count: 0 }])).toThrow(/observations\[0\]\.count must be a whole number/);
+    expect(() => weibullFit([{ time: 2, failed: true, count: 1.5 }])).toThrow(/count must be a whole number/);
+  });
+});

@@ -1,5 +1,5 @@
 import { standardNormalQuantile, tailOf } from './quantiles.ts';
-import { checkObservations, type SurvivalObservation } from './survival-data.ts';
+import { checkObservations, unitsOf, type SurvivalObservation } from './survival-data.ts';
 
 export interface SurvivalRow {
   time: number;
@@ -15,7 +15,7 @@ export interface SurvivalRow {
  * Kaplan–Meier product-limit survival at each distinct failure time (Kaplan & Meier 1958, JASA 53:457–481),
  * Greenwood's standard error, and the log-log band S^exp(±z·σ/ln S) with σ² = Σ d/(n(n − d))
  * (Klein & Moeschberger, Survival Analysis, 2nd ed. 2003, §4.3), which stays inside [0, 1].
- * A unit censored at a failure time counts as still at risk then.
+ * A unit censored at a failure time counts as still at risk then; a grouped observation counts as its units.
  */
 export function kaplanMeier(observations: readonly SurvivalObservation[], options: { confidence?: number } = {}): SurvivalRow[] {
   const { confidence = 0.95 } = options;
@@ -25,12 +25,19 @@ export function kaplanMeier(observations: readonly SurvivalObservation[], option
   const rows: SurvivalRow[] = [];
   let survival = 1;
   let greenwoodSum = 0;
+  let remaining = sorted.reduce((sum, o) => sum + unitsOf(o), 0);
   let index = 0;
   while (index < sorted.length) {
     const time = sorted[index]!.time;
-    const atRisk = sorted.length - index;
     let events = 0;
-    for (; index < sorted.length && sorted[index]!.time === time; index++) if (sorted[index]!.failed) events++;
+    let leaving = 0;
+    for (; index < sorted.length && sorted[index]!.time === time; index++) {
+      const units = unitsOf(sorted[index]!);
+      leaving += units;
+      if (sorted[index]!.failed) events += units;
+    }
+    const atRisk = remaining;
+    remaining -= leaving;
     if (events === 0) continue;
     survival *= 1 - events / atRisk;
     if (events < atRisk) greenwoodSum += events / (atRisk * (atRisk - events));

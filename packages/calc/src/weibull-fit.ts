@@ -1,4 +1,4 @@
-import { checkObservations, type SurvivalObservation } from './survival-data.ts';
+import { checkObservations, unitsOf, type SurvivalObservation } from './survival-data.ts';
 import { weibullShapeRoot } from './weibull-shape.ts';
 
 export interface WeibullFit {
@@ -26,15 +26,14 @@ export function weibullFit(observations: readonly SurvivalObservation[]): Weibul
   }
   // Times relative to the longest keep t^β within [0, 1] for any shape; the shape does not change.
   const longest = observations.reduce((most, o) => Math.max(most, o.time), 0);
-  const logTimes = observations.map((o) => Math.log(o.time / longest));
-  const failedLogTimes = logTimes.filter((_, i) => observations[i]!.failed);
-  const failures = failedLogTimes.length;
-  const shape = weibullShapeRoot(logTimes, failedLogTimes);
-  const powerSum = logTimes.reduce((sum, logT) => sum + Math.exp(shape * logT), 0);
-  const relativeScale = (powerSum / failures) ** (1 / shape);
-  const scale = relativeScale * longest;
+  const all = observations.map((o) => ({ logTime: Math.log(o.time / longest), units: unitsOf(o) }));
+  const failed = all.filter((_, i) => observations[i]!.failed);
+  const failures = failed.reduce((sum, f) => sum + f.units, 0);
+  const shape = weibullShapeRoot(all, failed);
+  const powerSum = all.reduce((sum, u) => sum + u.units * Math.exp(shape * u.logTime), 0);
+  const scale = (powerSum / failures) ** (1 / shape) * longest;
   // Σ_failed [ln β − β ln η + (β − 1) ln t] − Σ_all (t/η)^β, with Σ_all (t/η)^β = r at the optimum.
-  const failedLogSum = failedLogTimes.reduce((sum, logT) => sum + logT + Math.log(longest), 0);
+  const failedLogSum = failed.reduce((sum, f) => sum + f.units * (f.logTime + Math.log(longest)), 0);
   const logLikelihood = failures * (Math.log(shape) - shape * Math.log(scale)) + (shape - 1) * failedLogSum - failures;
   return { shape, scale, logLikelihood };
 }

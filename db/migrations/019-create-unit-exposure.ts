@@ -1,0 +1,96 @@
+import { sql, type Kysely } from 'kysely';
+
+/**
+ * Reliability counts kept current: `unit_exposure` holds, per catalog item, location, install
+ * month and design-margin bands, the units installed, the sum of their install days, and the
+ * failures among them with the sums of their install and failure days. From those the time in
+ * service of every unit (from install until failure, or until today) is exact for any day:
+ * Σ(failed day − install day) over failures + Σ(today − install day) over the rest.
+ *
+ * A unit is a line of a delivered build, counted by its quantity, installed the later of the day
+ * the build was delivered and the day the line was added (a replacement or a correction after
+ * delivery starts its life on its own day). Days are UTC calendar days of those times. A failure is
+ * a warranty claim on the unit. `plan_margins` holds the bands of a build's power plan (1 is the
+ * most margin, 4 past the limit; 0 no plan), filled by the API whenever a build's plan changes.
+ *
+ * Triggers keep the table current the way the search indexes are (migration 015): before a change,
+ * take the rows concerned out as the source views show them; after it, put them back.
+ */
+const DAY = (date: string) => `cast(julianday(${date}) - 2440587.5 as integer)`;
+
+const UNIT_SOURCE = `select i.id as build_item_id, i.build_id, i.catalog_item_id, b.location_id, i.quantity,
+    max(date(b.delivered_at), substr(i.created_at, 1, 10)) as installed_on,
+    coalesce(m.drop_band, 0) as drop_band, coalesce(m.load_band, 0) as load_band, coalesce(m.discharge_band, 0) as discharge_band
+  from build_items i join builds b on b.id = i.build_id left join plan_margins m on m.build_id = b.id
+  where b.status = 'delivered' and b.delivered_at is not null`;
+
+const FAILURE_SOURCE = `select c.id as claim_id, u.build_item_id, u.build_id, u.catalog_item_id, u.location_id, u.installed_on,
+    u.drop_band, u.load_band, u.discharge_band, c.failed_on, 1 - c.out_of_warranty as in_warranty
+  from warranty_claims c join installed_unit_source u on u.build_item_id = c.build_item_id`;
+
+const KEY = 'catalog_item_id, location_id, installed_month, drop_band, load_band, discharge_band';
+const COUNTS = ['units', 'installed_day_sum', 'failures', 'failed_installed_day_sum', 'failed_day_sum', 'warranty_failures'];
+
+/** Adds (sign 1) or takes out (sign −1) the units and the failures of the source rows `where` picks. */
+function change(sign: 1 | -1, where: string, what: 'units' | 'failures' | 'both'): string {
+  const upsert = `on conflict (${KEY}) do update set ${COUNTS.map((c) => `${c} = ${c} + excluded.${c}`).join(', ')};`;
+  const units = `insert into unit_exposure (${KEY}, ${COUNTS.join(', ')})
+    select catalog_item_id, location_id, substr(installed_on, 1, 7), drop_band, load_band, discharge_band,
+      ${sign} * sum(quantity), ${sign} * sum(quantity * ${DAY('installed_on')}), 0, 0, 0, 0
+    from installed_unit_source where ${where} group by 1, 2, 3, 4, 5, 6 ${upsert}`;
+  const failures = `insert into unit_exposure (${KEY}, ${COUNTS.join(', ')})
+    select catalog_item_id, location_id, substr(installed_on, 1, 7), drop_band, load_band, discharge_band,
+      0, 0, ${sign} * count(*), ${sign} * sum(${DAY('installed_on')}), ${sign} * sum(${DAY('failed_on')}), ${sign} * sum(in_warranty)
+    from failed_unit_source where ${where} group by 1, 2, 3, 4, 5, 6 ${upsert}`;
+  return what === 'units' ? units : what === 'failures' ? failures : `${units}\n${failures}`;
+}
+
+/** [name, timing and event, sign, which source rows, what they carry] */
+const TRIGGERS: [string, string, 1 | -1, string, 'units' | 'failures' | 'both'][] = [
+  ['unit_exposure_item_insert', 'after insert on build_items', 1, 'build_item_id = new.id', 'units'],
+  ['unit_exposure_item_before_update', 'before update of quantity, catalog_item_id, build_id, created_at on build_items', -1, 'build_item_id = old.id', 'both'],
+  ['unit_exposure_item_after_update', 'after update of quantity, catalog_item_id, build_id, created_at on build_items', 1, 'build_item_id = new.id', 'both'],
+  ['unit_exposure_item_delete', 'before delete on build_items', -1, 'build_item_id = old.id', 'both'],
+  ['unit_exposure_build_before_update', 'before update of status, delivered_at, location_id on builds', -1, 'build_id = old.id', 'both'],
+  ['unit_exposure_build_after_update', 'after update of status, delivered_at, location_id on builds', 1, 'build_id = new.id', 'both'],
+  ['unit_exposure_margin_before_insert', 'before insert on plan_margins', -1, 'build_id = new.build_id', 'both'],
+  ['unit_exposure_margin_after_insert', 'after insert on plan_margins', 1, 'build_id = new.build_id', 'both'],
+  ['unit_exposure_margin_before_update', 'before update on plan_margins', -1, 'build_id = old.build_id', 'both'],
+  ['unit_exposure_margin_after_update', 'after update on plan_margins', 1, 'build_id = new.build_id', 'both'],
+  ['unit_exposure_margin_before_delete', 'before delete on plan_margins', -1, 'build_id = old.build_id', 'both'],
+  ['unit_exposure_margin_after_delete', 'after delete on plan_margins', 1, 'build_id = old.build_id', 'both'],
+  ['unit_exposure_claim_insert', 'after insert on warranty_claims', 1, 'claim_id = new.id', 'failures'],
+  ['unit_exposure_claim_before_update', 'before update of build_item_id, failed_on, out_of_warranty on warranty_claims', -1, 'claim_id = old.id', 'failures'],
+  ['unit_exposure_claim_after_update', 'after update of build_item_id, failed_on, out_of_warranty on warranty_claims', 1, 'claim_id = new.id', 'failures'],
+  ['unit_exposure_claim_delete', 'before delete on warranty_claims', -1, 'claim_id = old.id', 'failures'],
+];
+
+/** Empties and refills `unit_exposure` from its sources (after a bulk load that ran without triggers). */
+export const REFILL_UNIT_EXPOSURE = `delete from unit_exposure;\n${change(1, 'true', 'both')}`;
+
+export async function up(db: Kysely<any>): Promise<void> {
+  await sql`create table plan_margins (
+    build_id integer primary key references builds (id) on delete cascade,
+    drop_band integer not null check (drop_band between 1 and 4),
+    load_band integer not null check (load_band between 1 and 4),
+    discharge_band integer not null check (discharge_band between 1 and 4)
+  )`.execute(db);
+  await sql`create table unit_exposure (
+    catalog_item_id integer not null, location_id integer not null, installed_month text not null,
+    drop_band integer not null, load_band integer not null, discharge_band integer not null,
+    ${sql.raw(COUNTS.map((c) => `${c} integer not null`).join(', '))},
+    primary key (${sql.raw(KEY)})
+  ) without rowid`.execute(db);
+  await sql.raw(`create view installed_unit_source as ${UNIT_SOURCE}`).execute(db);
+  await sql.raw(`create view failed_unit_source as ${FAILURE_SOURCE}`).execute(db);
+  for (const [name, when, sign, where, what] of TRIGGERS) await sql.raw(`create trigger ${name} ${when} begin ${change(sign, where, what)} end`).execute(db);
+  for (const statement of REFILL_UNIT_EXPOSURE.split(';').filter((s) => s.trim())) await sql.raw(statement).execute(db);
+}
+
+export async function down(db: Kysely<any>): Promise<void> {
+  for (const [name] of TRIGGERS) await sql.raw(`drop trigger ${name}`).execute(db);
+  await sql`drop view failed_unit_source`.execute(db);
+  await sql`drop view installed_unit_source`.execute(db);
+  await sql`drop table unit_exposure`.execute(db);
+  await sql`drop table plan_margins`.execute(db);
+}

@@ -1,0 +1,25 @@
+/** Reliability counts per catalog item, location, install month (YYYY-MM) and design-margin bands (migration 019). */
+export interface UnitExposureTable {
+  catalogItemId: number;
+  locationId: number;
+  installedMonth: string;
+  dropBand: number;
+  loadBand: number;
+  dischargeBand: number;
+  units: number;
+  /** Σ quantity × install day (days since 1970-01-01, UTC). */
+  installedDaySum: number;
+  failures: number;
+  failedInstalledDaySum: number;
+  failedDaySum: number;
+  /** Failures within the unit's warranty months. */
+  warrantyFailures: number;
+}
+
+/** How close a build's power plan runs to its limits, in bands: 1 the most margin, 4 past the limit. */
+export interface PlanMarginsTable {
+  buildId: number;
+  dropBand: number;
+  loadBand: number;
+  dischargeBand: number;
+}
