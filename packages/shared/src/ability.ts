@@ -18,6 +18,7 @@ export type Subject =
   | 'Build'
   | 'Claim'
   | 'Report'
+  | 'Reliability'
   | 'Plan';
 
 /** A subject is named by type, or is a record tagged with CASL's `subject(type, row)`. */
@@ -71,6 +72,7 @@ const grantsByRole: Record<Role, (b: Builder, a: RuleAssignment, person: RulePer
     can('read', 'Location', { id: { $in: a.locationIds } });
     can('read', ['Build', 'Customer', 'Vehicle', 'Claim', 'Report', 'Plan'], at);
     can('approve', 'Claim', at);
+    can('read', 'Reliability', at);
     can('read', ['CatalogItem', 'Vendor']);
     can('read', 'RoleAssignment', at);
     can('read', 'RoleAssignment', { regionId: a.regionId });
@@ -83,6 +85,7 @@ const grantsByRole: Record<Role, (b: Builder, a: RuleAssignment, person: RulePer
     can(['read', 'create', 'update'], ['Build', 'Customer', 'Vehicle', 'Claim', 'Plan'], at);
     can('plan', 'Build', at);
     can('send', 'Claim', at);
+    can('read', 'Reliability', at);
     // Up to the location's approval limit; a claim's subject says whether its credit is above it.
     can('approve', 'Claim', { ...at, aboveLimit: { $ne: true } });
     can('read', ['CatalogItem', 'Vendor']);

@@ -13,3 +13,4 @@ export * from './schemas/imports.ts';
 export * from './schemas/plans.ts';
 export * from './schemas/plan-lists.ts';
 export * from './schemas/claims.ts';
+export * from './schemas/reliability.ts';
