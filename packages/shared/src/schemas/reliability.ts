@@ -84,8 +84,9 @@ export interface WatchRow {
   expected: number;
   /** Chance of this many failures or more if it failed like its peers (one-sided Poisson). */
   chance: number;
-  /** Its rate over the peers' rate, with the lower limit of that ratio. */
+  /** Its rate over the peers' rate, and the lower 95 % limit of that ratio (its exact Poisson limit over the peers' rate). */
   ratio: number;
+  ratioLower: number;
   reason: string;
 }
 
