@@ -16,6 +16,7 @@ export {
   type RefillInput,
 } from './batteries.ts';
 export { conductorResistanceOhmsPerM, copperResistanceAt, voltageDrop, type ConductorCondition, type VoltageDrop, type VoltageDropInput } from './conductors.ts';
+export { designMargins, MARGIN_BAND_BOUNDS, marginBand, type DesignMargins, type MarginBand } from './design-margins.ts';
 export { dailyEnergy, dcdcInputA, inverterInputA, type DailyEnergy, type DcdcInput, type EnergyOptions, type InverterInput, type Load } from './energy.ts';
 export { FUSE_MAX_OF_AMPACITY, FUSE_MIN_OF_LOAD, fuseForLoadA, selectFuseA, STANDARD_FUSE_RATINGS_A, type FuseRequest } from './fuses.ts';
 export { evaluatePlan, planVerdict, type EvaluateOptions } from './plan.ts';
