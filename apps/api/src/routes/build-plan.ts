@@ -10,6 +10,7 @@ import { viewerOf } from '../middleware/session.ts';
 import { validate } from '../middleware/validate.ts';
 import { writeAudit } from '../queries/audit.ts';
 import { addBuildEvent } from '../queries/build-changes.ts';
+import { keepPlanMargins } from '../queries/plan-margins.ts';
 import { findBuildPlan, findPlan, insertPlan, planRevisions, revisePlan } from '../queries/plans.ts';
 
 /** A build the person may read, with its plan if it has one they may read. */
@@ -55,6 +56,7 @@ export function buildPlanRouter({ db, now }: AppContext): Router {
         let planId = plan?.id;
         if (planId) await revisePlan(trx, planId, body.version, save);
         else planId = await insertPlan(trx, { buildId: build.id, locationId: build.locationId, name: build.number }, save);
+        await keepPlanMargins(trx, build.id, result);
         if (correction) await addBuildEvent(trx, { buildId: build.id, at: save.at, actorId: viewer.id, kind: 'correction', note: `Power plan: ${save.note}` });
         await writeAudit(trx, {
           at: save.at,

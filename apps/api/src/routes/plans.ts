@@ -11,6 +11,7 @@ import { validate } from '../middleware/validate.ts';
 import { writeAudit } from '../queries/audit.ts';
 import { addBuildEvent } from '../queries/build-changes.ts';
 import { findBuild } from '../queries/builds.ts';
+import { keepPlanMargins } from '../queries/plan-margins.ts';
 import { findBuildPlan, findPlan, insertPlan, listQuickPlans, revisePlan } from '../queries/plans.ts';
 
 const attachedConflict = () => conflict('This plan belongs to a build now; change it on the build');
@@ -85,10 +86,11 @@ export function plansRouter({ db, now }: AppContext): Router {
       if (await findBuildPlan(db, build.id)) throw conflict(`Build ${build.number} already has a power plan`, { buildId: 'This build already has a power plan' });
       // Evaluated again, as with every save, so inputs today's computation refuses are not attached.
       const input = JSON.parse(plan.input) as PlanInput;
-      evaluateInput(input);
+      const result = evaluateInput(input);
       await db.transaction().execute(async (trx) => {
         const save = { at: now().toISOString(), actorId: viewer.id, input, note: `Attached to ${build.number}` };
         await revisePlan(trx, plan.id, body.version, save, { buildId: build.id });
+        await keepPlanMargins(trx, build.id, result);
         if (correction) await addBuildEvent(trx, { buildId: build.id, at: save.at, actorId: viewer.id, kind: 'correction', note: afterDelivery });
         const after = { buildId: build.id, version: body.version + 1, note: save.note };
         await writeAudit(trx, { at: save.at, actorId: viewer.id, action: 'plan.attach', entity: 'plan', entityId: plan.id, before: { buildId: null, version: plan.version }, after });
