@@ -162,6 +162,19 @@ export const router = createRouter({
           meta: { action: 'read', subject: 'Claim', title: 'Claim' },
         },
         {
+          path: 'reliability',
+          name: 'reliability',
+          component: () => import('./views/reliability/ReliabilityList.vue'),
+          meta: { action: 'read', subject: 'Reliability', title: 'Component reliability' },
+        },
+        {
+          path: 'reliability/:groupBy(item|category|vendor)/:key',
+          name: 'reliability-detail',
+          component: () => import('./views/reliability/ReliabilityDetail.vue'),
+          props: (route) => ({ groupBy: route.params.groupBy, groupKey: route.params.key }),
+          meta: { action: 'read', subject: 'Reliability', title: 'Component reliability' },
+        },
+        {
           path: 'locations',
           name: 'locations',
           component: () => import('./views/locations/LocationList.vue'),

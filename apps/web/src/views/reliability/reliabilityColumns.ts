@@ -1,0 +1,19 @@
+import type { ReliabilityGroup, ReliabilityRow } from '@busbar/shared';
+import type { TableColumnsType } from 'ant-design-vue';
+import { GROUP_LABELS } from './reliabilityFilters.ts';
+
+type Figure = (row: ReliabilityRow) => number | null | undefined;
+/** Sorts by a figure; rows without one sort below every figure. */
+const by = (figure: Figure) => (a: ReliabilityRow, b: ReliabilityRow) => (figure(a) ?? -1) - (figure(b) ?? -1);
+
+/** The reliability list's columns, each sortable in the browser (the API answers every row at once). */
+export function reliabilityColumns(groupBy: ReliabilityGroup): TableColumnsType<ReliabilityRow> {
+  return [
+    { key: 'label', title: GROUP_LABELS[groupBy], width: 260, sorter: (a, b) => a.label.localeCompare(b.label) },
+    { key: 'units', title: 'Units', align: 'right', width: 90, sorter: by((r) => r.units) },
+    { key: 'unitMonths', title: 'Unit-months', align: 'right', width: 120, sorter: by((r) => r.unitMonths) },
+    { key: 'failures', title: 'Failures', align: 'right', width: 90, sorter: by((r) => r.failures) },
+    { key: 'rate', title: 'Failures per 1,000 unit-months', align: 'right', width: 190, sorter: by((r) => r.rate?.estimate) },
+    { key: 'warranty', title: 'Failed within warranty', align: 'right', width: 190, sorter: by((r) => r.warranty?.estimate) },
+  ];
+}

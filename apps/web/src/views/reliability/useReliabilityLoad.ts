@@ -1,0 +1,32 @@
+import { ref, shallowRef, watch } from 'vue';
+import { ApiError, messageOf } from '../../api/client.ts';
+
+/**
+ * One answer loaded again whenever its request (the address bar's filters) changes; an answer that
+ * arrives after a newer request is dropped. `notFound` is said for a 404 in the page's own words.
+ */
+export function useReliabilityLoad<T>(requestKey: () => string, fetch: () => Promise<T>, notFound: string) {
+  const data = shallowRef<T | null>(null);
+  const loading = ref(true);
+  const error = ref<string | null>(null);
+  let latest = 0;
+
+  async function load() {
+    const ticket = ++latest;
+    loading.value = true;
+    error.value = null;
+    try {
+      const answer = await fetch();
+      if (ticket === latest) data.value = answer;
+    } catch (failure) {
+      if (ticket !== latest) return;
+      data.value = null;
+      error.value = failure instanceof ApiError && failure.status === 404 ? notFound : messageOf(failure);
+    } finally {
+      if (ticket === latest) loading.value = false;
+    }
+  }
+  watch(requestKey, load, { immediate: true });
+
+  return { data, loading, error, load };
+}
