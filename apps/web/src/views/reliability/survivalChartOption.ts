@@ -10,10 +10,10 @@ export type SurvivalChartOption = ComposeOption<LineSeriesOption | GridComponent
 /** The curve starts at every unit working, at month 0. */
 const START: SurvivalPoint = { months: 0, atRisk: 0, failures: 0, survival: 1, lower: 1, upper: 1 };
 
-/** The lowest tenth the band reaches, so the drop shows instead of a flat line near the top. */
+/** The tenth at or below the band's lowest point (90 % at most), so a small drop shows instead of a flat line near the top. */
 export function survivalFloor(points: SurvivalPoint[]): number {
-  const lowest = Math.min(1, ...points.map((p) => p.lower));
-  return Math.max(0, Math.floor(lowest * 10 - 1e-9) / 10);
+  const lowest = Math.min(0.9, ...points.map((p) => p.lower));
+  return Math.max(0, Math.floor(lowest * 10) / 10);
 }
 
 /** "12.5 months: 96 % still working (95–97 %), 240 in service" for one step of the curve. */
