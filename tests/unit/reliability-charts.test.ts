@@ -1,7 +1,7 @@
 import type { FunnelLimit, FunnelPoint, SurvivalPoint } from '@busbar/shared';
 import { describe, expect, it } from 'vitest';
 import type { ChartColors } from '../../apps/web/src/views/reliability/chartColors.ts';
-import { funnelChartOption, funnelPointLabel, funnelRateTop } from '../../apps/web/src/views/reliability/funnelChartOption.ts';
+import { funnelChartOption, funnelPointLabel, funnelRateTop, roundUp } from '../../apps/web/src/views/reliability/funnelChartOption.ts';
 import { survivalChartOption, survivalFloor, survivalLabel } from '../../apps/web/src/views/reliability/survivalChartOption.ts';
 
 const colors: ChartColors = {
@@ -40,8 +40,9 @@ describe('survival chart', () => {
     expect(survivalFloor([])).toBe(0.9);
     expect(survivalFloor([{ ...survival[0]!, lower: 0.02 }])).toBe(0);
     const option = survivalChartOption(survival, colors);
-    const y = option.yAxis as { min: number; max: number; axisLabel: { formatter: (n: number) => string } };
-    expect([y.min, y.max, y.axisLabel.formatter(0.85)]).toEqual([0.7, 1, '85 %']);
+    const y = option.yAxis as { min: number; max: number; interval: number; axisLabel: { formatter: (n: number) => string } };
+    expect([y.min, y.max, y.interval, y.axisLabel.formatter(0.85)]).toEqual([0.7, 1, 0.05, '85 %']);
+    expect((survivalChartOption([{ ...survival[0]!, lower: 0.35 }], colors).yAxis as { interval: number }).interval).toBe(0.1);
   });
 
   it('tells a step in words', () => {
@@ -87,10 +88,13 @@ describe('funnel chart', () => {
     ]);
   });
 
-  it('keeps every point on the rate axis, with room above the highest', () => {
-    expect(funnelRateTop(points, 2)).toBeCloseTo(6 * 1.15);
-    expect(funnelRateTop([point({ rate: 1 })], 2)).toBeCloseTo(4 * 1.15);
+  it('keeps every point on the rate axis, with room above the highest, ending on a round figure', () => {
+    expect(funnelRateTop(points, 2)).toBe(10);
+    expect(funnelRateTop([point({ rate: 1 })], 2)).toBe(5);
+    expect(funnelRateTop([point({ rate: 11.3 })], 4.9)).toBe(20);
+    expect(funnelRateTop([point({ rate: 0.2 })], 0.1)).toBe(0.25);
     expect(funnelRateTop([], 0)).toBe(1);
+    expect([roundUp(1), roundUp(2.2), roundUp(4.5), roundUp(7), roundUp(0.031)]).toEqual([1, 2.5, 5, 10, 0.05]);
   });
 
   it('tells a shop in words', () => {

@@ -24,14 +24,22 @@ export function funnelPointLabel(p: FunnelPoint): string {
   return `${pointName(p)}: ${rate(p.rate)} per 1,000 unit-months over ${count(p.unitMonths)} unit-months (${count(p.failures)} ${p.failures === 1 ? 'failure' : 'failures'}). ${FUNNEL_SIGNAL_LABELS[p.signal]}`;
 }
 
+/** The smallest of 1, 2, 2.5, 5 and 10 times a power of ten at or above `value`, so the axis ends on a round figure. */
+export function roundUp(value: number): number {
+  const power = 10 ** Math.floor(Math.log10(value));
+  return [1, 2, 2.5, 5, 10].map((step) => step * power).find((top) => top >= value * (1 - 1e-12))!;
+}
+
 /**
  * The top of the rate axis: every point and the network's rate with room to spare. The limits
  * near zero exposure run off the top; drawing them all would flatten the points.
  */
 export function funnelRateTop(points: FunnelPoint[], networkRate: number): number {
   const highest = Math.max(networkRate * 2, ...points.map((p) => p.rate));
-  return highest > 0 ? highest * 1.15 : 1;
+  return highest > 0 ? roundUp(highest * 1.1) : 1;
 }
+
+const compact = new Intl.NumberFormat('en-US', { notation: 'compact', maximumFractionDigits: 1 });
 
 const LIMITS = [
   { key: 'upper998', name: '99.8 % limits', dashed: true },
@@ -53,7 +61,6 @@ export function funnelChartOption(points: FunnelPoint[], limits: FunnelLimit[], 
     name: limit.name,
     showSymbol: false,
     silent: true,
-    smooth: true,
     lineStyle: { width: 1.5, color: colors.muted, type: limit.dashed ? 'dashed' : 'solid' },
     data: exposures.map((l) => [l.unitMonths, Math.max(0, l[limit.key])]),
   }));
@@ -72,8 +79,8 @@ export function funnelChartOption(points: FunnelPoint[], limits: FunnelLimit[], 
     textStyle: { fontFamily: colors.font, color: colors.text },
     grid: { left: 56, right: 40, top: 16, bottom: 48 },
     tooltip: { trigger: 'item' },
-    xAxis: { type: 'value', min: 0, name: 'Unit-months in service', nameLocation: 'middle', nameGap: 30, axisLabel: { formatter: (n: number) => count(n) } },
-    yAxis: { type: 'value', min: 0, max: top, name: 'Failures per 1,000 unit-months', nameLocation: 'middle', nameGap: 40, axisLabel: { formatter: (n: number) => rate(n) } },
+    xAxis: { type: 'value', min: 0, name: 'Unit-months in service', nameLocation: 'middle', nameGap: 30, axisLabel: { formatter: (n: number) => compact.format(n), hideOverlap: true } },
+    yAxis: { type: 'value', min: 0, max: top, name: 'Failures per 1,000 unit-months', nameLocation: 'middle', nameGap: 40, axisLabel: { formatter: (n: number) => compact.format(n) } },
     series: [
       ...limitSeries,
       {

@@ -6,10 +6,14 @@ type Figure = (row: ReliabilityRow) => number | null | undefined;
 /** Sorts by a figure; rows without one sort below every figure. */
 const by = (figure: Figure) => (a: ReliabilityRow, b: ReliabilityRow) => (figure(a) ?? -1) - (figure(b) ?? -1);
 
-/** The reliability list's columns, each sortable in the browser (the API answers every row at once). */
-export function reliabilityColumns(groupBy: ReliabilityGroup): TableColumnsType<ReliabilityRow> {
+/**
+ * The reliability list's columns, each sortable in the browser (the API answers every row at once).
+ * A phone gets one column that stacks the figures under the name, sorted by rate.
+ */
+export function reliabilityColumns(groupBy: ReliabilityGroup, narrow: boolean): TableColumnsType<ReliabilityRow> {
+  if (narrow) return [{ key: 'summary', title: `${GROUP_LABELS[groupBy]} and failures per 1,000 unit-months`, sorter: by((r) => r.rate?.estimate) }];
   return [
-    { key: 'label', title: GROUP_LABELS[groupBy], width: 260, sorter: (a, b) => a.label.localeCompare(b.label) },
+    { key: 'label', title: GROUP_LABELS[groupBy], width: 300, sorter: (a, b) => a.label.localeCompare(b.label) },
     { key: 'units', title: 'Units', align: 'right', width: 90, sorter: by((r) => r.units) },
     { key: 'unitMonths', title: 'Unit-months', align: 'right', width: 120, sorter: by((r) => r.unitMonths) },
     { key: 'failures', title: 'Failures', align: 'right', width: 90, sorter: by((r) => r.failures) },

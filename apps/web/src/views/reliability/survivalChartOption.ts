@@ -29,6 +29,7 @@ export function survivalLabel(p: SurvivalPoint): string {
 export function survivalChartOption(points: SurvivalPoint[], colors: ChartColors, animate = true): SurvivalChartOption {
   const steps = [START, ...points];
   const step = 'end' as const;
+  const floor = survivalFloor(points);
   return {
     animation: animate,
     textStyle: { fontFamily: colors.font, color: colors.text },
@@ -44,8 +45,10 @@ export function survivalChartOption(points: SurvivalPoint[], colors: ChartColors
     xAxis: { type: 'value', min: 0, name: 'Months in service', nameLocation: 'middle', nameGap: 30 },
     yAxis: {
       type: 'value',
-      min: survivalFloor(points),
+      min: floor,
       max: 1,
+      // Ticks on round percentages: every 5 % over a short range, every 10 % over a long one.
+      interval: 1 - floor < 0.35 ? 0.05 : 0.1,
       name: 'Still working',
       nameLocation: 'middle',
       nameGap: 42,
