@@ -1,7 +1,7 @@
 import { addMonthsIso, dayOfIso, isoDay, localDay } from '@busbar/calc';
 import type { Category, ClaimStatus, Coverage, FailureMode } from '@busbar/shared';
 import { between, chance, weighted, type Random } from './draw.ts';
-import { FAILURE_RATES, FOUND_HOW, SKU_FAILURE_RATES, SYMPTOMS, VENDOR_MODES, WORKMANSHIP, WORKMANSHIP_FACTOR, BAD_BATCH, yearsToFailure } from './claims-rates.ts';
+import { FAILURE_RATES, FOUND_HOW, SKU_FAILURE_RATES, SYMPTOMS, VENDOR_MODES, WORKMANSHIP, WORKMANSHIP_FACTOR, BAD_BATCH, TIGHT_DESIGN_FACTOR, yearsToFailure } from './claims-rates.ts';
 import { claimAnswer, laterAt } from './claims-answer.ts';
 import { pick } from './random.ts';
 
@@ -62,16 +62,17 @@ export interface ClaimDraft {
 const YEAR_MS = 365.25 * 86_400_000;
 const GOODWILL_ASKED_DAYS = 183;
 
-/** When a unit fails (the sooner of its own failure and a loose connection of the shop's), or null for a category that does not. */
+/** When a unit fails (the sooner of its own failure and a loose connection of the shop's, likelier on a build planned past its limits), or null for a category that does not. */
 export function failureAt(
   random: Random,
-  unit: { sku: string; category: Category; deliveredAt: number; inBadBatch: boolean },
+  unit: { sku: string; category: Category; deliveredAt: number; inBadBatch: boolean; tightDesign: boolean },
   shop: ClaimShop,
 ): { at: number; workmanship: boolean } | null {
   const rate = SKU_FAILURE_RATES[unit.sku] ?? FAILURE_RATES[unit.category];
   if (!rate) return null;
   const own = yearsToFailure(random, unit.inBadBatch ? BAD_BATCH.rate : rate);
-  const loose = unit.category === 'solar_panel' ? Infinity : yearsToFailure(random, WORKMANSHIP, WORKMANSHIP_FACTOR[shop.code] ?? 1);
+  const hazard = (WORKMANSHIP_FACTOR[shop.code] ?? 1) * (unit.tightDesign ? TIGHT_DESIGN_FACTOR : 1);
+  const loose = unit.category === 'solar_panel' ? Infinity : yearsToFailure(random, WORKMANSHIP, hazard);
   return { at: unit.deliveredAt + Math.min(own, loose) * YEAR_MS, workmanship: loose < own };
 }
 

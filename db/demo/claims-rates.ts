@@ -39,6 +39,13 @@ export const WORKMANSHIP: Weibull = { shape: 0.5, firstYearShare: 0.008 };
 export const WORKMANSHIP_FACTOR: Readonly<Record<string, number>> = { AUS: 8 };
 
 /**
+ * Units on builds whose power plan runs a conductor past its allowed voltage drop or its amperage
+ * (drop or load band 4, plans.ts) come loose or burn at their connections about four times as often
+ * (hazard × 4, on top of the shop's own factor): a hot conductor loosens its terminals.
+ */
+export const TIGHT_DESIGN_FACTOR = 4;
+
+/**
  * The bad batch: TDW-DC40 chargers made in three months about a year before the clock (the
  * year and month of manufacture are the serial's first digits, so the batch is one range of
  * serial numbers) fail early and often.

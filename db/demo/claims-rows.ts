@@ -58,7 +58,8 @@ export function claimMaker(random: Random, { shops, catalog, firstId, nowMs, eve
   const badPrefixes = badBatch ? badBatchPrefixes(badBatch.serialPrefix, nowMs) : [];
   let pending: { draft: ClaimDraft; line: Line }[] = [];
 
-  function add(rows: HistoryRows): void {
+  /** `tightBuilds`: builds whose plan runs a conductor past its limits (plans.ts), whose connections fail more often. */
+  function add(rows: HistoryRows, tightBuilds: ReadonlySet<number> = new Set()): void {
     const delivered = new Map(rows.builds.filter((b) => b.deliveredAt).map((b) => [b.id!, { locationId: b.locationId, at: Date.parse(b.deliveredAt!) }]));
     // Fresh objects with every field: adding fields to the generated ones one by one is far slower.
     const lines = rows.buildItems.map((line) => ({ id: nextItemId++, ...line, removedOn: null as string | null }));
@@ -69,7 +70,8 @@ export function claimMaker(random: Random, { shops, catalog, firstId, nowMs, eve
       if (!build || !item) continue;
       const shop = shops.get(build.locationId)!;
       const inBadBatch = line.sku === BAD_BATCH.sku && badPrefixes.some((p) => line.serialNumber!.startsWith(p));
-      const failure = failureAt(random, { sku: line.sku, category: item.category, deliveredAt: build.at, inBadBatch }, shop);
+      const tightDesign = tightBuilds.has(line.buildId);
+      const failure = failureAt(random, { sku: line.sku, category: item.category, deliveredAt: build.at, inBadBatch, tightDesign }, shop);
       if (!failure || failure.at > nowMs) continue;
       const { category, warrantyMonths, rmaEmail } = item;
       const unit = { category, warrantyMonths, rmaEmail, itemId: line.id, buildId: line.buildId, catalogItemId: line.catalogItemId, sku: line.sku, serialNumber: line.serialNumber!, unitCostCents: line.unitCostCents, deliveredAt: build.at };

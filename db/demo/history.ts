@@ -14,6 +14,9 @@
  * - Tidewell Relay 40 A chargers (TDW-DC40) made 12 to 10 months before the clock are a bad batch:
  *   serial numbers TW<yymm>- of those three months (TW2506- to TW2508- with the clock in June
  *   2026) fail several times as often as the item's other serials.
+ * - About two in three delivered builds with a house battery and a DC-DC charger carry a power plan
+ *   (plans.ts), in every design-margin band; units on builds whose plan runs a conductor past its
+ *   allowed drop or its amperage come loose or burn at their connections about four times as often.
  * - Electronics fail early, batteries and compressors wear out. Within two years nearly only the
  *   flooded battery (NVB-FLD115, 12 months) outlives its warranty: those come back as goodwill,
  *   logged by the lead. Claims reach every status by the clock.
@@ -26,6 +29,7 @@ import { DEMO_AREAS, type Area } from './customers.ts';
 import { claimContext } from './claims-context.ts';
 import { claimMaker } from './claims-rows.ts';
 import { insertInChunks, nextIds } from './insert.ts';
+import { PLAN_STREAM, planMaker } from './plans.ts';
 import { LOCATION_PROFILES, type LocationProfile } from './profiles.ts';
 import { seededRandom } from './random.ts';
 import { simulateShop, type Shop } from './shop-history.ts';
@@ -83,13 +87,19 @@ export async function seedDemoHistory(db: Db, options: HistoryOptions): Promise<
   const shops = await loadShops(db, LOCATION_PROFILES, DEMO_AREAS);
   const catalog = await insertCatalog(db);
   const simulated = shops.map((shop) => simulateShop(random, shop, nowMs));
-  const rows = historyRows(random, { builds: simulated.flatMap((s) => s.builds) }, catalog, await nextIds(db), nowMs);
+  const firstId = await nextIds(db);
+  const rows = historyRows(random, { builds: simulated.flatMap((s) => s.builds) }, catalog, firstId, nowMs);
+  const plans = planMaker(seededRandom(options.seed ^ PLAN_STREAM), firstId.plan)(rows);
   const claims = claimMaker(seededRandom(options.seed ^ CLAIM_STREAM), { ...(await claimContext(db, catalog, nowMs)), everyStatus: true });
-  claims.add(rows);
+  claims.add(rows, plans.tightBuilds);
   const claimRows = claims.flush(Infinity);
   await insertInChunks(db, 'customers', rows.customers);
   await insertInChunks(db, 'vehicles', rows.vehicles);
   await insertInChunks(db, 'builds', rows.builds);
+  // Margins before the lines, so their triggers find no units yet to move.
+  await insertInChunks(db, 'powerPlans', plans.powerPlans);
+  await insertInChunks(db, 'powerPlanRevisions', plans.powerPlanRevisions);
+  await insertInChunks(db, 'planMargins', plans.planMargins);
   await insertInChunks(db, 'buildItems', [...rows.buildItems, ...claimRows.buildItems]);
   await insertInChunks(db, 'buildEvents', [...rows.buildEvents, ...claimRows.buildEvents]);
   await insertInChunks(db, 'warrantyClaims', claimRows.warrantyClaims);

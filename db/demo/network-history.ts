@@ -1,8 +1,8 @@
 /**
- * A network of any size with the demo's kind of history (shop-history.ts, history-rows.ts) and
- * warranty claims (claims-rows.ts, no evidence files), for measuring Busbar at scale: streamed a
- * week at a time into SQLite through prepared statements, one transaction a week, with the
- * secondary indexes built once at the end (bulk.ts).
+ * A network of any size with the demo's kind of history (shop-history.ts, history-rows.ts), power
+ * plans (plans.ts) and warranty claims (claims-rows.ts, no evidence files), for measuring Busbar at
+ * scale: streamed a week at a time into SQLite through prepared statements, one transaction a week,
+ * with the secondary indexes built once at the end (bulk.ts).
  */
 import SQLite from 'better-sqlite3';
 import { migrateToLatest, openDatabase } from '../connect.ts';
@@ -13,6 +13,7 @@ import { seedDemoNetwork } from './generate.ts';
 import { historyRowMaker, type HistoryRows } from './history-rows.ts';
 import { CLAIM_STREAM, insertCatalog, loadShops } from './history.ts';
 import { nextIds } from './insert.ts';
+import { PLAN_STREAM, planMaker, type PlanRows } from './plans.ts';
 import { generateNetwork } from './network-shops.ts';
 import { seededRandom } from './random.ts';
 import { shopDays, type SimBuild, type SimCustomer } from './shop-history.ts';
@@ -38,11 +39,13 @@ export interface NetworkCounts {
   auditLog: number;
   warrantyClaims: number;
   claimEvents: number;
+  powerPlans: number;
 }
 
 const DAYS_PER_BATCH = 7;
 const TABLES = ['customers', 'vehicles', 'builds', 'buildItems', 'buildEvents', 'auditLog'] as const satisfies readonly (keyof HistoryRows)[];
 const CLAIM_TABLES = ['buildItems', 'buildEvents', 'warrantyClaims', 'claimEvents'] as const satisfies readonly (keyof ClaimRows)[];
+const PLAN_TABLES = ['powerPlans', 'powerPlanRevisions', 'planMargins'] as const satisfies readonly (keyof PlanRows)[];
 /** A build of a later batch is made at most about a day before the last one of this batch (time zones), so claims logged two days before it are final. */
 const SETTLED_MS = 2 * 86_400_000;
 
@@ -59,6 +62,7 @@ export async function seedNetwork(options: NetworkOptions): Promise<NetworkCount
   const firstId = await nextIds(db);
   const nowMs = options.now.getTime();
   const claims = claimMaker(seededRandom(seed ^ CLAIM_STREAM), await claimContext(db, catalog, nowMs));
+  const makePlans = planMaker(seededRandom(seed ^ PLAN_STREAM), firstId.plan);
   await db.destroy();
 
   const sqlite = new SQLite(options.file);
@@ -69,16 +73,18 @@ export async function seedNetwork(options: NetworkOptions): Promise<NetworkCount
   sqlite.pragma('cache_size = -262144');
   sqlite.pragma('foreign_keys = off');
   const restoreIndexes = dropSecondaryIndexes(sqlite);
-  const tables = [...new Set([...TABLES, ...CLAIM_TABLES])];
+  const tables = [...new Set([...TABLES, ...CLAIM_TABLES, ...PLAN_TABLES])];
   const insert = Object.fromEntries(tables.map((table) => [table, bulkInserter(sqlite, table)])) as Record<(typeof tables)[number], (rows: readonly object[]) => void>;
   // A failed unit's line was written with its build, before its claim came due.
   const markRemoved = sqlite.prepare('update build_items set removed_on = ? where id = ?');
-  const counts: NetworkCounts = { locations: shops.length, customers: 0, vehicles: 0, builds: 0, buildItems: 0, buildEvents: 0, auditLog: 0, warrantyClaims: 0, claimEvents: 0 };
-  const writeWeek = sqlite.transaction((rows: HistoryRows, claimRows: ClaimRows) => {
+  const counts: NetworkCounts = { locations: shops.length, customers: 0, vehicles: 0, builds: 0, buildItems: 0, buildEvents: 0, auditLog: 0, warrantyClaims: 0, claimEvents: 0, powerPlans: 0 };
+  const writeWeek = sqlite.transaction((rows: HistoryRows, claimRows: ClaimRows, plans?: PlanRows) => {
     for (const table of TABLES) {
       insert[table](rows[table]);
       counts[table] += rows[table].length;
     }
+    for (const table of PLAN_TABLES) insert[table](plans?.[table] ?? []);
+    counts.powerPlans += plans?.powerPlans.length ?? 0;
     for (const table of CLAIM_TABLES) {
       insert[table](claimRows[table]);
       counts[table] += claimRows[table].length;
@@ -104,9 +110,10 @@ export async function seedNetwork(options: NetworkOptions): Promise<NetworkCount
       }
     }
     const rows = makeRows(week);
-    claims.add(rows);
+    const plans = makePlans(rows);
+    claims.add(rows, plans.tightBuilds);
     latestBuildMs = rows.builds.reduce((latest, b) => Math.max(latest, Date.parse(b.createdAt)), latestBuildMs);
-    writeWeek(rows, claims.flush(latestBuildMs - SETTLED_MS));
+    writeWeek(rows, claims.flush(latestBuildMs - SETTLED_MS), plans);
     options.onProgress?.({ days: Math.min(day, totalDays), totalDays, builds: counts.builds, indexing: false });
   }
   const empty: HistoryRows = { customers: [], vehicles: [], builds: [], buildItems: [], buildEvents: [], auditLog: [] };

@@ -120,6 +120,22 @@ describe('generated network, 3 locations × 1 year', () => {
     expect([replaced.rows[0]!.removed, replaced.rows[0]!.lines]).toEqual([replaced.rows[0]!.claims, replaced.rows[0]!.claims]);
   });
 
+  it('plans delivered builds with a house battery and a charger, and counts their units in the margin bands the plans give', async () => {
+    expect([await count('power_plans'), await count('power_plan_revisions'), await count('plan_margins')]).toEqual([counts.powerPlans, counts.powerPlans, counts.powerPlans]);
+    expect(counts.powerPlans / counts.builds).toBeGreaterThan(0.1);
+    const strays = await sql<{ id: number }>`
+      select p.id from power_plans p left join builds b on b.id = p.build_id and b.status = 'delivered' and b.number = p.name and b.location_id = p.location_id
+      left join plan_margins m on m.build_id = p.build_id left join power_plan_revisions r on r.plan_id = p.id and r.version = 1 and r.input = p.input
+      where b.id is null or m.build_id is null or r.id is null`.execute(db);
+    expect(strays.rows).toEqual([]);
+    const bands = (from: string, units: string) =>
+      sql<{ key: string; units: number }>`select drop_band || '-' || load_band || '-' || discharge_band as key, sum(${sql.raw(units)}) as units
+        from ${sql.table(from)} group by 1 having sum(${sql.raw(units)}) != 0 order by 1`.execute(db);
+    const kept = (await bands('unit_exposure', 'units')).rows;
+    expect(kept).toEqual((await bands('installed_unit_source', 'quantity')).rows);
+    for (const band of [1, 2, 3, 4]) expect(kept.some((r) => r.key.startsWith(`${band}-`)), `drop band ${band}`).toBe(true);
+  });
+
   it('keeps the secondary indexes and triggers, rebuilt full-text indexes and the demo sign-ins', async () => {
     const fresh = openDatabase(join(dir, 'migrated-only.sqlite'));
     await migrateToLatest(fresh);
