@@ -4,6 +4,7 @@ import { sql } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { plannedParts } from '../../db/demo/plans.ts';
 import { startHarness, type Harness } from '../support/api-harness.ts';
+import { SIGN_INS } from '../support/staff-fixtures.ts';
 
 let h: Harness;
 beforeAll(async () => {
@@ -53,6 +54,26 @@ describe('demo power plans', () => {
       const margins = designMargins(evaluatePlan(input))!;
       expect([plan.dropBand, plan.loadBand, plan.dischargeBand], plan.number).toEqual([margins.dropBand, margins.loadBand, margins.dischargeBand]);
     }
+  });
+
+  it("shows the lead of a tight build's shop the plan with the finding that made it tight", async () => {
+    const tight = await h.db
+      .selectFrom('planMargins as m')
+      .innerJoin('builds as b', 'b.id', 'm.buildId')
+      .innerJoin('locations as l', 'l.id', 'b.locationId')
+      .select(['b.id', 'm.dropBand', 'm.loadBand'])
+      .where('l.code', '=', 'DEN')
+      .where((eb) => eb.or([eb('m.dropBand', '=', 4), eb('m.loadBand', '=', 4)]))
+      .orderBy('b.id')
+      .executeTakeFirstOrThrow();
+    const lead = await h.signedIn(SIGN_INS.lead);
+    const res = await lead.get(`/api/builds/${tight.id}/plan`);
+    expect(res.status).toBe(200);
+    const codes = (res.body.plan.result.findings as { code: string }[]).map((f) => f.code);
+    const past = (code: string) => codes.includes(code) || codes.includes('no-conductor-fits');
+    expect([tight.dropBand === 4 && past('circuit-over-drop'), tight.loadBand === 4 && past('conductor-over-ampacity')]).toContain(true);
+    if (tight.dropBand === 4) expect(past('circuit-over-drop')).toBe(true);
+    if (tight.loadBand === 4) expect(past('conductor-over-ampacity')).toBe(true);
   });
 
   it('counts units in every band of every measure, as the builds and their plans say', async () => {
