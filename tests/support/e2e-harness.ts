@@ -23,11 +23,14 @@ function freePort(): Promise<number> {
   });
 }
 
-/** The built web app (`vite build` → dist/web) served by the real API, driven in Debian's Chromium. */
-export async function startE2e(): Promise<E2e> {
+/**
+ * The built web app (`vite build` → dist/web) served by the real API, driven in Debian's Chromium.
+ * `demo.history` adds the demo's two years of builds and claims (slower; ask only when needed).
+ */
+export async function startE2e(demo: { history?: boolean } = {}): Promise<E2e> {
   const port = await freePort();
   const baseUrl = `http://127.0.0.1:${port}`;
-  const harness = await startHarness({ webDist: resolve('dist/web'), publicUrl: baseUrl });
+  const harness = await startHarness({ webDist: resolve('dist/web'), publicUrl: baseUrl }, true, demo);
   const server: Server = await new Promise((done) => {
     const s = harness.app.listen(port, '127.0.0.1', () => done(s));
   });

@@ -1,0 +1,121 @@
+import type { Locator, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { startE2e, type E2e } from '../support/e2e-harness.ts';
+
+let e2e: E2e;
+beforeAll(async () => {
+  e2e = await startE2e({ history: true });
+});
+afterAll(async () => {
+  await e2e?.close();
+});
+
+/** The demo's manager of the EAST region (Austin's), a generated person who signs in with the demo password. */
+async function eastManager(): Promise<string> {
+  const row = await e2e.harness.db
+    .selectFrom('users as u')
+    .innerJoin('roleAssignments as a', 'a.userId', 'u.id')
+    .innerJoin('regions as r', 'r.id', 'a.regionId')
+    .select('u.email')
+    .where('a.role', '=', 'regional_manager')
+    .where('r.code', '=', 'EAST')
+    .executeTakeFirstOrThrow();
+  return row.email;
+}
+
+/** No sideways scrolling at the page's current width. */
+const fitsWidth = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth <= document.documentElement.clientWidth);
+const figure = (page: Page, label: string) =>
+  page.locator('.figure-card').filter({ has: page.getByText(label, { exact: true }) }).locator('.figure-value').textContent();
+const funnelRow = (page: Page, text: string): Locator => page.locator('.ant-table-row').filter({ hasText: text });
+
+describe('component reliability', () => {
+  it("the regional manager sees the funnel flag Austin's house batteries and opens Austin's own survival curve", async () => {
+    const page = await e2e.newPage();
+    await e2e.signIn(page, await eastManager());
+    await page.getByRole('navigation').getByText('Reliability', { exact: true }).click();
+    await page.getByRole('heading', { level: 1, name: 'Component reliability' }).waitFor();
+    await page.locator('.ant-segmented').getByText('Category', { exact: true }).click();
+    await expect.poll(() => new URL(page.url()).searchParams.get('groupBy')).toBe('category');
+    await page.getByRole('link', { name: 'House battery', exact: true }).click();
+
+    await page.getByRole('heading', { level: 1, name: 'House battery' }).waitFor();
+    const austin = funnelRow(page, 'AUS Austin');
+    await austin.getByText('Above the 99.8 % limit').waitFor();
+    // The region's other shops are named and within the limits; shops of other regions stay unnamed.
+    for (const code of ['DLH', 'AVL']) expect(await funnelRow(page, code).count(), code).toBe(1);
+    expect(await funnelRow(page, 'Another shop').count()).toBeGreaterThan(0);
+    expect(await funnelRow(page, 'DEN Denver').count()).toBe(0);
+    expect(await austin.locator('td').nth(5).textContent()).toMatch(/^\d+ of \d+ \(\d+ %\)$/);
+    const [unitMonths, failures] = await Promise.all([austin.locator('td').nth(1).textContent(), austin.locator('td').nth(2).textContent()]);
+    const allUnits = await figure(page, 'Units installed');
+
+    await austin.getByRole('button', { name: 'Show AUS only' }).click();
+    await page.getByText('Showing units at AUS Austin.').waitFor();
+    const { id: austinId } = await e2e.harness.db.selectFrom('locations').select('id').where('code', '=', 'AUS').executeTakeFirstOrThrow();
+    expect(new URL(page.url()).searchParams.get('locations')).toBe(String(austinId));
+    // The figures and the curve are now Austin's: its unit-months and failures are the funnel's.
+    await expect.poll(() => figure(page, 'Unit-months in service')).toBe(unitMonths);
+    expect(await figure(page, 'Failures')).toBe(failures);
+    expect(await figure(page, 'Units installed')).not.toBe(allUnits);
+    const curve = page.locator('.survival-frame[role="img"]');
+    expect(await curve.getAttribute('aria-label')).toMatch(/^Share of units at AUS Austin still working by months in service\. After [\d.]+ months, [\d.]+ % still work/);
+    expect(await curve.locator('svg path').count()).toBeGreaterThan(2);
+    // Austin's own claims: most of them its workmanship.
+    const paid = page.locator('.ant-card').filter({ has: page.getByText('Who paid', { exact: true }) });
+    expect(await paid.locator('tbody th').first().textContent()).toContain("Shop's workmanship");
+
+    // The way back keeps the grouping and the shop.
+    await page.getByRole('link', { name: /Component reliability$/ }).click();
+    await page.getByRole('heading', { level: 1, name: 'Component reliability' }).waitFor();
+    const query = new URL(page.url()).searchParams;
+    expect([query.get('groupBy'), query.get('locations')]).toEqual(['category', String(austinId)]);
+    await page.locator('.ant-select-selection-item').getByText('AUS Austin').waitFor();
+    await page.context().close();
+  });
+
+  it('fits a phone: the list and a detail scroll only downwards', async () => {
+    const page = await e2e.newPage();
+    await e2e.signIn(page, await eastManager());
+    await page.setViewportSize({ width: 390, height: 844 });
+    await page.goto('/reliability');
+    await page.getByText('Components to watch').waitFor();
+    await page.locator('.ant-table-row').first().waitFor();
+    expect(await fitsWidth(page)).toBe(true);
+    await page.goto('/reliability/category/house_battery');
+    await funnelRow(page, 'AUS Austin').waitFor();
+    await page.locator('.survival-frame svg').waitFor();
+    expect(await fitsWidth(page)).toBe(true);
+    await page.context().close();
+  });
+
+  it('shows a lead their shop against the network without naming other shops', async () => {
+    const page = await e2e.newPage();
+    await e2e.signIn(page, 'lead@demo.busbar.test');
+    await page.getByRole('navigation').getByText('Reliability', { exact: true }).click();
+    await page.locator('.ant-table-row').first().waitFor();
+    // One shop needs no shop picker.
+    expect(await page.getByText('Shops', { exact: true }).count()).toBe(0);
+    await page.goto('/reliability/category/house_battery');
+    await funnelRow(page, 'DEN Denver').waitFor();
+    const rows = await page.locator('.ant-table-row').allTextContents();
+    expect(rows.filter((text) => text.includes('Another shop')).length).toBe(rows.length - 1);
+    const others = await e2e.harness.db.selectFrom('locations').select(['code', 'name']).where('code', '!=', 'DEN').execute();
+    expect(others.length).toBe(7);
+    for (const { code, name } of others) {
+      expect(await page.locator('#main').getByText(new RegExp(`\\b(${code}|${name})\\b`)).count(), code).toBe(0);
+    }
+    expect(await page.getByRole('button', { name: /^Show .* only$/ }).count()).toBe(1);
+    await page.context().close();
+  });
+
+  it('leaves reliability out of the menu of those who may not read it', async () => {
+    const page = await e2e.newPage();
+    await e2e.signIn(page, 'tech@demo.busbar.test');
+    await page.getByRole('navigation').getByText('Builds', { exact: true }).waitFor();
+    expect(await page.getByRole('navigation').getByText('Reliability', { exact: true }).count()).toBe(0);
+    await page.goto('/reliability/category/house_battery');
+    await expect.poll(() => page.getByText('No access to this page').count()).toBeGreaterThan(0);
+    await page.context().close();
+  });
+});
