@@ -15,8 +15,8 @@ import { pick } from './random.ts';
  * variants per kind of build, each evaluated once, so a network of any size evaluates a few
  * hundred plans at most.
  */
-export const PLANNED_SHARE = 0.65;
-/** The plans draw from a stream of their own, so builds and claims draw as they did without them. */
+const PLANNED_SHARE = 0.65;
+/** The plans draw from a stream of their own, so the builds stay as they were without them. */
 export const PLAN_STREAM = 0x91a2_5eed;
 const VARIANTS_PER_KIND = 8;
 
