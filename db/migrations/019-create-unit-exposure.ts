@@ -13,7 +13,7 @@ import { sql, type Kysely } from 'kysely';
  * a warranty claim on the unit. `plan_margins` holds the bands of a build's power plan (1 is the
  * most margin, 4 past the limit; 0 no plan), filled by the API whenever a build's plan changes.
  *
- * Triggers keep the table current the way the search indexes are (migration 015): before a change,
+ * Triggers keep the tables current the way the search indexes are (migration 015): before a change,
  * take the rows concerned out as the source views show them; after it, put them back.
  */
 const DAY = (date: string) => `cast(julianday(${date}) - 2440587.5 as integer)`;
@@ -25,7 +25,7 @@ const UNIT_SOURCE = `select i.id as build_item_id, i.build_id, i.catalog_item_id
   where b.status = 'delivered' and b.delivered_at is not null`;
 
 const FAILURE_SOURCE = `select c.id as claim_id, u.build_item_id, u.build_id, u.catalog_item_id, u.location_id, u.installed_on,
-    u.drop_band, u.load_band, u.discharge_band, c.failed_on, 1 - c.out_of_warranty as in_warranty
+    u.drop_band, u.load_band, u.discharge_band, c.failed_on, 1 - c.out_of_warranty as in_warranty, c.failure_mode, c.coverage
   from warranty_claims c join installed_unit_source u on u.build_item_id = c.build_item_id`;
 
 const KEY = 'catalog_item_id, location_id, installed_month, drop_band, load_band, discharge_band';
@@ -41,9 +41,15 @@ function change(sign: 1 | -1, where: string, what: 'units' | 'failures' | 'both'
   const failures = `insert into unit_exposure (${KEY}, ${COUNTS.join(', ')})
     select catalog_item_id, location_id, substr(installed_on, 1, 7), drop_band, load_band, discharge_band,
       0, 0, ${sign} * count(*), ${sign} * sum(${DAY('installed_on')}), ${sign} * sum(${DAY('failed_on')}), ${sign} * sum(in_warranty)
-    from failed_unit_source where ${where} group by 1, 2, 3, 4, 5, 6 ${upsert}`;
+    from failed_unit_source where ${where} group by 1, 2, 3, 4, 5, 6 ${upsert}
+    ${sign === 1 ? addFailures(where) : `delete from unit_failures where ${where};`}`;
   return what === 'units' ? units : what === 'failures' ? failures : `${units}\n${failures}`;
 }
+
+/** Each failure with its unit's install day, for survival curves and claim shares without visiting builds. */
+const addFailures = (where: string) => `insert into unit_failures (claim_id, build_item_id, build_id, catalog_item_id, location_id, installed_day, failed_day, failure_mode, coverage)
+  select claim_id, build_item_id, build_id, catalog_item_id, location_id, ${DAY('installed_on')}, ${DAY('failed_on')}, failure_mode, coverage
+  from failed_unit_source where ${where};`;
 
 /** [name, timing and event, sign, which source rows, what they carry] */
 const TRIGGERS: [string, string, 1 | -1, string, 'units' | 'failures' | 'both'][] = [
@@ -65,8 +71,27 @@ const TRIGGERS: [string, string, 1 | -1, string, 'units' | 'failures' | 'both'][
   ['unit_exposure_claim_delete', 'before delete on warranty_claims', -1, 'claim_id = old.id', 'failures'],
 ];
 
-/** Empties and refills `unit_exposure` from its sources (after a bulk load that ran without triggers). */
-export const REFILL_UNIT_EXPOSURE = `delete from unit_exposure;\n${change(1, 'true', 'both')}`;
+/** A claim's mode and coverage change only its row of `unit_failures`. */
+const FAILURE_TRIGGERS: [string, string, string][] = [
+  ['unit_failures_claim_update', 'after update of failure_mode, coverage on warranty_claims', `delete from unit_failures where claim_id = new.id; ${addFailures('claim_id = new.id')}`],
+];
+
+/**
+ * `unit_exposure_network` is the same counts summed over every location and band, per item and
+ * install month (a few thousand rows), for the whole network's figures; its triggers add each
+ * change of a cell.
+ */
+const NETWORK_KEY = 'catalog_item_id, installed_month';
+const networkChange = (values: string) => `insert into unit_exposure_network (${NETWORK_KEY}, ${COUNTS.join(', ')})
+  values (new.catalog_item_id, new.installed_month, ${values})
+  on conflict (${NETWORK_KEY}) do update set ${COUNTS.map((c) => `${c} = ${c} + excluded.${c}`).join(', ')};`;
+const NETWORK_TRIGGERS: [string, string, string][] = [
+  ['unit_exposure_network_insert', 'after insert on unit_exposure', COUNTS.map((c) => `new.${c}`).join(', ')],
+  ['unit_exposure_network_update', 'after update on unit_exposure', COUNTS.map((c) => `new.${c} - old.${c}`).join(', ')],
+];
+
+/** Empties and refills `unit_exposure` (and through its triggers the network's sums) from its sources, after a bulk load that ran without triggers. */
+export const REFILL_UNIT_EXPOSURE = `delete from unit_failures;\ndelete from unit_exposure_network;\ndelete from unit_exposure;\n${change(1, 'true', 'both')}`;
 
 export async function up(db: Kysely<any>): Promise<void> {
   await sql`create table plan_margins (
@@ -81,16 +106,34 @@ export async function up(db: Kysely<any>): Promise<void> {
     ${sql.raw(COUNTS.map((c) => `${c} integer not null`).join(', '))},
     primary key (${sql.raw(KEY)})
   ) without rowid`.execute(db);
+  await sql`create table unit_exposure_network (
+    catalog_item_id integer not null, installed_month text not null,
+    ${sql.raw(COUNTS.map((c) => `${c} integer not null`).join(', '))},
+    primary key (${sql.raw(NETWORK_KEY)})
+  ) without rowid`.execute(db);
+  await sql`create table unit_failures (
+    claim_id integer primary key, build_item_id integer not null, build_id integer not null, catalog_item_id integer not null,
+    location_id integer not null, installed_day integer not null, failed_day integer not null, failure_mode text not null, coverage text not null
+  )`.execute(db);
+  await sql`create index unit_failures_item on unit_failures (catalog_item_id, installed_day, location_id, failed_day, failure_mode, coverage)`.execute(db);
+  await sql`create index unit_failures_build on unit_failures (build_id)`.execute(db);
+  await sql`create index unit_failures_build_item on unit_failures (build_item_id)`.execute(db);
+  // A lead's or a region's locations read their cells through this index alone.
+  await sql.raw(`create index unit_exposure_location on unit_exposure (location_id, catalog_item_id, installed_month, ${COUNTS.join(', ')})`).execute(db);
+  for (const [name, when, values] of NETWORK_TRIGGERS) await sql.raw(`create trigger ${name} ${when} begin ${networkChange(values)} end`).execute(db);
   await sql.raw(`create view installed_unit_source as ${UNIT_SOURCE}`).execute(db);
   await sql.raw(`create view failed_unit_source as ${FAILURE_SOURCE}`).execute(db);
   for (const [name, when, sign, where, what] of TRIGGERS) await sql.raw(`create trigger ${name} ${when} begin ${change(sign, where, what)} end`).execute(db);
+  for (const [name, when, body] of FAILURE_TRIGGERS) await sql.raw(`create trigger ${name} ${when} begin ${body} end`).execute(db);
   for (const statement of REFILL_UNIT_EXPOSURE.split(';').filter((s) => s.trim())) await sql.raw(statement).execute(db);
 }
 
 export async function down(db: Kysely<any>): Promise<void> {
-  for (const [name] of TRIGGERS) await sql.raw(`drop trigger ${name}`).execute(db);
+  for (const [name] of [...TRIGGERS, ...NETWORK_TRIGGERS, ...FAILURE_TRIGGERS]) await sql.raw(`drop trigger ${name}`).execute(db);
   await sql`drop view failed_unit_source`.execute(db);
   await sql`drop view installed_unit_source`.execute(db);
+  await sql`drop table unit_failures`.execute(db);
+  await sql`drop table unit_exposure_network`.execute(db);
   await sql`drop table unit_exposure`.execute(db);
   await sql`drop table plan_margins`.execute(db);
 }

@@ -17,7 +17,7 @@ import type { PowerPlansTable } from './power-plans.ts';
 import type { RegionsTable } from './regions.ts';
 import type { RoleAssignmentsTable } from './role-assignments.ts';
 import type { SessionsTable } from './sessions.ts';
-import type { UnitExposureTable, PlanMarginsTable } from './unit-exposure.ts';
+import type { PlanMarginsTable, UnitExposureNetworkTable, UnitExposureTable, UnitFailuresTable } from './unit-exposure.ts';
 import type { UsersTable } from './users.ts';
 
 export interface Database {
@@ -42,5 +42,7 @@ export interface Database {
   claimEvents: ClaimEventsTable;
   claimEvidence: ClaimEvidenceTable;
   unitExposure: UnitExposureTable;
+  unitExposureNetwork: UnitExposureNetworkTable;
   planMargins: PlanMarginsTable;
+  unitFailures: UnitFailuresTable;
 }

@@ -1,3 +1,5 @@
+import type { Coverage, FailureMode } from '@busbar/shared';
+
 /** Reliability counts per catalog item, location, install month (YYYY-MM) and design-margin bands (migration 019). */
 export interface UnitExposureTable {
   catalogItemId: number;
@@ -16,10 +18,26 @@ export interface UnitExposureTable {
   warrantyFailures: number;
 }
 
+/** The same counts summed over every location and band, per catalog item and install month. */
+export type UnitExposureNetworkTable = Omit<UnitExposureTable, 'locationId' | 'dropBand' | 'loadBand' | 'dischargeBand'>;
+
 /** How close a build's power plan runs to its limits, in bands: 1 the most margin, 4 past the limit. */
 export interface PlanMarginsTable {
   buildId: number;
   dropBand: number;
   loadBand: number;
   dischargeBand: number;
+}
+
+/** One failure (a warranty claim) of an installed unit, with the unit's install day (days since 1970-01-01, UTC). */
+export interface UnitFailuresTable {
+  claimId: number;
+  buildItemId: number;
+  buildId: number;
+  catalogItemId: number;
+  locationId: number;
+  installedDay: number;
+  failedDay: number;
+  failureMode: FailureMode;
+  coverage: Coverage;
 }

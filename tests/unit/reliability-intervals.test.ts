@@ -1,4 +1,4 @@
-import { funnelLimits, poissonCdf, poissonRateInterval, wilsonInterval } from '@busbar/calc';
+import { funnelLimits, funnelSide, poissonCdf, poissonRateInterval, wilsonInterval } from '@busbar/calc';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 
@@ -142,5 +142,28 @@ describe('funnelLimits', () => {
     expect(() => funnelLimits(0, 100)).toThrow(/networkRate must be/);
     expect(() => funnelLimits(0.01, -5)).toThrow(/exposure must be/);
     expect(() => funnelLimits(0.01, 100, { confidence: 1.2 })).toThrow(/confidence must be/);
+  });
+});
+
+describe('funnelSide', () => {
+  it('puts a count on the same side of the funnel as comparing its rate with funnelLimits', () => {
+    fc.assert(
+      fc.property(
+        fc.double({ min: 1e-4, max: 0.05, noNaN: true }),
+        fc.double({ min: 10, max: 200_000, noNaN: true }),
+        // Counts near the expected one, where the limits decide: up to four standard deviations either side.
+        fc.double({ min: -4, max: 4, noNaN: true }),
+        fc.constantFrom(0.95, 0.998),
+        (rate, exposure, spread, confidence) => {
+          const expected = rate * exposure;
+          const events = Math.max(0, Math.round(expected + spread * Math.sqrt(expected)));
+          const limits = funnelLimits(rate, exposure, { confidence });
+          const observed = events / exposure;
+          const side = observed > limits.upper ? 'above' : observed < limits.lower ? 'below' : 'within';
+          expect(funnelSide(events, expected, { confidence })).toBe(side);
+        },
+      ),
+      runs,
+    );
   });
 });

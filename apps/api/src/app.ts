@@ -22,6 +22,7 @@ import { importsRouter } from './routes/imports.ts';
 import { invitesRouter } from './routes/invites.ts';
 import { planStockRouter } from './routes/plan-stock.ts';
 import { plansRouter } from './routes/plans.ts';
+import { reliabilityRouter } from './routes/reliability.ts';
 import { SESSION_COOKIE, sessionRouter } from './routes/session.ts';
 import { serialsRouter } from './routes/serials.ts';
 import { staffRouter } from './routes/staff.ts';
@@ -72,6 +73,7 @@ export function createApp(ctx: AppContext): Express {
   app.use('/api/plans', requireSession(db), planStockRouter(ctx), plansRouter(ctx));
   app.use('/api/claims', requireSession(db), claimsRouter(ctx), claimEvidenceRouter(ctx), claimSendRouter(ctx), claimReplacementRouter(ctx));
   app.use('/api/serials', requireSession(db), serialsRouter(ctx));
+  app.use('/api/reliability', requireSession(db), reliabilityRouter(ctx));
   app.use('/api/imports', requireSession(db), importsRouter(ctx));
   app.use('/api', requireSession(db), adminRouter(ctx));
   app.use('/api', () => {

@@ -30,3 +30,18 @@ function interpolatedQuantile(p: number, expectedCount: number): number {
   const below = poissonCdf(count - 1, expectedCount);
   return Math.max(0, count - (atCount - p) / (atCount - below));
 }
+
+/**
+ * Where `events` at `expected` events (the network's rate times the location's exposure) fall
+ * against funnelLimits at the same confidence, from one Poisson CDF F instead of two quantiles:
+ * the interpolated upper limit lies in (r − 1, r] for the quantile r, so a whole count exceeds it
+ * exactly when F(events) > 1 − α/2; likewise it lies under the lower limit when F(events) < α/2.
+ */
+export function funnelSide(events: number, expected: number, options: { confidence?: number } = {}): 'above' | 'below' | 'within' {
+  const { confidence = 0.95 } = options;
+  checkNumber('expected', expected, { above: 0 });
+  const alpha = tailOf(confidence);
+  const atEvents = poissonCdf(events, expected);
+  // No events is never above: where the upper limit would fall below 0 it stops at 0.
+  return events > 0 && atEvents > 1 - alpha / 2 ? 'above' : atEvents < alpha / 2 ? 'below' : 'within';
+}

@@ -65,10 +65,10 @@ export {
   type SolarInput,
 } from './solar.ts';
 export { awgAreaMm2, awgCircularMils, circularMilsToMm2, feetToMeters, metersToFeet, mm2ToCircularMils } from './units.ts';
-export { funnelLimits } from './funnel.ts';
+export { funnelLimits, funnelSide } from './funnel.ts';
 export { kaplanMeier, type SurvivalRow } from './kaplan-meier.ts';
 export { poissonRateInterval, type RateInterval } from './poisson-rate.ts';
-export { chiSquareQuantile, poissonCdf, poissonQuantile, standardNormalQuantile } from './quantiles.ts';
+export { chiSquareQuantile, poissonCdf, poissonQuantile, poissonUpperTail, standardNormalQuantile } from './quantiles.ts';
 export type { SurvivalObservation } from './survival-data.ts';
 export { WEIBULL_MIN_FAILURE_TIMES, weibullFit, type WeibullFit } from './weibull-fit.ts';
 export { wilsonInterval, type ProportionInterval, type WilsonOptions } from './wilson.ts';

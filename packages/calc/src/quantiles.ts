@@ -26,6 +26,11 @@ export function poissonCdf(count: number, mean: number): number {
   return poissonCdfOf(count, mean);
 }
 
+/** P(X ≥ count) for a Poisson mean: the chance of at least that many events by chance alone. */
+export function poissonUpperTail(count: number, mean: number): number {
+  return count <= 0 ? 1 : 1 - poissonCdfOf(count - 1, mean);
+}
+
 /** Two-sided tail probability α of a confidence level, rejecting levels outside (0, 1). */
 export function tailOf(confidence: number): number {
   checkNumber('confidence', confidence, { above: 0, below: 1 });

@@ -1,0 +1,79 @@
+import type { Database, Db } from '@busbar/db';
+import type { Category, ReliabilityGroup } from '@busbar/shared';
+import { sql, type ExpressionBuilder, type RawBuilder } from 'kysely';
+import type { LocationScope } from '../access/locations.ts';
+
+/** Which units: an item, category or vendor (or all), at these locations, installed in these months (YYYY-MM, inclusive). */
+export interface UnitFilter {
+  group?: { groupBy: ReliabilityGroup; key: number | Category };
+  scope: LocationScope;
+  from?: string;
+  to?: string;
+}
+
+/** Sums over `unit_exposure` cells; `completed…` count only units whose whole warranty has passed by today. */
+export interface UnitSums {
+  units: number;
+  installedDaySum: number;
+  failures: number;
+  failedInstalledDaySum: number;
+  failedDaySum: number;
+  completedUnits: number;
+  completedWarrantyFailures: number;
+}
+
+/** What the cells are summed by; the location and the bands need the per-location cells. */
+export type CellKey = 'item' | 'category' | 'vendor' | 'month' | 'none' | 'location' | 'bands';
+const NETWORK_KEYS: readonly CellKey[] = ['item', 'category', 'vendor', 'month', 'none'];
+
+const KEY_COLUMNS: Record<CellKey, string> = {
+  item: 'x.catalog_item_id',
+  category: 'ci.category',
+  vendor: 'ci.vendor_id',
+  month: 'x.installed_month',
+  none: '0',
+  location: 'x.location_id',
+  // Three digits: drop, load and discharge band (000 without a plan).
+  bands: 'x.drop_band * 100 + x.load_band * 10 + x.discharge_band',
+};
+
+type Cells = ExpressionBuilder<{ x: Database['unitExposureNetwork'] & { locationId: number }; ci: Database['catalogItems'] }, 'x' | 'ci'>;
+
+/**
+ * The cells' sums by `key`, for the units `filter` picks, as of `today` (YYYY-MM-DD). The whole
+ * network's sums by item or month come from `unit_exposure_network`, a few rows per item.
+ */
+export async function unitSums(db: Db, filter: UnitFilter, key: CellKey, today: string): Promise<(UnitSums & { key: string | number })[]> {
+  const keyColumn = sql.raw<string | number>(KEY_COLUMNS[key]);
+  // A unit installed in month M with W months of warranty has seen all of it once M + W months lies before this month.
+  const completed = sql`x.installed_month < strftime('%Y-%m', ${today}, '-' || ci.warranty_months || ' months')`;
+  const total = (column: RawBuilder<unknown>) => sql<number>`coalesce(sum(${column}), 0)`;
+  const table = filter.scope === 'all' && NETWORK_KEYS.includes(key) ? 'unitExposureNetwork' : 'unitExposure';
+  let query = db
+    .selectFrom(`${table} as x` as 'unitExposure as x')
+    .innerJoin('catalogItems as ci', 'ci.id', 'x.catalogItemId')
+    .select([
+      keyColumn.as('key'),
+      total(sql`x.units`).as('units'),
+      total(sql`x.installed_day_sum`).as('installedDaySum'),
+      total(sql`x.failures`).as('failures'),
+      total(sql`x.failed_installed_day_sum`).as('failedInstalledDaySum'),
+      total(sql`x.failed_day_sum`).as('failedDaySum'),
+      total(sql`case when ${completed} then x.units end`).as('completedUnits'),
+      total(sql`case when ${completed} then x.warranty_failures end`).as('completedWarrantyFailures'),
+    ])
+    .where((eb) => eb.and(conditions(eb as unknown as Cells, filter)));
+  if (key !== 'none') query = query.groupBy(keyColumn);
+  return (await query.execute()) as (UnitSums & { key: string | number })[];
+}
+
+function conditions(eb: Cells, { group, scope, from, to }: UnitFilter) {
+  const list = [];
+  if (group?.groupBy === 'item') list.push(eb('x.catalogItemId', '=', Number(group.key)));
+  if (group?.groupBy === 'vendor') list.push(eb('ci.vendorId', '=', Number(group.key)));
+  if (group?.groupBy === 'category') list.push(eb('ci.category', '=', group.key as Category));
+  if (scope !== 'all') list.push(eb('x.locationId', 'in', scope.length > 0 ? scope : [0]));
+  if (from) list.push(eb('x.installedMonth', '>=', from));
+  if (to) list.push(eb('x.installedMonth', '<=', to));
+  return list;
+}

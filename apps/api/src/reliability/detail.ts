@@ -1,0 +1,72 @@
+import type { Db } from '@busbar/db';
+import {
+  COVERAGES,
+  FAILURE_MODES,
+  MARGIN_MEASURES,
+  type MarginMeasure,
+  type ReliabilityDetail,
+  type ReliabilityDetailParams,
+  type ReliabilityDetailQuery,
+} from '@busbar/shared';
+import type { LocationScope } from '../access/locations.ts';
+import { notFound } from '../errors.ts';
+import { unitSums, type UnitFilter } from '../queries/unit-exposure.ts';
+import { itemsOf, unitFailures } from '../queries/unit-failures.ts';
+import { addSums, figuresOf } from './figures.ts';
+import { funnelOf, type NamedLocation } from './funnel.ts';
+import { catalogNames, labelOf } from './labels.ts';
+import { observationsOf, survivalCurve, weibullOf } from './survival.ts';
+
+/**
+ * One item, category or vendor: its figures at the chosen locations beside the network's, the
+ * survival curve and Weibull fit of those units, how they failed, every location on the funnel,
+ * and the failure rate by design-margin band.
+ */
+export async function reliabilityDetail(
+  db: Db,
+  params: ReliabilityDetailParams,
+  selected: LocationScope,
+  named: Map<number, NamedLocation>,
+  query: ReliabilityDetailQuery,
+  today: string,
+  todayDay: number,
+): Promise<ReliabilityDetail> {
+  const names = await catalogNames(db);
+  const label = labelOf(names, params.groupBy, params.key);
+  if (!label) throw notFound(params.groupBy === 'vendor' ? 'vendor' : params.groupBy === 'item' ? 'catalog item' : 'category');
+  const months = { from: query.from, to: query.to };
+  const filter: UnitFilter = { group: params, scope: selected, ...months };
+  const inSelection = (locationId: number) => selected === 'all' || selected.includes(locationId);
+
+  const byLocation = new Map((await unitSums(db, { ...filter, scope: 'all' }, 'location', today)).map(({ key, ...s }) => [Number(key), s]));
+  const failures = await unitFailures(db, await itemsOf(db, params), months);
+  const chosen = failures.filter((f) => inSelection(f.locationId));
+  const observations = observationsOf(chosen, await unitSums(db, filter, 'month', today), todayDay);
+
+  return {
+    asOf: today,
+    groupBy: params.groupBy,
+    key: String(params.key),
+    ...label,
+    figures: figuresOf(addSums([...byLocation].filter(([id]) => inSelection(id)).map(([, s]) => s)), todayDay),
+    network: figuresOf(addSums([...byLocation.values()]), todayDay),
+    survival: survivalCurve(observations),
+    ...weibullOf(observations),
+    failureModes: FAILURE_MODES.map((mode) => ({ mode, claims: chosen.filter((f) => f.failureMode === mode).length })).filter((m) => m.claims > 0),
+    coverages: COVERAGES.map((coverage) => ({ coverage, claims: chosen.filter((f) => f.coverage === coverage).length })).filter((c) => c.claims > 0),
+    funnel: funnelOf(byLocation, failures, named, todayDay),
+    ...(await marginsOf(db, filter, today, todayDay)),
+  };
+}
+
+async function marginsOf(db: Db, filter: UnitFilter, today: string, todayDay: number): Promise<Pick<ReliabilityDetail, 'margins' | 'plannedUnits'>> {
+  const planned = (await unitSums(db, filter, 'bands', today)).filter((cell) => Number(cell.key) > 0);
+  const digitOf = (key: string | number, measure: MarginMeasure) => Math.floor(Number(key) / 10 ** (2 - MARGIN_MEASURES.indexOf(measure))) % 10;
+  const margins = MARGIN_MEASURES.flatMap((measure) =>
+    ([1, 2, 3, 4] as const).flatMap((band) => {
+      const cells = planned.filter((cell) => digitOf(cell.key, measure) === band);
+      return cells.length > 0 ? [{ measure, band, ...figuresOf(addSums(cells), todayDay) }] : [];
+    }),
+  );
+  return { margins, plannedUnits: addSums(planned).units };
+}

@@ -1,0 +1,54 @@
+import { kaplanMeier, WEIBULL_MIN_FAILURE_TIMES, weibullFit, type SurvivalObservation } from '@busbar/calc';
+import { DAYS_PER_MONTH, type ReliabilityDetail, type SurvivalPoint, type WeibullReading } from '@busbar/shared';
+import type { UnitSums } from '../queries/unit-exposure.ts';
+import type { UnitFailure } from '../queries/unit-failures.ts';
+
+/** A failure on the day of install counts as half a day in service (times must be above 0). */
+const SAME_DAY = 0.5;
+/** Failures needed before the Weibull shape is read aloud: fewer leave it too uncertain to name. */
+export const WEIBULL_MIN_FAILURES_TO_READ = 10;
+/** Shapes within this of 1 read as a steady rate. */
+const STEADY_BAND = 0.15;
+
+/**
+ * The units as survival observations, in days: each failure at its own age, and the units still in
+ * service grouped by install month, censored at their mean age today (the cells keep their install
+ * days' sum, not each day, so a month's units share one age; their time in service stays exact).
+ */
+export function observationsOf(failures: readonly UnitFailure[], byMonth: readonly UnitSums[], todayDay: number): SurvivalObservation[] {
+  const failedAt = new Map<number, number>();
+  for (const f of failures) {
+    const days = Math.max(SAME_DAY, f.failedDay - f.installedDay);
+    failedAt.set(days, (failedAt.get(days) ?? 0) + 1);
+  }
+  const observations: SurvivalObservation[] = [...failedAt].map(([time, count]) => ({ time, failed: true, count }));
+  for (const s of byMonth) {
+    const working = s.units - s.failures;
+    const age = working > 0 ? todayDay - (s.installedDaySum - s.failedInstalledDaySum) / working : 0;
+    if (age > 0) observations.push({ time: age, failed: false, count: working });
+  }
+  return observations;
+}
+
+export function survivalCurve(observations: readonly SurvivalObservation[]): SurvivalPoint[] {
+  if (observations.length === 0) return [];
+  return kaplanMeier(observations).map((row) => ({
+    months: row.time / DAYS_PER_MONTH,
+    atRisk: row.atRisk,
+    failures: row.events,
+    survival: row.survival,
+    lower: row.lower,
+    upper: row.upper,
+  }));
+}
+
+/** The Weibull fit in months with a plain reading of its shape, or why there is none. */
+export function weibullOf(observations: readonly SurvivalObservation[]): Pick<ReliabilityDetail, 'weibull' | 'weibullNote'> {
+  const failures = observations.reduce((sum, o) => sum + (o.failed ? (o.count ?? 1) : 0), 0);
+  if (failures < WEIBULL_MIN_FAILURES_TO_READ || observations.filter((o) => o.failed).length < WEIBULL_MIN_FAILURE_TIMES) {
+    return { weibull: null, weibullNote: `${failures} failure${failures === 1 ? '' : 's'}: a shape is read from ${WEIBULL_MIN_FAILURES_TO_READ} or more` };
+  }
+  const { shape, scale } = weibullFit(observations);
+  const reading: WeibullReading = shape < 1 - STEADY_BAND ? 'early' : shape > 1 + STEADY_BAND ? 'wear_out' : 'random';
+  return { weibull: { shape, scaleMonths: scale / DAYS_PER_MONTH, reading }, weibullNote: null };
+}

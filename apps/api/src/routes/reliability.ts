@@ -1,0 +1,59 @@
+import { DAY_MS, isoDay } from '@busbar/calc';
+import type { Db } from '@busbar/db';
+import { reliabilityDetailParams, reliabilityDetailQuery, reliabilityQuery } from '@busbar/shared';
+import { Router } from 'express';
+import { locationScope, type LocationScope } from '../access/locations.ts';
+import type { Viewer } from '../access/viewer.ts';
+import type { AppContext } from '../context.ts';
+import { forbidden, notFound } from '../errors.ts';
+import { viewerOf } from '../middleware/session.ts';
+import { validate } from '../middleware/validate.ts';
+import { reliabilityDetail } from '../reliability/detail.ts';
+import type { NamedLocation } from '../reliability/funnel.ts';
+import { reliabilityList } from '../reliability/list.ts';
+
+/**
+ * Component reliability in the person's locations (a lead's shop, a regional manager's region, or
+ * the network), each compared with the whole network without naming shops they may not see.
+ */
+export function reliabilityRouter({ db, now }: AppContext): Router {
+  const router = Router();
+  const clock = () => {
+    const todayDay = Math.floor(now().getTime() / DAY_MS);
+    return { today: isoDay(todayDay), todayDay };
+  };
+
+  router.get(
+    '/',
+    validate({ query: reliabilityQuery }, async ({ query }, req, res) => {
+      const { today, todayDay } = clock();
+      res.json(await reliabilityList(db, chosenLocations(viewerOf(req), query.locationIds), query, today, todayDay));
+    }),
+  );
+
+  router.get(
+    '/:groupBy/:key',
+    validate({ params: reliabilityDetailParams, query: reliabilityDetailQuery }, async ({ params, query }, req, res) => {
+      const viewer = viewerOf(req);
+      const selected = chosenLocations(viewer, query.locationIds);
+      const { today, todayDay } = clock();
+      res.json(await reliabilityDetail(db, params, selected, await namedLocations(db, locationScope(viewer, 'read', 'Reliability')), query, today, todayDay));
+    }),
+  );
+  return router;
+}
+
+/** The locations asked for, all of them the person's (a location they cannot see answers 404), or all of theirs. */
+function chosenLocations(viewer: Viewer, asked: number[] | undefined): LocationScope {
+  const scope = locationScope(viewer, 'read', 'Reliability');
+  if (scope !== 'all' && scope.length === 0) throw forbidden('Reliability figures are for location leads, regional managers and the owner');
+  if (!asked || asked.length === 0) return scope;
+  if (scope !== 'all' && asked.some((id) => !scope.includes(id))) throw notFound('location');
+  return asked;
+}
+
+async function namedLocations(db: Db, scope: LocationScope): Promise<Map<number, NamedLocation>> {
+  let query = db.selectFrom('locations').select(['id', 'code', 'name']);
+  if (scope !== 'all') query = query.where('id', 'in', scope);
+  return new Map((await query.execute()).map((l) => [l.id, l]));
+}

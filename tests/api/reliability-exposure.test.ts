@@ -1,0 +1,169 @@
+import { dayOfIso } from '@busbar/calc';
+import type { Db } from '@busbar/db';
+import { DAYS_PER_MONTH, type ReliabilityDetail } from '@busbar/shared';
+import fc from 'fast-check';
+import { sql } from 'kysely';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { REFILL_UNIT_EXPOSURE } from '../../db/migrations/019-create-unit-exposure.ts';
+import { demoIds, startHarness, type Harness } from '../support/api-harness.ts';
+import { addCatalogItem, addVendor } from '../support/catalog-fixtures.ts';
+import { addDeliveredUnit } from '../support/claim-fixtures.ts';
+
+let h: Harness;
+let ids: Awaited<ReturnType<typeof demoIds>>;
+beforeAll(async () => {
+  h = await startHarness();
+  ids = await demoIds(h.db);
+});
+afterAll(() => h.close());
+
+const TODAY = '2026-06-15';
+
+/** A hand-made network: one charger at two shops, every unit written down with its install day and failure. */
+async function handMadeNetwork(db: Db) {
+  const vendor = await addVendor(db);
+  const charger = await addCatalogItem(db, { vendorId: vendor.id, category: 'dc_dc_charger', specs: { outputA: 40 }, warrantyMonths: 12 });
+  const units: { locationId: number; installedOn: string; quantity: number; failedOn: string[] }[] = [];
+  let claimNumber = 0;
+  async function build(code: string, deliveredAt: string | null, lines: { quantity: number; failedOn?: string[]; addedOn?: string }[]) {
+    const locationId = ids.location(code);
+    const base = await addDeliveredUnit(db, locationId, { deliveredAt: deliveredAt ?? '2026-01-01T00:00:00.000Z' });
+    if (!deliveredAt) await db.updateTable('builds').set({ status: 'in_bay', deliveredAt: null }).where('id', '=', base.buildId).execute();
+    await db.deleteFrom('buildItems').where('id', '=', base.buildItemId).execute();
+    for (const line of lines) {
+      const createdAt = line.addedOn ? `${line.addedOn}T10:00:00.000Z` : '2025-01-01T08:00:00.000Z';
+      const item = await db
+        .insertInto('buildItems')
+        .values({ buildId: base.buildId, catalogItemId: charger.id, sku: charger.sku, quantity: line.quantity, serialNumber: null, unitPriceCents: 1, unitCostCents: 1, createdAt })
+        .returning('id')
+        .executeTakeFirstOrThrow();
+      for (const failedOn of line.failedOn ?? []) {
+        const n = ++claimNumber;
+        await db
+          .insertInto('warrantyClaims')
+          .values({
+            locationId, sequence: n, number: `${code}-W9${String(n).padStart(4, '0')}`, buildId: base.buildId, buildItemId: item.id, catalogItemId: charger.id,
+            failedOn, failureMode: 'will_not_charge', coverage: 'vendor_defect', symptoms: 'No output', foundHow: '', laborHours: 0, outOfWarranty: 0,
+            status: 'logged', dueOn: null, creditRequestedCents: 0, createdBy: null, createdAt: `${failedOn}T12:00:00.000Z`, updatedAt: `${failedOn}T12:00:00.000Z`,
+          })
+          .execute();
+      }
+      const installedOn = [deliveredAt?.slice(0, 10) ?? '', line.addedOn ?? ''].sort().at(-1)!;
+      if (deliveredAt) units.push({ locationId, installedOn, quantity: line.quantity, failedOn: line.failedOn ?? [] });
+    }
+  }
+  await build('DEN', '2025-07-01T16:00:00.000Z', [{ quantity: 1, failedOn: ['2025-09-10'] }, { quantity: 3 }]);
+  await build('DEN', '2026-02-20T23:30:00.000Z', [{ quantity: 2, failedOn: ['2026-02-21'] }]);
+  // A replacement added months after delivery starts its life on its own day.
+  await build('BOI', '2025-11-03T09:00:00.000Z', [{ quantity: 1, failedOn: ['2026-01-05'] }, { quantity: 1, addedOn: '2026-01-06' }]);
+  await build('BOI', null, [{ quantity: 5 }]);
+  return { charger, units };
+}
+
+/** Unit-days counted one unit at a time: each failure ends one unit on its day, the rest run until today. */
+function directUnitDays(units: { installedOn: string; quantity: number; failedOn: string[] }[]): number {
+  let days = 0;
+  for (const unit of units) {
+    for (const failedOn of unit.failedOn) days += dayOfIso(failedOn) - dayOfIso(unit.installedOn);
+    days += (unit.quantity - unit.failedOn.length) * (dayOfIso(TODAY) - dayOfIso(unit.installedOn));
+  }
+  return days;
+}
+
+describe('exposure from the kept tables', () => {
+  it('equals a direct count of every unit of a small hand-made network, per location and in total', async () => {
+    const { charger, units } = await handMadeNetwork(h.db);
+    // By hand: 4 units from 2025-07-01 (one failed after 71 days), 2 from 2026-02-20 (one after 1 day),
+    // 1 from 2025-11-03 (failed after 63 days) and 1 from 2026-01-06; the in-bay build counts for nothing.
+    const byHand = 71 + 3 * 349 + 1 + 115 + 63 + 160;
+    expect(directUnitDays(units)).toBe(byHand);
+
+    const owner = await h.signedIn('owner@demo.busbar.test');
+    const detail = (await owner.get(`/api/reliability/item/${charger.id}`).expect(200)).body as ReliabilityDetail;
+    expect(detail.figures.units).toBe(8);
+    expect(detail.figures.failures).toBe(3);
+    expect(detail.figures.unitMonths).toBeCloseTo(byHand / DAYS_PER_MONTH, 9);
+    for (const code of ['DEN', 'BOI']) {
+      const point = detail.funnel.points.find((p) => p.code === code)!;
+      const here = units.filter((u) => u.locationId === ids.location(code));
+      expect(point.unitMonths).toBeCloseTo(directUnitDays(here) / DAYS_PER_MONTH, 9);
+      expect(point.failures).toBe(here.reduce((sum, u) => sum + u.failedOn.length, 0));
+    }
+    // The survival curve sees the same units: 8 at risk at the first failure, after one day.
+    expect(detail.survival[0]).toMatchObject({ atRisk: 8, failures: 1 });
+    expect(detail.survival[0]!.months).toBeCloseTo(1 / DAYS_PER_MONTH, 9);
+  });
+});
+
+/** Every kept table as rows, so the tables after changes can be compared with the same tables refilled from scratch. */
+async function keptTables(db: Db) {
+  const cells = await sql<object>`select * from unit_exposure where units != 0 or failures != 0 order by 1, 2, 3, 4, 5, 6`.execute(db);
+  const network = await sql<object>`select * from unit_exposure_network where units != 0 or failures != 0 order by 1, 2`.execute(db);
+  const failures = await sql<object>`select * from unit_failures order by claim_id`.execute(db);
+  return { cells: cells.rows, network: network.rows, failures: failures.rows };
+}
+
+async function refilled(db: Db) {
+  await sql.raw('savepoint refill').execute(db);
+  for (const statement of REFILL_UNIT_EXPOSURE.split(';').filter((s) => s.trim())) await sql.raw(statement).execute(db);
+  const tables = await keptTables(db);
+  await sql.raw('rollback to refill').execute(db);
+  await sql.raw('release refill').execute(db);
+  return tables;
+}
+
+describe('the kept tables follow every change', () => {
+  it('match a refill from scratch after any mix of deliveries, corrections, claims, plans and moves', async () => {
+    const units = await h.db.selectFrom('buildItems').select(['id', 'buildId']).execute();
+    const builds = [...new Set(units.map((u) => u.buildId))];
+    const claims = await h.db.selectFrom('warrantyClaims').select('id').execute();
+    const pick = <T>(list: T[]) => fc.integer({ min: 0, max: list.length - 1 }).map((i) => list[i]!);
+    const day = fc.integer({ min: 0, max: 500 }).map((d) => new Date(Date.UTC(2025, 0, 1) + d * 86_400_000).toISOString());
+    const change = fc.oneof(
+      fc.record({ kind: fc.constant('status' as const), buildId: pick(builds), delivered: fc.boolean(), at: day }),
+      fc.record({ kind: fc.constant('quantity' as const), id: pick(units.map((u) => u.id)), quantity: fc.integer({ min: 1, max: 6 }) }),
+      fc.record({ kind: fc.constant('failedOn' as const), id: pick(claims.map((c) => c.id)), at: day }),
+      fc.record({ kind: fc.constant('plan' as const), buildId: pick(builds), band: fc.integer({ min: 0, max: 4 }) }),
+      fc.record({ kind: fc.constant('move' as const), buildId: pick(builds), code: fc.constantFrom('DEN', 'BOI', 'AUS') }),
+      fc.record({ kind: fc.constant('coverage' as const), id: pick(claims.map((c) => c.id)), workmanship: fc.boolean() }),
+    );
+    await fc.assert(
+      fc.asyncProperty(fc.array(change, { minLength: 1, maxLength: 12 }), async (changes) => {
+        await sql.raw('savepoint mix').execute(h.db);
+        try {
+          for (const c of changes) await apply(h.db, c);
+          expect(await keptTables(h.db)).toEqual(await refilled(h.db));
+        } finally {
+          await sql.raw('rollback to mix').execute(h.db);
+          await sql.raw('release mix').execute(h.db);
+        }
+      }),
+      { seed: 10_019, numRuns: 60 },
+    );
+  });
+});
+
+type Change =
+  | { kind: 'status'; buildId: number; delivered: boolean; at: string }
+  | { kind: 'quantity'; id: number; quantity: number }
+  | { kind: 'failedOn'; id: number; at: string }
+  | { kind: 'plan'; buildId: number; band: number }
+  | { kind: 'move'; buildId: number; code: string }
+  | { kind: 'coverage'; id: number; workmanship: boolean };
+
+async function apply(db: Db, c: Change) {
+  if (c.kind === 'status') {
+    const values = c.delivered ? { status: 'delivered' as const, deliveredAt: c.at } : { status: 'quality_check' as const, deliveredAt: null };
+    await db.updateTable('builds').set(values).where('id', '=', c.buildId).execute();
+  } else if (c.kind === 'quantity') await db.updateTable('buildItems').set({ quantity: c.quantity }).where('id', '=', c.id).execute();
+  else if (c.kind === 'failedOn') await db.updateTable('warrantyClaims').set({ failedOn: c.at.slice(0, 10) }).where('id', '=', c.id).execute();
+  else if (c.kind === 'coverage') await db.updateTable('warrantyClaims').set({ coverage: c.workmanship ? 'workmanship' : 'vendor_defect' }).where('id', '=', c.id).execute();
+  else if (c.kind === 'move') await db.updateTable('builds').set({ locationId: ids.location(c.code) }).where('id', '=', c.buildId).execute();
+  else if (c.band === 0) await db.deleteFrom('planMargins').where('buildId', '=', c.buildId).execute();
+  else {
+    const bands = { dropBand: c.band, loadBand: 5 - c.band, dischargeBand: c.band };
+    const exists = await db.selectFrom('planMargins').select('buildId').where('buildId', '=', c.buildId).executeTakeFirst();
+    if (exists) await db.updateTable('planMargins').set(bands).where('buildId', '=', c.buildId).execute();
+    else await db.insertInto('planMargins').values({ buildId: c.buildId, ...bands }).execute();
+  }
+}
