@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { filterQuery, readGroupBy, readReliabilityFilter } from '../../apps/web/src/views/reliability/reliabilityFilters.ts';
-import { count, percent, rateWithInterval, shareWithInterval, times } from '../../apps/web/src/views/reliability/reliabilityFormat.ts';
+import { count, percent, rate, rateWithInterval, shareWithInterval, times } from '../../apps/web/src/views/reliability/reliabilityFormat.ts';
 
 describe('reliability figures in words', () => {
   it('gives a rate with its limits, decimals by size', () => {
@@ -16,6 +16,7 @@ describe('reliability figures in words', () => {
     expect(shareWithInterval({ estimate: 0.042, lower: 0.021, upper: 0.079 })).toBe('4.2 % (2.1–7.9 %)');
     expect(shareWithInterval(null)).toBe('—');
     expect([percent(0.5), percent(0.05), count(12_480.4), times(3.42), times(12.4)]).toEqual(['50 %', '5.0 %', '12,480', '3.4×', '12×']);
+    expect([rate(0), rate(0.314), rate(6.25), rate(140.2)]).toEqual(['0', '0.31', '6.3', '140']);
   });
 });
 

@@ -8,8 +8,8 @@ const rateDigits = (value: number) => (value < 1 ? 2 : value < 100 ? 1 : 0);
 /** A count or unit-months as a whole number, e.g. "12,480". */
 export const count = (value: number) => number(Math.round(value), 0);
 
-/** A rate per 1,000 unit-months, e.g. "1.8". */
-export const rate = (value: number) => number(value, rateDigits(value));
+/** A rate per 1,000 unit-months, e.g. "1.8"; none at all is "0". */
+export const rate = (value: number) => (value === 0 ? '0' : number(value, rateDigits(value)));
 
 /** A rate with its limits, e.g. "1.8 (1.2–2.6)"; "—" without time in service. */
 export function rateWithInterval(interval: Interval | null): string {
