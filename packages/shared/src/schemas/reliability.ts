@@ -75,12 +75,15 @@ export interface ReliabilityRow extends ReliabilityFigures {
   category: Category | null;
 }
 
-/** An item failing more than its peers, ranked by how unlikely its count is by chance. */
+/** An item, or the units of it installed in one quarter, failing more than its peers; ranked by how unlikely its count is by chance. */
 export interface WatchRow {
   key: string;
   label: string;
+  /** The install months of a quarter's units (YYYY-MM, inclusive); null for the item as a whole. */
+  from: string | null;
+  to: string | null;
   failures: number;
-  /** Failures expected at the rate of the other items of its category across the network. */
+  /** Failures expected at the rate of the other items of its category across the network, installed in the same quarters. */
   expected: number;
   /** Chance of this many failures or more if it failed like its peers (one-sided Poisson). */
   chance: number;
