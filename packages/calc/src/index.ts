@@ -72,3 +72,4 @@ export { chiSquareQuantile, poissonCdf, poissonQuantile, poissonUpperTail, stand
 export type { SurvivalObservation } from './survival-data.ts';
 export { WEIBULL_MIN_FAILURE_TIMES, weibullFit, type WeibullFit } from './weibull-fit.ts';
 export { wilsonInterval, type ProportionInterval, type WilsonOptions } from './wilson.ts';
+export { benjaminiHochberg } from './false-discovery.ts';

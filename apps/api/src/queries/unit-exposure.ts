@@ -23,11 +23,12 @@ export interface UnitSums {
 }
 
 /** What the cells are summed by; the location and the bands need the per-location cells. */
-export type CellKey = 'item' | 'category' | 'vendor' | 'month' | 'none' | 'location' | 'bands';
-const NETWORK_KEYS: readonly CellKey[] = ['item', 'category', 'vendor', 'month', 'none'];
+export type CellKey = 'item' | 'itemMonth' | 'category' | 'vendor' | 'month' | 'none' | 'location' | 'bands';
+const NETWORK_KEYS: readonly CellKey[] = ['item', 'itemMonth', 'category', 'vendor', 'month', 'none'];
 
 const KEY_COLUMNS: Record<CellKey, string> = {
   item: 'x.catalog_item_id',
+  itemMonth: "x.catalog_item_id || ' ' || x.installed_month",
   category: 'ci.category',
   vendor: 'ci.vendor_id',
   month: 'x.installed_month',
