@@ -9,24 +9,28 @@ export function useReliabilityLoad<T>(requestKey: () => string, fetch: () => Pro
   const data = shallowRef<T | null>(null);
   const loading = ref(true);
   const error = ref<string | null>(null);
+  /** The error was a 404: asking again will not help. */
+  const missing = ref(false);
   let latest = 0;
 
   async function load() {
     const ticket = ++latest;
     loading.value = true;
     error.value = null;
+    missing.value = false;
     try {
       const answer = await fetch();
       if (ticket === latest) data.value = answer;
     } catch (failure) {
       if (ticket !== latest) return;
       data.value = null;
-      error.value = failure instanceof ApiError && failure.status === 404 ? notFound : messageOf(failure);
+      missing.value = failure instanceof ApiError && failure.status === 404;
+      error.value = missing.value ? notFound : messageOf(failure);
     } finally {
       if (ticket === latest) loading.value = false;
     }
   }
   watch(requestKey, load, { immediate: true });
 
-  return { data, loading, error, load };
+  return { data, loading, error, missing, load };
 }

@@ -1,10 +1,15 @@
-import { computed } from 'vue';
+import type { LocationView } from '@busbar/shared';
+import { computed, watch, type Ref } from 'vue';
 import { useRoute, useRouter, type LocationQueryRaw } from 'vue-router';
 import type { ReliabilityFilter } from '../../api/reliability.ts';
 import { filterQuery, readReliabilityFilter } from './reliabilityFilters.ts';
 
-/** The reliability filters of the address bar, and changing them there (so links and the back button keep them). */
-export function useReliabilityRoute() {
+/**
+ * The reliability filters of the address bar, and changing them there (so links and the back button
+ * keep them). Shops the person does not see (an old or edited link) leave the address once their
+ * shops are known, so the API is not asked for them.
+ */
+export function useReliabilityRoute(locations: Ref<LocationView[]>, locationsLoading: Ref<boolean>) {
   const route = useRoute();
   const router = useRouter();
   const filter = computed(() => readReliabilityFilter(route.query));
@@ -16,6 +21,12 @@ export function useReliabilityRoute() {
     const { from: _from, to: _to, locations: _locations, ...rest } = route.query;
     void router.replace({ query: { ...rest, ...other, ...filterQuery({ ...filter.value, ...change }) } });
   }
+
+  watch([filter, locationsLoading], () => {
+    if (locationsLoading.value || !locations.value.length) return;
+    const known = filter.value.locationIds.filter((id) => locations.value.some((l) => l.id === id));
+    if (known.length < filter.value.locationIds.length) setFilter({ locationIds: known });
+  });
 
   return { route, filter, query, setFilter };
 }
