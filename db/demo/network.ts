@@ -35,6 +35,7 @@ export const LAST_NAMES = [
 export const DEMO_SIGN_INS = [
   { email: 'owner@demo.busbar.test', name: 'Marguerite Okafor', role: 'owner' },
   { email: 'regional@demo.busbar.test', name: 'Tobias Renwick', role: 'regional_manager', region: 'WEST' },
+  { email: 'regional2@demo.busbar.test', name: 'Odile Fairbank', role: 'regional_manager', region: 'EAST' },
   { email: 'lead@demo.busbar.test', name: 'Priya Halvorsen', role: 'location_lead', location: 'DEN' },
   { email: 'tech@demo.busbar.test', name: 'Dmitri Castellanos', role: 'technician', location: 'DEN' },
   { email: 'warranty@demo.busbar.test', name: 'Ingrid Salazar', role: 'warranty_clerk', location: 'DEN' },

@@ -1,7 +1,6 @@
 import { z } from 'zod';
 import { CATEGORIES, type Category } from './catalog.ts';
 import type { Coverage, FailureMode } from './claims.ts';
-import { idSchema } from './common.ts';
 
 /** What the reliability figures are gathered by. */
 export const RELIABILITY_GROUPS = ['item', 'category', 'vendor'] as const;
@@ -34,7 +33,7 @@ const filters = {
 const monthRange = (q: { from?: string; to?: string }) => !q.from || !q.to || q.from <= q.to;
 
 export const reliabilityQuery = z
-  .strictObject({ groupBy: z.enum(RELIABILITY_GROUPS).default('item'), ...filters })
+  .strictObject({ groupBy: z.enum(RELIABILITY_GROUPS, { error: 'Pick items, categories or vendors' }).default('item'), ...filters })
   .refine(monthRange, { path: ['to'], message: 'Pick a month on or after the first' });
 export type ReliabilityQuery = z.infer<typeof reliabilityQuery>;
 
@@ -42,11 +41,16 @@ export const reliabilityDetailQuery = z.strictObject(filters).refine(monthRange,
 export type ReliabilityDetailQuery = z.infer<typeof reliabilityDetailQuery>;
 
 /** A catalog item or vendor by id, a category by name. */
-export const reliabilityDetailParams = z.discriminatedUnion('groupBy', [
-  z.strictObject({ groupBy: z.literal('item'), key: idSchema }),
-  z.strictObject({ groupBy: z.literal('vendor'), key: idSchema }),
-  z.strictObject({ groupBy: z.literal('category'), key: z.enum(CATEGORIES) }),
-]);
+const keyOf = (what: string) => z.coerce.number().int().positive().catch(0).refine((id) => id > 0, `Pick ${what} from the list`);
+export const reliabilityDetailParams = z.discriminatedUnion(
+  'groupBy',
+  [
+    z.strictObject({ groupBy: z.literal('item'), key: keyOf('an item') }),
+    z.strictObject({ groupBy: z.literal('vendor'), key: keyOf('a vendor') }),
+    z.strictObject({ groupBy: z.literal('category'), key: z.enum(CATEGORIES, { error: 'Pick a category from the list' }) }),
+  ],
+  { error: 'Pick items, categories or vendors' },
+);
 export type ReliabilityDetailParams = z.infer<typeof reliabilityDetailParams>;
 
 export interface Interval {
