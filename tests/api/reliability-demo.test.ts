@@ -1,0 +1,57 @@
+import type { ReliabilityDetail, ReliabilityList } from '@busbar/shared';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { BAD_BATCH, badBatchPrefixes } from '../../db/demo/claims-rates.ts';
+import { startHarness, type Harness } from '../support/api-harness.ts';
+
+// The demo's two stories (db/demo/claims-rates.ts): a batch of TDW-DC40 chargers that fails early,
+// and Austin, whose installs come loose far more often. The screens must find both from the data alone.
+let h: Harness;
+beforeAll(async () => {
+  h = await startHarness({}, true, { history: true });
+}, 60_000);
+afterAll(() => h.close());
+
+describe('the demo stories, found by the reliability screens', () => {
+  it("lists the bad batch's install quarter among the components to watch, and its failures are the batch's serials", async () => {
+    const owner = await h.signedIn('owner@demo.busbar.test');
+    const list = (await owner.get('/api/reliability').expect(200)).body as ReliabilityList;
+    const batchRows = list.watch.filter((w) => w.label.startsWith(BAD_BATCH.sku) && w.from !== null);
+    expect(batchRows.length).toBeGreaterThan(0);
+    for (const row of batchRows) expect(row.ratioLower).toBeGreaterThan(1);
+
+    // Behind the flagged quarter: most of the claims are on units of the batch's serial ranges.
+    const row = batchRows[0]!;
+    const prefixes = badBatchPrefixes('TW', h.clock.now.getTime());
+    const claims = await h.db
+      .selectFrom('warrantyClaims as w')
+      .innerJoin('buildItems as i', 'i.id', 'w.buildItemId')
+      .innerJoin('builds as b', 'b.id', 'w.buildId')
+      .select('i.serialNumber')
+      .where('i.sku', '=', BAD_BATCH.sku)
+      .where('b.deliveredAt', '>=', `${row.from}-01`)
+      .where('b.deliveredAt', '<=', `${row.to}-31T23:59:59.999Z`)
+      .execute();
+    const inBatch = claims.filter((c) => prefixes.some((p) => c.serialNumber?.startsWith(p))).length;
+    expect(claims.length).toBe(row.failures);
+    expect(inBatch / claims.length).toBeGreaterThan(0.5);
+  });
+
+  it("flags Austin's house batteries above the funnel's 99.8 % limit, with the network's largest workmanship share", async () => {
+    const manager = await h.signedIn('regional2@demo.busbar.test');
+    const detail = (await manager.get('/api/reliability/category/house_battery').expect(200)).body as ReliabilityDetail;
+    const austin = detail.funnel.points.find((p) => p.code === 'AUS')!;
+    expect(austin.signal).toBe('above_998');
+    expect(detail.funnel.points.filter((p) => p.signal === 'above_998')).toEqual([austin]);
+    const share = (p: { claims: number; workmanshipClaims: number }) => p.workmanshipClaims / p.claims;
+    for (const other of detail.funnel.points.filter((p) => p !== austin && p.claims >= 5)) expect(share(austin)).toBeGreaterThan(share(other));
+  });
+
+  it("reads the flooded battery's shape as wear-out and the chargers' as early failures", async () => {
+    const owner = await h.signedIn('owner@demo.busbar.test');
+    const chargers = (await owner.get('/api/reliability/category/dc_dc_charger').expect(200)).body as ReliabilityDetail;
+    expect(chargers.weibull?.reading).toBe('early');
+    const items = await h.db.selectFrom('catalogItems').select(['id', 'sku']).where('sku', '=', 'NVB-FLD115').executeTakeFirstOrThrow();
+    const flooded = (await owner.get(`/api/reliability/item/${items.id}`).expect(200)).body as ReliabilityDetail;
+    expect(flooded.weibull?.reading ?? flooded.weibullNote).toBe('wear_out');
+  });
+});
