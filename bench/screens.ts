@@ -1,7 +1,7 @@
 import { call, type Person } from './client.ts';
 import { latency, type Latency } from './stats.ts';
 
-/** The API request behind each list and search screen (and the build detail), as the screen first asks it. */
+/** The API request behind each list, search, detail and reliability screen, as the screen first asks it. */
 export const SCREENS: readonly (readonly [label: string, path: (ids: Ids) => string])[] = [
   ['builds, first page', () => '/api/builds'],
   ['builds, delivered, by total', () => '/api/builds?status=delivered&sort=totalCents'],
@@ -29,12 +29,18 @@ export const SCREENS: readonly (readonly [label: string, path: (ids: Ids) => str
   ['claims, house batteries', () => '/api/claims?category=house_battery'],
   ['claims, failed in a month', () => '/api/claims?failedFrom=2025-03-01&failedTo=2025-03-31'],
   ['claims, logged in a month', () => '/api/claims?loggedFrom=2025-03-01&loggedTo=2025-03-31'],
+  ['reliability, by item', () => '/api/reliability'],
+  ['reliability, by vendor, a year', () => '/api/reliability?groupBy=vendor&from=2025-01&to=2025-12'],
+  ['reliability, one item', (ids) => `/api/reliability/item/${ids.reliabilityItemId}`],
+  ['reliability, one category', () => '/api/reliability/category/house_battery'],
 ];
 
 export interface Ids {
   buildId: number;
   customerId: number;
   claimId: number;
+  /** The item with the most failures the person sees: the largest single-item view. */
+  reliabilityItemId: string;
 }
 
 /** Figures of one screen for one person: latencies, or the refusal they get (a lead reads no audit log). */
@@ -48,9 +54,11 @@ async function firstOf(person: Person, list: string): Promise<number> {
   return first.id;
 }
 
-/** A build, a customer and a claim the person can open: the first of their lists. */
+/** A build, a customer and a claim the person can open (the first of their lists), and their most failed item. */
 export async function idsFor(person: Person): Promise<Ids> {
-  return { buildId: await firstOf(person, 'builds'), customerId: await firstOf(person, 'customers'), claimId: await firstOf(person, 'claims') };
+  const { rows } = JSON.parse((await call(person, 'GET', '/api/reliability')).body) as { rows: { key: string; failures: number }[] };
+  const reliabilityItemId = rows.reduce((most, row) => (row.failures > most.failures ? row : most)).key;
+  return { buildId: await firstOf(person, 'builds'), customerId: await firstOf(person, 'customers'), claimId: await firstOf(person, 'claims'), reliabilityItemId };
 }
 
 /** Each screen's request, a few times untimed to warm up, then `samples` times one after another. */

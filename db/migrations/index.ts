@@ -18,6 +18,7 @@ import * as indexClaimFilters from './016-index-claim-filters.ts';
 import * as indexLocationStatusSorts from './017-index-location-status-sorts.ts';
 import * as addClaimCatalogItems from './018-add-claim-catalog-items.ts';
 import * as createUnitExposure from './019-create-unit-exposure.ts';
+import * as fillPlanMargins from './020-fill-plan-margins.ts';
 
 /** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
 export const migrations: Record<string, Migration> = {
@@ -40,4 +41,5 @@ export const migrations: Record<string, Migration> = {
   '017-index-location-status-sorts': indexLocationStatusSorts,
   '018-add-claim-catalog-items': addClaimCatalogItems,
   '019-create-unit-exposure': createUnitExposure,
+  '020-fill-plan-margins': fillPlanMargins,
 };
