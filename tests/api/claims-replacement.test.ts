@@ -40,6 +40,13 @@ describe('replacing a failed unit', () => {
     expect(build.events.at(-1)).toMatchObject({ kind: 'correction', note: expect.stringContaining('replaced by') });
   });
 
+  it('lets the replacement be claimed only from the day it went in', async () => {
+    const on = (failedOn: string) =>
+      clerk.post('/api/claims').send({ buildItemId: claim.replacementItemId, failedOn, failureMode: 'cell_or_bms_fault', coverage: 'vendor_defect', symptoms: 'Dead again' });
+    expect((await on('2026-06-07')).body.error.fields).toEqual({ failedOn: 'The unit was put in on 2026-06-08: it cannot have failed before' });
+    expect((await on('2026-06-09')).status).toBe(201);
+  });
+
   it('takes one replacement per claim, and none from someone who does not work claims', async () => {
     expect((await replace({ serialNumber: 'NEW-0043', replacedOn: '2026-06-09' })).status).toBe(409);
     const accountant = await h.signedIn(SIGN_INS.accountant);

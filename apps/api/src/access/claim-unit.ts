@@ -16,7 +16,7 @@ export async function unitToClaim(db: Db, viewer: Viewer, body: ClaimCreate, now
     .innerJoin('builds as b', 'b.id', 'i.buildId')
     .innerJoin('catalogItems as ci', 'ci.id', 'i.catalogItemId')
     .innerJoin('locations as l', 'l.id', 'b.locationId')
-    .select(['i.id', 'i.buildId', 'i.catalogItemId', 'b.locationId', 'l.code', 'l.timeZone', 'b.status', 'b.deliveredAt', 'ci.warrantyMonths'])
+    .select(['i.id', 'i.buildId', 'i.catalogItemId', 'i.createdAt', 'b.locationId', 'l.code', 'l.timeZone', 'b.status', 'b.deliveredAt', 'ci.warrantyMonths'])
     .where('i.id', '=', body.buildItemId)
     .executeTakeFirst();
   if (!unit || !viewer.ability.can('read', subject('Build', { locationId: unit.locationId }))) throw notFound('component');
@@ -26,6 +26,9 @@ export async function unitToClaim(db: Db, viewer: Viewer, body: ClaimCreate, now
   const deliveredOn = isoDay(localDay(unit.timeZone, Date.parse(unit.deliveredAt)));
   const today = isoDay(localDay(unit.timeZone, now.getTime()));
   if (body.failedOn < deliveredOn) throw invalidField('failedOn', `The unit was delivered on ${deliveredOn}: it cannot have failed before`);
+  // A unit put in after delivery (a replacement, a correction) starts its life on the day it was added.
+  const addedOn = isoDay(localDay(unit.timeZone, Date.parse(unit.createdAt)));
+  if (addedOn > deliveredOn && body.failedOn < addedOn) throw invalidField('failedOn', `The unit was put in on ${addedOn}: it cannot have failed before`);
   if (body.failedOn > today) throw invalidField('failedOn', 'The failure date cannot be in the future');
   const warrantyEnds = addMonthsIso(deliveredOn, unit.warrantyMonths);
   const outOfWarranty = body.failedOn > warrantyEnds;
