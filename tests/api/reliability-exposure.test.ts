@@ -1,4 +1,4 @@
-import { dayOfIso } from '@busbar/calc';
+import { dayOfIso, kaplanMeier } from '@busbar/calc';
 import type { Db } from '@busbar/db';
 import { DAYS_PER_MONTH, type ReliabilityDetail } from '@busbar/shared';
 import fc from 'fast-check';
@@ -89,9 +89,20 @@ describe('exposure from the kept tables', () => {
       expect(point.unitMonths).toBeCloseTo(directUnitDays(here) / DAYS_PER_MONTH, 9);
       expect(point.failures).toBe(here.reduce((sum, u) => sum + u.failedOn.length, 0));
     }
-    // The survival curve sees the same units: 8 at risk at the first failure, after one day.
+    // Each install month's working units here went in on one day, so grouping them loses nothing:
+    // the survival curve is the Kaplan–Meier curve of the units one by one.
+    const oneByOne = units.flatMap((u) => [
+      ...u.failedOn.map((failedOn) => ({ time: dayOfIso(failedOn) - dayOfIso(u.installedOn), failed: true })),
+      ...Array.from({ length: u.quantity - u.failedOn.length }, () => ({ time: dayOfIso(TODAY) - dayOfIso(u.installedOn), failed: false })),
+    ]);
+    const expected = kaplanMeier(oneByOne);
+    expect(detail.survival).toHaveLength(expected.length);
+    detail.survival.forEach((point, i) => {
+      expect(point.months).toBeCloseTo(expected[i]!.time / DAYS_PER_MONTH, 9);
+      expect([point.atRisk, point.failures]).toEqual([expected[i]!.atRisk, expected[i]!.events]);
+      expect(point.survival).toBeCloseTo(expected[i]!.survival, 12);
+    });
     expect(detail.survival[0]).toMatchObject({ atRisk: 8, failures: 1 });
-    expect(detail.survival[0]!.months).toBeCloseTo(1 / DAYS_PER_MONTH, 9);
   });
 });
 
