@@ -49,6 +49,10 @@ describe('component reliability', () => {
     expect(await austin.locator('td').nth(5).textContent()).toMatch(/^\d+ of \d+ \(\d+ %\)$/);
     const [unitMonths, failures] = await Promise.all([austin.locator('td').nth(1).textContent(), austin.locator('td').nth(2).textContent()]);
     const allUnits = await figure(page, 'Units installed');
+    // Units on builds with a power plan, by how close their design came to its limits.
+    const margins = page.locator('.ant-card').filter({ has: page.getByText('Design margins', { exact: true }) });
+    await margins.getByText(/^[\d,]+ of [\d,]+ units are on builds with a power plan/).waitFor();
+    expect(await margins.getByRole('table', { name: "Tightest circuit's voltage drop against its limit" }).locator('tbody tr').count()).toBe(4);
 
     await austin.getByRole('button', { name: 'Show AUS only' }).click();
     await page.getByText('Showing units at AUS Austin.').waitFor();
