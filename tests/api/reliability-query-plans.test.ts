@@ -1,0 +1,68 @@
+import { dayOfIso } from '@busbar/calc';
+import type { Db } from '@busbar/db';
+import { createQueryId, sql, type KyselyPlugin } from 'kysely';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { reliabilityDetail } from '../../apps/api/src/reliability/detail.ts';
+import { reliabilityList } from '../../apps/api/src/reliability/list.ts';
+import { demoIds, startHarness, type Harness } from '../support/api-harness.ts';
+import { plansOf } from '../support/query-plans.ts';
+
+/**
+ * SQLite's plans for the reliability screens on the demo's history with statistics gathered: the
+ * whole network reads the per-item sums, a shop or a region its own cells through their index,
+ * one item its cells and failures by item; nothing walks builds, build lines or claims.
+ */
+let h: Harness;
+let ids: Awaited<ReturnType<typeof demoIds>>;
+beforeAll(async () => {
+  h = await startHarness({}, true, { history: true });
+  ids = await demoIds(h.db);
+  await sql`pragma optimize = 0x10002`.execute(h.db);
+}, 60_000);
+afterAll(() => h.close());
+
+const TODAY = { today: '2026-06-15', todayDay: dayOfIso('2026-06-15') };
+const planText = (plans: string[][]) => plans.flat().join('\n');
+
+/** The table each statement `run` sends reads first (its FROM). */
+async function tablesOf(run: (db: Db) => Promise<unknown>): Promise<string[]> {
+  const tables: string[] = [];
+  const recorder: KyselyPlugin = {
+    transformQuery: ({ node }) => {
+      tables.push(h.db.getExecutor().compileQuery(node, createQueryId()).sql.match(/ from "(\w+)"/)?.[1] ?? '?');
+      return node;
+    },
+    transformResult: async ({ result }) => result,
+  };
+  await run(h.db.withPlugin(recorder));
+  return tables;
+}
+
+describe('reliability query plans', () => {
+  it('the network list reads the per-item sums only, item by item', async () => {
+    const run = (db: typeof h.db) => reliabilityList(db, 'all', { groupBy: 'item' }, TODAY.today, TODAY.todayDay);
+    expect(await tablesOf(run)).toEqual(['catalog_items', 'vendors', 'unit_exposure_network']);
+    const plans = planText(await plansOf(h.db, run));
+    expect(plans).toMatch(/SEARCH x USING PRIMARY KEY \(catalog_item_id=\?\)/);
+    expect(plans).not.toMatch(/SCAN x\b/);
+  });
+
+  it("a shop's list reads its own cells through the location index, and the network's sums for the peers", async () => {
+    const run = (db: typeof h.db) => reliabilityList(db, [ids.location('DEN')], { groupBy: 'category' }, TODAY.today, TODAY.todayDay);
+    expect(await tablesOf(run)).toEqual(['catalog_items', 'vendors', 'unit_exposure', 'unit_exposure_network']);
+    const plans = planText(await plansOf(h.db, run));
+    expect(plans).toMatch(/SEARCH x USING COVERING INDEX unit_exposure_location \(location_id=\? AND catalog_item_id=\?\)/);
+    expect(plans).not.toMatch(/SCAN x\b/);
+  });
+
+  it("one item's view reads its cells and failures by item", async () => {
+    const item = await h.db.selectFrom('catalogItems').select('id').where('sku', '=', 'TDW-DC40').executeTakeFirstOrThrow();
+    const plans = planText(
+      await plansOf(h.db, (db) => reliabilityDetail(db, { groupBy: 'item', key: item.id }, 'all', new Map(), {}, TODAY.today, TODAY.todayDay)),
+    );
+    expect(plans).toMatch(/SEARCH x USING PRIMARY KEY \(catalog_item_id=\?\)/);
+    expect(plans).toMatch(/SEARCH unit_failures USING COVERING INDEX unit_failures_item \(catalog_item_id=\?\)/);
+    expect(plans).not.toMatch(/SCAN (x|unit_exposure|unit_failures)\b/);
+    expect(plans).not.toMatch(/builds|build_items|warranty_claims/);
+  });
+});
