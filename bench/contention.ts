@@ -24,7 +24,7 @@ function importCsv(rows: number): string {
 /**
  * The lead opens a build again and again, and adds a customer now and then, while the owner imports
  * `rows` builds and, meanwhile and for at least five seconds, reads the network's biggest lists
- * (text search, deep pages, the audit log).
+ * (text search, deep pages, the audit log, a category's reliability).
  */
 export async function detailDuringOwnerWork(owner: Person, lead: Person, shop: { locationId: number; buildId: number }, rows: number): Promise<ContentionFigures> {
   let busy = true;
@@ -34,7 +34,14 @@ export async function detailDuringOwnerWork(owner: Person, lead: Person, shop: {
     return { ...answer, ms: performance.now() - started };
   });
   const ownerLists = (async () => {
-    const paths = ['/api/builds?q=Holloway', '/api/builds?page=200', '/api/audit?entity=build&page=150', '/api/customers?q=ar', '/api/builds?status=delivered&sort=totalCents&order=asc'];
+    const paths = [
+      '/api/builds?q=Holloway',
+      '/api/builds?page=200',
+      '/api/audit?entity=build&page=150',
+      '/api/customers?q=ar',
+      '/api/builds?status=delivered&sort=totalCents&order=asc',
+      '/api/reliability/category/house_battery',
+    ];
     for (let i = 0; busy; i++) {
       await call(owner, 'GET', paths[i % paths.length]!);
       ownerRequests++;
