@@ -46,6 +46,10 @@ describe('who reads reliability', () => {
     const list = (await (await h.signedIn('lead@demo.busbar.test')).get('/api/reliability?groupBy=category').expect(200)).body as ReliabilityList;
     const owners = (await (await h.signedIn('owner@demo.busbar.test')).get(`/api/reliability?groupBy=category&locationIds=${ids.location('DEN')}`).expect(200)).body as ReliabilityList;
     expect(list.rows).toEqual(owners.rows);
+    // Beside each of the shop's rows, the network's rate of the same category.
+    const network = (await (await h.signedIn('owner@demo.busbar.test')).get('/api/reliability?groupBy=category').expect(200)).body as ReliabilityList;
+    for (const row of list.rows) expect(row.networkRate).toEqual(network.rows.find((r) => r.key === row.key)!.rate);
+    expect(list.rows.some((row) => row.rate?.estimate !== row.networkRate?.estimate)).toBe(true);
   });
 
   it('a location outside the scope answers 404; the own location narrows', async () => {

@@ -2,7 +2,7 @@ import type { Db } from '@busbar/db';
 import type { ReliabilityList, ReliabilityQuery, ReliabilityRow } from '@busbar/shared';
 import type { LocationScope } from '../access/locations.ts';
 import { unitSums, type UnitSums } from '../queries/unit-exposure.ts';
-import { addSums, figuresOf } from './figures.ts';
+import { addSums, figuresOf, NO_UNITS } from './figures.ts';
 import { catalogNames, labelOf } from './labels.ts';
 import { componentsToWatch, type ItemMonthSums } from './watch.ts';
 
@@ -18,20 +18,30 @@ export async function reliabilityList(db: Db, scope: LocationScope, query: Relia
   const inScope = byItemMonth(await unitSums(db, { scope, ...months }, 'itemMonth', today));
   const network = scope === 'all' ? inScope : byItemMonth(await unitSums(db, { scope: 'all', ...months }, 'itemMonth', today));
 
-  const groups = new Map<string, UnitSums[]>();
-  for (const [itemMonth, sums] of inScope) {
-    const itemId = Number(itemMonth.split(' ')[0]);
-    const item = names.items.get(itemId);
-    if (!item) continue;
-    const key = query.groupBy === 'item' ? String(itemId) : query.groupBy === 'category' ? item.category : String(item.vendorId);
-    groups.set(key, [...(groups.get(key) ?? []), sums]);
-  }
+  const groupOf = (itemMonth: string) => {
+    const item = names.items.get(Number(itemMonth.split(' ')[0]));
+    if (!item) return null;
+    return query.groupBy === 'item' ? String(item.id) : query.groupBy === 'category' ? item.category : String(item.vendorId);
+  };
+  const mine = byGroup(inScope, groupOf);
+  const everyone = scope === 'all' ? mine : byGroup(network, groupOf);
   const rows: ReliabilityRow[] = [];
-  for (const [key, sums] of groups) {
+  for (const [key, sums] of mine) {
     const named = labelOf(names, query.groupBy, key);
-    const total = addSums(sums);
-    if (named && total.units > 0) rows.push({ key, ...named, ...figuresOf(total, todayDay) });
+    if (!named || sums.units === 0) continue;
+    const networkRate = figuresOf(everyone.get(key)!, todayDay).rate;
+    rows.push({ key, ...named, ...figuresOf(sums, todayDay), networkRate });
   }
   rows.sort((a, b) => a.label.localeCompare(b.label));
   return { asOf: today, groupBy: query.groupBy, rows, watch: componentsToWatch(inScope, network, names, todayDay) };
+}
+
+/** Item-month sums added up by the group `groupOf` puts each in (none: left out). */
+function byGroup(sums: ItemMonthSums, groupOf: (itemMonth: string) => string | null): Map<string, UnitSums> {
+  const groups = new Map<string, UnitSums>();
+  for (const [itemMonth, s] of sums) {
+    const key = groupOf(itemMonth);
+    if (key !== null) groups.set(key, addSums([groups.get(key) ?? NO_UNITS, s]));
+  }
+  return groups;
 }

@@ -77,6 +77,8 @@ export interface ReliabilityRow extends ReliabilityFigures {
   key: string;
   label: string;
   category: Category | null;
+  /** The same group's rate across the whole network, for comparison. */
+  networkRate: Interval | null;
 }
 
 /** An item, or the units of it installed in one quarter, failing more than its peers; ranked by how unlikely its count is by chance. */
