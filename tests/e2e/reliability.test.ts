@@ -1,4 +1,5 @@
 import type { Locator, Page } from 'playwright-core';
+import { DEMO_SIGN_INS } from '../../db/demo/network.ts';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startE2e, type E2e } from '../support/e2e-harness.ts';
 
@@ -10,18 +11,8 @@ afterAll(async () => {
   await e2e?.close();
 });
 
-/** The demo's manager of the EAST region (Austin's), a generated person who signs in with the demo password. */
-async function eastManager(): Promise<string> {
-  const row = await e2e.harness.db
-    .selectFrom('users as u')
-    .innerJoin('roleAssignments as a', 'a.userId', 'u.id')
-    .innerJoin('regions as r', 'r.id', 'a.regionId')
-    .select('u.email')
-    .where('a.role', '=', 'regional_manager')
-    .where('r.code', '=', 'EAST')
-    .executeTakeFirstOrThrow();
-  return row.email;
-}
+/** The demo's manager of the EAST region, Austin's. */
+const EAST_MANAGER = DEMO_SIGN_INS.find((p) => p.role === 'regional_manager' && 'region' in p && p.region === 'EAST')!.email;
 
 /** No sideways scrolling at the page's current width. */
 const fitsWidth = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth <= document.documentElement.clientWidth);
@@ -32,7 +23,7 @@ const funnelRow = (page: Page, text: string): Locator => page.locator('.ant-tabl
 describe('component reliability', () => {
   it("the regional manager sees the funnel flag Austin's house batteries and opens Austin's own survival curve", async () => {
     const page = await e2e.newPage();
-    await e2e.signIn(page, await eastManager());
+    await e2e.signIn(page, EAST_MANAGER);
     await page.getByRole('navigation').getByText('Reliability', { exact: true }).click();
     await page.getByRole('heading', { level: 1, name: 'Component reliability' }).waitFor();
     await page.locator('.ant-segmented').getByText('Category', { exact: true }).click();
@@ -78,9 +69,26 @@ describe('component reliability', () => {
     await page.context().close();
   });
 
+  it("lists the bad batch of DC-DC chargers to watch, and opens the item at that quarter's install months", async () => {
+    const page = await e2e.newPage();
+    await e2e.signIn(page, 'owner@demo.busbar.test');
+    await page.goto('/reliability');
+    const watch = page.locator('.ant-card').filter({ has: page.getByText('Components to watch', { exact: true }) });
+    const batch = watch.locator('li').filter({ has: page.getByRole('link', { name: /^TDW-DC40 .*, installed \w{3} 2025 – \w{3} 2025$/ }) }).first();
+    await batch.waitFor();
+    expect(await batch.textContent()).toMatch(/Installed 2025-\d\d to 2025-\d\d: \d+ failures where [\d.]+ were expected/);
+    await batch.getByRole('link').click();
+    await page.getByRole('heading', { level: 1, name: /^TDW-DC40 / }).waitFor();
+    const query = new URL(page.url()).searchParams;
+    expect([query.get('from'), query.get('to')].every((month) => /^2025-\d\d$/.test(month ?? ''))).toBe(true);
+    expect(await page.getByPlaceholder('First month').inputValue()).toMatch(/^\w{3} 2025$/);
+    await page.locator('.figure-card').first().waitFor();
+    await page.context().close();
+  });
+
   it('fits a phone: the list and a detail scroll only downwards', async () => {
     const page = await e2e.newPage();
-    await e2e.signIn(page, await eastManager());
+    await e2e.signIn(page, EAST_MANAGER);
     await page.setViewportSize({ width: 390, height: 844 });
     await page.goto('/reliability');
     await page.getByText('Components to watch').waitFor();

@@ -10,9 +10,9 @@ const by = (figure: Figure) => (a: ReliabilityRow, b: ReliabilityRow) => (figure
  * The reliability list's columns, each sortable in the browser (the API answers every row at once).
  * A phone gets one column that stacks the figures under the name, sorted by rate.
  */
-export function reliabilityColumns(groupBy: ReliabilityGroup, narrow: boolean): TableColumnsType<ReliabilityRow> {
-  if (narrow) return [{ key: 'summary', title: `${GROUP_LABELS[groupBy]} and failures per 1,000 unit-months`, sorter: by((r) => r.rate?.estimate) }];
-  return [
+export function reliabilityColumns(groupBy: ReliabilityGroup, show: { narrow: boolean; network: boolean }): TableColumnsType<ReliabilityRow> {
+  if (show.narrow) return [{ key: 'summary', title: `${GROUP_LABELS[groupBy]} and failures per 1,000 unit-months`, sorter: by((r) => r.rate?.estimate) }];
+  const columns: TableColumnsType<ReliabilityRow> = [
     { key: 'label', title: GROUP_LABELS[groupBy], width: 300, sorter: (a, b) => a.label.localeCompare(b.label) },
     { key: 'units', title: 'Units', align: 'right', width: 90, sorter: by((r) => r.units) },
     { key: 'unitMonths', title: 'Unit-months', align: 'right', width: 120, sorter: by((r) => r.unitMonths) },
@@ -20,4 +20,10 @@ export function reliabilityColumns(groupBy: ReliabilityGroup, narrow: boolean): 
     { key: 'rate', title: 'Failures per 1,000 unit-months', align: 'right', width: 190, sorter: by((r) => r.rate?.estimate) },
     { key: 'warranty', title: 'Failed within warranty', align: 'right', width: 190, sorter: by((r) => r.warranty?.estimate) },
   ];
+  if (show.network) columns.splice(5, 0, { key: 'networkRate', title: 'Network, per 1,000 unit-months', align: 'right', width: 180, sorter: by((r) => r.networkRate?.estimate) });
+  return columns;
 }
+
+/** True when some row's rate is not the network's own, i.e. the person sees or chose part of the network. */
+export const differsFromNetwork = (rows: ReliabilityRow[]) =>
+  rows.some((r) => r.units > 0 && (r.rate?.estimate !== r.networkRate?.estimate || r.rate?.upper !== r.networkRate?.upper));

@@ -30,5 +30,13 @@ export function shareWithInterval(interval: Interval | null): string {
   return `${number(interval.estimate * 100, digits)} % (${number(interval.lower * 100, digits)}–${number(interval.upper * 100, digits)} %)`;
 }
 
+const monthNames = new Intl.DateTimeFormat('en-US', { month: 'short', year: 'numeric', timeZone: 'UTC' });
+
+/** Install months "2024-07" to "2024-09" in words: "Jul 2024 – Sep 2024"; one month alone: "Jul 2024". */
+export function monthRange(from: string, to: string): string {
+  const month = (ym: string) => monthNames.format(Date.UTC(Number(ym.slice(0, 4)), Number(ym.slice(5, 7)) - 1, 1));
+  return from === to ? month(from) : `${month(from)} – ${month(to)}`;
+}
+
 /** A ratio to peers, e.g. "3.4×". */
 export const times = (ratio: number) => `${number(ratio, ratio < 10 ? 1 : 0)}×`;
