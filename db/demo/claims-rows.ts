@@ -129,7 +129,7 @@ export function claimMaker(random: Random, { shops, catalog, firstId, nowMs, eve
         dueOn: dueDays === null ? null : isoDay(last.day + dueDays),
         vendorRmaNumber: draft.vendorRmaNumber, creditRequestedCents: draft.creditRequestedCents,
         creditApprovedCents: draft.creditApprovedCents, creditReceivedCents: draft.creditReceivedCents, replacementItemId,
-        createdBy: steps[0]!.by, createdAt: iso(steps[0]!.at), updatedAt: iso(Math.max(last.at, replacement?.at ?? 0)), version: changes,
+        createdBy: steps[0]!.by, createdAt: iso(steps[0]!.at), loggedOn: isoDay(steps[0]!.day), updatedAt: iso(Math.max(last.at, replacement?.at ?? 0)), version: changes,
       });
     }
     return rows;

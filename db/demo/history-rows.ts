@@ -2,7 +2,7 @@ import { buildTotals } from '@busbar/calc';
 import type { Insertable } from 'kysely';
 import type { Database } from '../schema/index.ts';
 import type { Random } from './draw.ts';
-import { isoDay } from '@busbar/calc';
+import { isoDay, localDay } from '@busbar/calc';
 import { atTheTime, serialNumbers } from './serials.ts';
 import { auditRows } from './history-audit.ts';
 import type { SimBuild, SimCustomer, SimVehicle } from './shop-history.ts';
@@ -111,6 +111,7 @@ export function historyRowMaker(
         bookedFor: booked && build.bookedForDay !== null ? isoDay(build.bookedForDay) : null,
         startedAt: startedAt === null ? null : iso(startedAt),
         deliveredAt: deliveredAt === null ? null : iso(deliveredAt),
+        deliveredOn: deliveredAt === null ? null : isoDay(localDay(shop.timeZone, deliveredAt)),
         laborHours: build.laborHours,
         laborRateCents: shop.laborRateCents,
         laborCents: totals.laborCents,

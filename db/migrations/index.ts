@@ -19,6 +19,7 @@ import * as indexLocationStatusSorts from './017-index-location-status-sorts.ts'
 import * as addClaimCatalogItems from './018-add-claim-catalog-items.ts';
 import * as createUnitExposure from './019-create-unit-exposure.ts';
 import * as fillPlanMargins from './020-fill-plan-margins.ts';
+import * as createRollups from './021-create-rollups.ts';
 
 /** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
 export const migrations: Record<string, Migration> = {
@@ -42,4 +43,5 @@ export const migrations: Record<string, Migration> = {
   '018-add-claim-catalog-items': addClaimCatalogItems,
   '019-create-unit-exposure': createUnitExposure,
   '020-fill-plan-margins': fillPlanMargins,
+  '021-create-rollups': createRollups,
 };

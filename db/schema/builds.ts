@@ -15,6 +15,8 @@ export interface BuildsTable {
   bookedFor: string | null;
   startedAt: string | null;
   deliveredAt: string | null;
+  /** Local date (YYYY-MM-DD) of `deliveredAt` in the location's zone, for the roll-ups. */
+  deliveredOn: Generated<string | null>;
   laborHours: number;
   /** The location's rate when the build was created. */
   laborRateCents: number;

@@ -16,6 +16,7 @@ import type { PowerPlanRevisionsTable } from './power-plan-revisions.ts';
 import type { PowerPlansTable } from './power-plans.ts';
 import type { RegionsTable } from './regions.ts';
 import type { RoleAssignmentsTable } from './role-assignments.ts';
+import type { RollupFiguresTable, RollupJobMixTable } from './rollups.ts';
 import type { SessionsTable } from './sessions.ts';
 import type { PlanMarginsTable, UnitExposureNetworkTable, UnitExposureTable, UnitFailuresTable } from './unit-exposure.ts';
 import type { UsersTable } from './users.ts';
@@ -45,4 +46,6 @@ export interface Database {
   unitExposureNetwork: UnitExposureNetworkTable;
   planMargins: PlanMarginsTable;
   unitFailures: UnitFailuresTable;
+  rollupFigures: RollupFiguresTable;
+  rollupJobMix: RollupJobMixTable;
 }

@@ -31,6 +31,8 @@ export interface WarrantyClaimsTable {
   replacementItemId: Generated<number | null>;
   createdBy: number | null;
   createdAt: string;
+  /** Local date (YYYY-MM-DD) of `createdAt` in the location's zone, for the roll-ups. */
+  loggedOn: Generated<string | null>;
   updatedAt: string;
   version: Generated<number>;
 }

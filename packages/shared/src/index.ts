@@ -14,3 +14,5 @@ export * from './schemas/plans.ts';
 export * from './schemas/plan-lists.ts';
 export * from './schemas/claims.ts';
 export * from './schemas/reliability.ts';
+export * from './rollup-periods.ts';
+export * from './schemas/rollups.ts';

@@ -11,6 +11,7 @@ import { validate } from '../middleware/validate.ts';
 import { writeAudit } from '../queries/audit.ts';
 import { addBuildEvent, changeBuild, recomputeTotals } from '../queries/build-changes.ts';
 import { buildItems, listBuilds, nextBuildNumber } from '../queries/builds.ts';
+import { localDayAt } from '../queries/rollups-local-day.ts';
 
 /** Builds of the locations a person may see: list, detail, booking, edits and the status workflow. */
 export function buildsRouter({ db, now }: AppContext): Router {
@@ -111,7 +112,7 @@ export function buildsRouter({ db, now }: AppContext): Router {
         await changeBuild(trx, row.id, body.version, at, {
           status: body.to,
           ...(body.to === 'in_bay' && !row.startedAt ? { startedAt: at } : {}),
-          ...(body.to === 'delivered' ? { deliveredAt: at } : {}),
+          ...(body.to === 'delivered' ? { deliveredAt: at, deliveredOn: await localDayAt(trx, row.locationId, at) } : {}),
         });
         await addBuildEvent(trx, { buildId: row.id, at, actorId: viewer.id, kind: 'status', fromStatus: row.status, toStatus: body.to, note: body.note });
         await writeAudit(trx, { at, actorId: viewer.id, action: 'build.status', entity: 'build', entityId: row.id, before: { status: row.status }, after: { status: body.to, note: body.note } });

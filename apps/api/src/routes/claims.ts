@@ -1,3 +1,4 @@
+import { isoDay, localDay } from '@busbar/calc';
 import { CLAIM_STATUS_LABELS, claimCreate, claimRuleSubject, claimQuery, claimStatusChange, claimUpdate, findClaimTransition, idParams } from '@busbar/shared';
 import { Router } from 'express';
 import { claimDetail, claimView, loadClaim } from '../access/claims.ts';
@@ -47,7 +48,7 @@ export function claimsRouter({ db, now }: AppContext): Router {
         const values = { ...body, locationId: unit.locationId, buildId: unit.buildId, sequence, number, status: 'logged' as const, dueOn: dueOnFor('logged', unit.timeZone, now()) };
         const row = await trx
           .insertInto('warrantyClaims')
-          .values({ ...values, catalogItemId: unit.catalogItemId, outOfWarranty: unit.outOfWarranty ? 1 : 0, createdBy: viewer.id, createdAt: at, updatedAt: at })
+          .values({ ...values, catalogItemId: unit.catalogItemId, outOfWarranty: unit.outOfWarranty ? 1 : 0, createdBy: viewer.id, createdAt: at, loggedOn: isoDay(localDay(unit.timeZone, Date.parse(at))), updatedAt: at })
           .returning('id')
           .executeTakeFirstOrThrow();
         await addClaimEvent(trx, { claimId: row.id, at, actorId: viewer.id, fromStatus: null, toStatus: 'logged', note: '' });

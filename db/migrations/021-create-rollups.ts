@@ -1,0 +1,154 @@
+import { isoDay, localDay } from '@busbar/calc';
+import { sql, type Kysely } from 'kysely';
+
+/**
+ * Roll-ups kept current: `rollup_figures` holds, per grain (day, week, month, quarter, year),
+ * period and location, the sums the roll-up figures are made of; `rollup_job_mix` the delivered
+ * builds by category of component installed. Periods are cut in each location's own zone: the app
+ * stores the local day a build was delivered (`builds.delivered_on`) and a claim was logged
+ * (`warranty_claims.logged_on`), since SQLite knows no time zones; a row written without one
+ * counts on its UTC day. `booked_for` is already a local day.
+ *
+ * Period keys sort as text within a grain: day YYYY-MM-DD, week the YYYY-MM-DD of its Monday (ISO
+ * weeks), month YYYY-MM, quarter YYYY-Qn, year YYYY.
+ *
+ * Triggers keep the tables current the way migration 019 does: before a change, take the rows
+ * concerned out as the source views show them; after it, put them back. The triggers and the
+ * period arithmetic in them are SQLite's; the tables and the queries reading them are plain SQL.
+ */
+const BOOKED = `('booked', 'in_bay', 'quality_check', 'delivered')`;
+const DELIVERED_DAY = `coalesce(b.delivered_on, substr(b.delivered_at, 1, 10))`;
+
+/** Each build once on its delivery day (if delivered) and once on its booked day (if booked and not cancelled). */
+const BUILD_SOURCE = `select b.id as build_id, b.location_id, ${DELIVERED_DAY} as day,
+    1 as builds_delivered, 0 as builds_booked, b.total_cents as revenue_cents, b.parts_cost_cents,
+    cast(round(b.labor_hours * 100) as integer) as labor_centihours, 0 as claims_opened, 0 as warranty_cost_cents, 0 as credits_received_cents
+  from builds b where b.status = 'delivered' and b.delivered_at is not null
+  union all
+  select b.id, b.location_id, b.booked_for, 0, 1, 0, 0, 0, 0, 0, 0
+  from builds b where b.status in ${BOOKED} and b.booked_for is not null`;
+
+/**
+ * Each claim on its logging day. Its warranty cost is its labor at its build's rate plus the credit
+ * asked of the vendor and not (yet) received.
+ */
+const CLAIM_SOURCE = `select c.id as claim_id, c.build_id, c.location_id, coalesce(c.logged_on, substr(c.created_at, 1, 10)) as day,
+    0 as builds_delivered, 0 as builds_booked, 0 as revenue_cents, 0 as parts_cost_cents, 0 as labor_centihours, 1 as claims_opened,
+    cast(round(c.labor_hours * b.labor_rate_cents) as integer) + max(c.credit_requested_cents - coalesce(c.credit_received_cents, 0), 0) as warranty_cost_cents,
+    coalesce(c.credit_received_cents, 0) as credits_received_cents
+  from warranty_claims c join builds b on b.id = c.build_id`;
+
+/** Each category of component on a delivered build, once a build. */
+const JOB_MIX_SOURCE = `select distinct b.id as build_id, b.location_id, ${DELIVERED_DAY} as day, ci.category
+  from builds b join build_items i on i.build_id = b.id join catalog_items ci on ci.id = i.catalog_item_id
+  where b.status = 'delivered' and b.delivered_at is not null`;
+
+const GRAINS = `(select 'day' as grain union all select 'week' union all select 'month' union all select 'quarter' union all select 'year') g`;
+const PERIOD = `case g.grain when 'day' then s.day
+  when 'week' then date(s.day, '-' || ((cast(strftime('%w', s.day) as integer) + 6) % 7) || ' days')
+  when 'month' then substr(s.day, 1, 7)
+  when 'quarter' then substr(s.day, 1, 4) || '-Q' || ((cast(substr(s.day, 6, 2) as integer) + 2) / 3)
+  else substr(s.day, 1, 4) end`;
+
+const FIGURES = ['builds_delivered', 'builds_booked', 'revenue_cents', 'parts_cost_cents', 'labor_centihours', 'claims_opened', 'warranty_cost_cents', 'credits_received_cents'];
+const KEY = 'grain, period, location_id';
+const JOB_MIX_KEY = 'grain, period, location_id, category';
+
+const figuresChange = (sign: 1 | -1, source: 'rollup_build_source' | 'rollup_claim_source', where: string) => `insert into rollup_figures (${KEY}, ${FIGURES.join(', ')})
+  select g.grain, ${PERIOD}, s.location_id, ${FIGURES.map((f) => `${sign} * sum(s.${f})`).join(', ')}
+  from ${source} s, ${GRAINS} where ${where} group by 1, 2, 3
+  on conflict (${KEY}) do update set ${FIGURES.map((f) => `${f} = ${f} + excluded.${f}`).join(', ')};`;
+
+const jobMixChange = (sign: 1 | -1, where: string) => `insert into rollup_job_mix (${JOB_MIX_KEY}, builds)
+  select g.grain, ${PERIOD}, s.location_id, s.category, ${sign} * count(*)
+  from rollup_job_mix_source s, ${GRAINS} where ${where} group by 1, 2, 3, 4
+  on conflict (${JOB_MIX_KEY}) do update set builds = builds + excluded.builds;`;
+
+const ofBuild = (sign: 1 | -1, where: string) => `${figuresChange(sign, 'rollup_build_source', where)}\n${jobMixChange(sign, where)}`;
+const ofItemsOf = (item: string) => `s.build_id in (select build_id from build_items where catalog_item_id = ${item}.id)`;
+
+const BUILD_COLUMNS = 'status, delivered_at, delivered_on, booked_for, location_id, total_cents, parts_cost_cents, labor_hours';
+const CLAIM_COLUMNS = 'build_id, location_id, logged_on, created_at, labor_hours, credit_requested_cents, credit_received_cents';
+
+/** [name, timing and event, body] */
+const TRIGGERS: [string, string, string][] = [
+  ['rollup_build_insert', 'after insert on builds', ofBuild(1, 's.build_id = new.id')],
+  ['rollup_build_before_update', `before update of ${BUILD_COLUMNS} on builds`, ofBuild(-1, 's.build_id = old.id')],
+  ['rollup_build_after_update', `after update of ${BUILD_COLUMNS} on builds`, ofBuild(1, 's.build_id = new.id')],
+  ['rollup_build_delete', 'before delete on builds', ofBuild(-1, 's.build_id = old.id')],
+  ['rollup_rate_before_update', 'before update of labor_rate_cents on builds', figuresChange(-1, 'rollup_claim_source', 's.build_id = old.id')],
+  ['rollup_rate_after_update', 'after update of labor_rate_cents on builds', figuresChange(1, 'rollup_claim_source', 's.build_id = new.id')],
+  ['rollup_item_before_insert', 'before insert on build_items', jobMixChange(-1, 's.build_id = new.build_id')],
+  ['rollup_item_after_insert', 'after insert on build_items', jobMixChange(1, 's.build_id = new.build_id')],
+  ['rollup_item_before_update', 'before update of build_id, catalog_item_id on build_items', jobMixChange(-1, 's.build_id in (old.build_id, new.build_id)')],
+  ['rollup_item_after_update', 'after update of build_id, catalog_item_id on build_items', jobMixChange(1, 's.build_id in (old.build_id, new.build_id)')],
+  ['rollup_item_before_delete', 'before delete on build_items', jobMixChange(-1, 's.build_id = old.build_id')],
+  ['rollup_item_after_delete', 'after delete on build_items', jobMixChange(1, 's.build_id = old.build_id')],
+  ['rollup_category_before_update', 'before update of category on catalog_items', jobMixChange(-1, ofItemsOf('old'))],
+  ['rollup_category_after_update', 'after update of category on catalog_items', jobMixChange(1, ofItemsOf('new'))],
+  ['rollup_claim_insert', 'after insert on warranty_claims', figuresChange(1, 'rollup_claim_source', 's.claim_id = new.id')],
+  ['rollup_claim_before_update', `before update of ${CLAIM_COLUMNS} on warranty_claims`, figuresChange(-1, 'rollup_claim_source', 's.claim_id = old.id')],
+  ['rollup_claim_after_update', `after update of ${CLAIM_COLUMNS} on warranty_claims`, figuresChange(1, 'rollup_claim_source', 's.claim_id = new.id')],
+  ['rollup_claim_delete', 'before delete on warranty_claims', figuresChange(-1, 'rollup_claim_source', 's.claim_id = old.id')],
+];
+
+/** Empties and refills both tables from their sources, after a bulk load that ran without triggers (and to check the kept tables). */
+export const REFILL_ROLLUPS = `delete from rollup_figures;\ndelete from rollup_job_mix;\n${ofBuild(1, 'true')}\n${figuresChange(1, 'rollup_claim_source', 'true')}`;
+
+export async function up(db: Kysely<any>): Promise<void> {
+  await sql`alter table builds add column delivered_on text`.execute(db);
+  await sql`alter table warranty_claims add column logged_on text`.execute(db);
+  await fillLocalDays(db);
+  await sql`create table rollup_figures (
+    grain text not null, period text not null, location_id integer not null,
+    ${sql.raw(FIGURES.map((f) => `${f} integer not null`).join(', '))},
+    primary key (${sql.raw(KEY)})
+  ) without rowid`.execute(db);
+  await sql`create table rollup_job_mix (
+    grain text not null, period text not null, location_id integer not null, category text not null, builds integer not null,
+    primary key (${sql.raw(JOB_MIX_KEY)})
+  ) without rowid`.execute(db);
+  await sql.raw(`create view rollup_build_source as ${BUILD_SOURCE}`).execute(db);
+  await sql.raw(`create view rollup_claim_source as ${CLAIM_SOURCE}`).execute(db);
+  await sql.raw(`create view rollup_job_mix_source as ${JOB_MIX_SOURCE}`).execute(db);
+  for (const [name, when, body] of TRIGGERS) await sql.raw(`create trigger ${name} ${when} begin ${body} end`).execute(db);
+  for (const statement of REFILL_ROLLUPS.split(';').filter((s) => s.trim())) await sql.raw(statement).execute(db);
+}
+
+const CHUNK = 400;
+
+/** Stores each delivered build's and each claim's local day, computed from its UTC time in its location's zone. */
+async function fillLocalDays(db: Kysely<any>): Promise<void> {
+  const targets = [
+    { table: 'builds', at: 'delivered_at', day: 'delivered_on' },
+    { table: 'warranty_claims', at: 'created_at', day: 'logged_on' },
+  ];
+  for (const { table, at, day } of targets) {
+    await sql`create temp table local_days (id integer primary key, day text not null)`.execute(db);
+    for (let after = 0; ; ) {
+      const rows = await sql<{ id: number; at: string; zone: string }>`select t.id, t.${sql.raw(at)} as at, l.time_zone as zone
+        from ${sql.raw(table)} t join locations l on l.id = t.location_id
+        where t.id > ${after} and t.${sql.raw(at)} is not null order by t.id limit 20000`.execute(db);
+      if (rows.rows.length === 0) break;
+      after = rows.rows.at(-1)!.id;
+      for (let i = 0; i < rows.rows.length; i += CHUNK) {
+        const values = rows.rows.slice(i, i + CHUNK).map((r) => sql`(${r.id}, ${isoDay(localDay(r.zone, Date.parse(r.at)))})`);
+        await sql`insert into local_days (id, day) values ${sql.join(values)}`.execute(db);
+      }
+    }
+    await sql`update ${sql.raw(table)} set ${sql.raw(day)} = (select d.day from local_days d where d.id = ${sql.raw(table)}.id)
+      where id in (select id from local_days)`.execute(db);
+    await sql`drop table temp.local_days`.execute(db);
+  }
+}
+
+export async function down(db: Kysely<any>): Promise<void> {
+  for (const [name] of TRIGGERS) await sql.raw(`drop trigger ${name}`).execute(db);
+  await sql`drop view rollup_job_mix_source`.execute(db);
+  await sql`drop view rollup_claim_source`.execute(db);
+  await sql`drop view rollup_build_source`.execute(db);
+  await sql`drop table rollup_job_mix`.execute(db);
+  await sql`drop table rollup_figures`.execute(db);
+  await sql`alter table warranty_claims drop column logged_on`.execute(db);
+  await sql`alter table builds drop column delivered_on`.execute(db);
+}

@@ -1,0 +1,31 @@
+import type { Category, RollupGrain } from '@busbar/shared';
+
+/**
+ * The sums the roll-up figures are made of, per grain, period and location (migration 021).
+ * Period keys: day YYYY-MM-DD, week the YYYY-MM-DD of its Monday, month YYYY-MM, quarter YYYY-Qn, year YYYY.
+ */
+export interface RollupFiguresTable {
+  grain: RollupGrain;
+  period: string;
+  locationId: number;
+  buildsDelivered: number;
+  /** Builds booked for a day of the period and not cancelled. */
+  buildsBooked: number;
+  revenueCents: number;
+  partsCostCents: number;
+  /** Labor hours of the delivered builds, in hundredths of an hour (each build's hours rounded). */
+  laborCentihours: number;
+  claimsOpened: number;
+  /** Claim labor at the build's rate plus credit asked of the vendor and not received, of the claims logged in the period. */
+  warrantyCostCents: number;
+  creditsReceivedCents: number;
+}
+
+/** Delivered builds with at least one component of the category, per grain, period and location. */
+export interface RollupJobMixTable {
+  grain: RollupGrain;
+  period: string;
+  locationId: number;
+  category: Category;
+  builds: number;
+}
