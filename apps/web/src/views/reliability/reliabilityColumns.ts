@@ -13,14 +13,14 @@ const by = (figure: Figure) => (a: ReliabilityRow, b: ReliabilityRow) => (figure
 export function reliabilityColumns(groupBy: ReliabilityGroup, show: { narrow: boolean; network: boolean }): TableColumnsType<ReliabilityRow> {
   if (show.narrow) return [{ key: 'summary', title: `${GROUP_LABELS[groupBy]} and failures per 1,000 unit-months`, sorter: by((r) => r.rate?.estimate) }];
   const columns: TableColumnsType<ReliabilityRow> = [
-    { key: 'label', title: GROUP_LABELS[groupBy], width: 300, sorter: (a, b) => a.label.localeCompare(b.label) },
-    { key: 'units', title: 'Units', align: 'right', width: 90, sorter: by((r) => r.units) },
-    { key: 'unitMonths', title: 'Unit-months', align: 'right', width: 120, sorter: by((r) => r.unitMonths) },
-    { key: 'failures', title: 'Failures', align: 'right', width: 90, sorter: by((r) => r.failures) },
-    { key: 'rate', title: 'Failures per 1,000 unit-months', align: 'right', width: 190, sorter: by((r) => r.rate?.estimate) },
-    { key: 'warranty', title: 'Failed within warranty', align: 'right', width: 190, sorter: by((r) => r.warranty?.estimate) },
+    { key: 'label', title: GROUP_LABELS[groupBy], width: 260, sorter: (a, b) => a.label.localeCompare(b.label) },
+    { key: 'units', title: 'Units', align: 'right', width: 70, sorter: by((r) => r.units) },
+    { key: 'unitMonths', title: 'Unit-months', align: 'right', width: 100, sorter: by((r) => r.unitMonths) },
+    { key: 'failures', title: 'Failures', align: 'right', width: 80, sorter: by((r) => r.failures) },
+    { key: 'rate', title: 'Failures per 1,000 unit-months', align: 'right', width: 150, sorter: by((r) => r.rate?.estimate) },
+    { key: 'warranty', title: 'Failed within warranty', align: 'right', width: 160, sorter: by((r) => r.warranty?.estimate) },
   ];
-  if (show.network) columns.splice(5, 0, { key: 'networkRate', title: 'Network, per 1,000 unit-months', align: 'right', width: 180, sorter: by((r) => r.networkRate?.estimate) });
+  if (show.network) columns.splice(5, 0, { key: 'networkRate', title: 'Network, per 1,000 unit-months', align: 'right', width: 150, sorter: by((r) => r.networkRate?.estimate) });
   return columns;
 }
 
