@@ -23,6 +23,7 @@ import { invitesRouter } from './routes/invites.ts';
 import { planStockRouter } from './routes/plan-stock.ts';
 import { plansRouter } from './routes/plans.ts';
 import { reliabilityRouter } from './routes/reliability.ts';
+import { rollupsRouter } from './routes/rollups.ts';
 import { SESSION_COOKIE, sessionRouter } from './routes/session.ts';
 import { serialsRouter } from './routes/serials.ts';
 import { staffRouter } from './routes/staff.ts';
@@ -74,6 +75,7 @@ export function createApp(ctx: AppContext): Express {
   app.use('/api/claims', requireSession(db), claimsRouter(ctx), claimEvidenceRouter(ctx), claimSendRouter(ctx), claimReplacementRouter(ctx));
   app.use('/api/serials', requireSession(db), serialsRouter(ctx));
   app.use('/api/reliability', requireSession(db), reliabilityRouter(ctx));
+  app.use('/api/rollups', requireSession(db), rollupsRouter(ctx));
   app.use('/api/imports', requireSession(db), importsRouter(ctx));
   app.use('/api', requireSession(db), adminRouter(ctx));
   app.use('/api', () => {

@@ -86,6 +86,7 @@ const grantsByRole: Record<Role, (b: Builder, a: RuleAssignment, person: RulePer
     can('plan', 'Build', at);
     can('send', 'Claim', at);
     can('read', 'Reliability', at);
+    can('read', 'Report', at);
     // Up to the location's approval limit; a claim's subject says whether its credit is above it.
     can('approve', 'Claim', { ...at, aboveLimit: { $ne: true } });
     can('read', ['CatalogItem', 'Vendor']);

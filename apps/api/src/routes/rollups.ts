@@ -1,0 +1,29 @@
+import { rollupQuery } from '@busbar/shared';
+import { Router } from 'express';
+import { locationScope } from '../access/locations.ts';
+import type { AppContext } from '../context.ts';
+import { forbidden } from '../errors.ts';
+import { viewerOf } from '../middleware/session.ts';
+import { validate } from '../middleware/validate.ts';
+import { rollupReport } from '../queries/rollups-report.ts';
+
+/**
+ * Roll-ups of the person's locations by day, week, month, quarter or year, each period beside the
+ * one before and the same one a year before, with the whole network's totals. A lead receives their
+ * shop and the network, no other shop; people who read no reports (technicians, warranty clerks) 403.
+ */
+export function rollupsRouter({ db }: AppContext): Router {
+  const router = Router();
+
+  router.get(
+    '/',
+    validate({ query: rollupQuery }, async ({ query }, req, res) => {
+      const viewer = viewerOf(req);
+      const scope = locationScope(viewer, 'read', 'Report');
+      if (scope !== 'all' && scope.length === 0) throw forbidden('You cannot read the figures of any location');
+      res.json(await rollupReport(db, viewer, query, scope));
+    }),
+  );
+
+  return router;
+}
