@@ -106,14 +106,16 @@ describe('component reliability', () => {
     await e2e.signIn(page, 'lead@demo.busbar.test');
     await page.getByRole('navigation').getByText('Reliability', { exact: true }).click();
     await page.locator('.ant-table-row').first().waitFor();
-    // One shop needs no shop picker.
-    expect(await page.getByText('Shops', { exact: true }).count()).toBe(0);
+    // The shop's rates read beside the network's.
+    await page.getByRole('columnheader', { name: /Network, per 1,000 unit-months/ }).waitFor();
     // A link naming another shop (Austin) drops that shop: the page shows the lead's own.
     const { id: austinId } = await e2e.harness.db.selectFrom('locations').select('id').where('code', '=', 'AUS').executeTakeFirstOrThrow();
     await page.goto(`/reliability/category/house_battery?locations=${austinId}`);
     await funnelRow(page, 'DEN Denver').waitFor();
     await expect.poll(() => new URL(page.url()).searchParams.has('locations')).toBe(false);
     expect(await page.locator('.survival-frame').getAttribute('aria-label')).toMatch(/^Share of units at DEN Denver still working/);
+    // The page knows the lead's one shop by now: one shop needs no shop picker.
+    expect(await page.getByText('Shops', { exact: true }).count()).toBe(0);
     const rows = await page.locator('.ant-table-row').allTextContents();
     expect(rows.filter((text) => text.includes('Another shop')).length).toBe(rows.length - 1);
     const others = await e2e.harness.db.selectFrom('locations').select(['code', 'name']).where('code', '!=', 'DEN').execute();
