@@ -1,0 +1,118 @@
+import type { Rollups } from '@busbar/shared';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { loadViewer } from '../../apps/api/src/access/viewer.ts';
+import { rollupReport } from '../../apps/api/src/queries/rollups-report.ts';
+import { demoIds, startHarness, type Harness } from '../support/api-harness.ts';
+
+let h: Harness;
+let ids: Awaited<ReturnType<typeof demoIds>>;
+beforeAll(async () => {
+  h = await startHarness({}, true, { history: true });
+  ids = await demoIds(h.db);
+}, 60_000);
+afterAll(() => h.close());
+
+const WEST = ['DEN', 'BOI', 'PDX', 'PHX'];
+const EAST = ['AUS', 'DLH', 'AVL', 'BTV'];
+const YEAR_BY_MONTH = '/api/rollups?from=2025-07-01&to=2026-06-30&grain=month';
+const MONEY = ['revenueCents', 'partsCostCents', 'grossMarginCents', 'averageTicketCents', 'warrantyCostCents', 'warrantyCostShare', 'vendorCreditsReceivedCents'];
+
+async function rollupsOf(email: string, path = YEAR_BY_MONTH): Promise<Rollups> {
+  return (await (await h.signedIn(email)).get(path).expect(200)).body as Rollups;
+}
+const locationsIn = (answer: Rollups) => [...new Set(answer.rows.map((r) => r.locationId))].sort((a, b) => a - b);
+const idsOf = (codes: string[]) => codes.map((c) => ids.location(c)).sort((a, b) => a - b);
+
+describe('who reads the roll-ups', () => {
+  it('the owner and a network accountant read every location, both regions and the network, with money', async () => {
+    const owner = await rollupsOf('owner@demo.busbar.test');
+    expect(locationsIn(owner)).toEqual(idsOf([...WEST, ...EAST]));
+    expect([...new Set(owner.regions.map((r) => r.regionId))].sort()).toEqual([ids.region('WEST'), ids.region('EAST')].sort());
+    expect(owner.periods).toHaveLength(12);
+    for (const field of MONEY) expect(owner.rows[0]).toHaveProperty(field);
+    expect(await rollupsOf('accountant@demo.busbar.test')).toEqual(owner);
+    // The network is the sum of its locations.
+    const may = owner.network.find((n) => n.period === '2026-05')!;
+    const shops = owner.rows.filter((r) => r.period === '2026-05');
+    expect(may.buildsDelivered).toBe(shops.reduce((sum, r) => sum + r.buildsDelivered, 0));
+    expect(may.revenueCents).toBe(shops.reduce((sum, r) => sum + r.revenueCents!, 0));
+  });
+
+  it("a regional manager reads their region's locations and region, and the whole network's totals", async () => {
+    const owner = await rollupsOf('owner@demo.busbar.test');
+    const west = await rollupsOf('regional@demo.busbar.test');
+    expect(locationsIn(west)).toEqual(idsOf(WEST));
+    expect(west.regions.map((r) => r.regionId)).toEqual(west.regions.map(() => ids.region('WEST')));
+    expect(west.rows).toEqual(owner.rows.filter((r) => idsOf(WEST).includes(r.locationId)));
+    expect(west.network).toEqual(owner.network);
+    const region = west.regions.find((r) => r.period === '2026-05')!;
+    expect(region.buildsDelivered).toBe(west.rows.filter((r) => r.period === '2026-05').reduce((sum, r) => sum + r.buildsDelivered, 0));
+    for (const field of MONEY) expect(west.rows[0]).toHaveProperty(field);
+  });
+
+  it("a lead reads their shop and the network's totals, and never another shop's id, nor any region", async () => {
+    const owner = await rollupsOf('owner@demo.busbar.test');
+    const lead = await rollupsOf('lead@demo.busbar.test');
+    const den = ids.location('DEN');
+    expect(locationsIn(lead)).toEqual([den]);
+    expect(lead.rows).toEqual(owner.rows.filter((r) => r.locationId === den));
+    expect(lead.network).toEqual(owner.network);
+    expect(lead.regions).toEqual([]);
+    for (const field of MONEY) expect(lead.rows[0]).toHaveProperty(field);
+    const text = JSON.stringify(lead);
+    expect(text.match(/"locationId":\d+/g)!.every((m) => m === `"locationId":${den}`)).toBe(true);
+    for (const name of ['Boise', 'Austin', 'Portland', 'Asheville', 'Denver']) expect(text).not.toContain(name);
+    // Asheville's lead reads Asheville, never Denver.
+    expect(locationsIn(await rollupsOf('lead2@demo.busbar.test'))).toEqual([ids.location('AVL')]);
+  });
+
+  it('technicians and warranty clerks read no roll-ups', async () => {
+    for (const email of ['tech@demo.busbar.test', 'warranty@demo.busbar.test']) {
+      const res = await (await h.signedIn(email)).get(YEAR_BY_MONTH).expect(403);
+      expect(res.body.error.message).toBe('You cannot read the figures of any location');
+      expect(JSON.stringify(res.body)).not.toContain('revenueCents');
+    }
+    await (await h.agent()).get(YEAR_BY_MONTH).expect(401);
+  });
+
+  it('leaves out the money a person may not read where the figures come from', async () => {
+    const query = { from: '2026-01-01', to: '2026-03-31', grain: 'month' as const };
+    const scope = [ids.location('DEN')];
+    const asTech = await rollupReport(h.db, (await loadViewer(h.db, ids.user('tech@demo.busbar.test')))!, query, scope);
+    // A technician reads prices but not costs; a warranty clerk neither.
+    expect(asTech.rows.length).toBeGreaterThan(0);
+    for (const row of [...asTech.rows, ...asTech.network]) {
+      expect(row).toHaveProperty('revenueCents');
+      expect(row).not.toHaveProperty('partsCostCents');
+      expect(row).not.toHaveProperty('grossMarginCents');
+    }
+    const asClerk = await rollupReport(h.db, (await loadViewer(h.db, ids.user('warranty@demo.busbar.test')))!, query, scope);
+    for (const row of [...asClerk.rows, ...asClerk.network]) {
+      for (const field of MONEY) expect(row).not.toHaveProperty(field);
+      expect(row.buildsDelivered).toBeGreaterThanOrEqual(0);
+    }
+    const asLead = await rollupReport(h.db, (await loadViewer(h.db, ids.user('lead@demo.busbar.test')))!, query, scope);
+    expect(asLead.rows.map((r) => r.partsCostCents)).toEqual(asLead.rows.map((r) => expect.any(Number)));
+  });
+});
+
+describe('asking for roll-ups', () => {
+  const ask = async (query: string) => (await (await h.signedIn('owner@demo.busbar.test')).get(`/api/rollups?${query}`).expect(400)).body.error;
+
+  it('answers a missing or wrong field in plain words, naming it', async () => {
+    expect((await ask('from=2026-01-01&to=2026-02-01')).fields.grain).toBe('Pick day, week, month, quarter or year');
+    expect((await ask('from=2026-01-01&to=2026-02-01&grain=fortnight')).fields.grain).toBe('Pick day, week, month, quarter or year');
+    expect((await ask('from=2026-02-30&to=2026-03-01&grain=day')).fields.from).toBe('Use a date like 2026-03-31');
+    expect((await ask('to=2026-03-01&grain=day')).fields.from).toBe('Use a date like 2026-03-31');
+    expect((await ask('from=2026-03-01&to=2026-02-01&grain=day')).fields.to).toBe('Pick an end on or after the start');
+    expect((await ask('from=2026-01-01&to=2026-02-01&grain=day&locationId=3')).fields.locationId).toBe('Unknown field');
+  });
+
+  it('caps a request at 400 periods', async () => {
+    await (await h.signedIn('owner@demo.busbar.test')).get('/api/rollups?from=2025-01-01&to=2026-02-04&grain=day').expect(200);
+    const error = await ask('from=2025-01-01&to=2026-02-05&grain=day');
+    expect(error.fields.to).toBe('Pick at most 400 periods: a shorter range or a longer period');
+    // The same range by week is 58 periods.
+    await (await h.signedIn('owner@demo.busbar.test')).get('/api/rollups?from=2025-01-01&to=2026-02-05&grain=week').expect(200);
+  });
+});
