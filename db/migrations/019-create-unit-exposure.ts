@@ -14,7 +14,9 @@ import { sql, type Kysely } from 'kysely';
  * most margin, 4 past the limit; 0 no plan), filled by the API whenever a build's plan changes.
  *
  * Triggers keep the tables current the way the search indexes are (migration 015): before a change,
- * take the rows concerned out as the source views show them; after it, put them back.
+ * take the rows concerned out as the source views show them; after it, put them back. The cells'
+ * sums by location and by network follow each change of a cell; `unit_failures` keeps each claim
+ * with its unit's days.
  */
 const DAY = (date: string) => `cast(julianday(${date}) - 2440587.5 as integer)`;
 
@@ -77,21 +79,27 @@ const FAILURE_TRIGGERS: [string, string, string][] = [
 ];
 
 /**
- * `unit_exposure_network` is the same counts summed over every location and band, per item and
- * install month (a few thousand rows), for the whole network's figures; its triggers add each
- * change of a cell.
+ * Two sums of the cells, kept by triggers that add each change of a cell: per item, location and
+ * install month without the bands (`unit_exposure_by_location`, for a shop's, a region's or an
+ * item's figures), and per item and month over the whole network (`unit_exposure_network`, a few
+ * thousand rows). `unit_exposure` itself, keyed by item and bands first, serves the margins.
  */
-const NETWORK_KEY = 'catalog_item_id, installed_month';
-const networkChange = (values: string) => `insert into unit_exposure_network (${NETWORK_KEY}, ${COUNTS.join(', ')})
-  values (new.catalog_item_id, new.installed_month, ${values})
-  on conflict (${NETWORK_KEY}) do update set ${COUNTS.map((c) => `${c} = ${c} + excluded.${c}`).join(', ')};`;
-const NETWORK_TRIGGERS: [string, string, string][] = [
-  ['unit_exposure_network_insert', 'after insert on unit_exposure', COUNTS.map((c) => `new.${c}`).join(', ')],
-  ['unit_exposure_network_update', 'after update on unit_exposure', COUNTS.map((c) => `new.${c} - old.${c}`).join(', ')],
+const SUMMARIES: [table: string, key: string][] = [
+  ['unit_exposure_by_location', 'catalog_item_id, location_id, installed_month'],
+  ['unit_exposure_network', 'catalog_item_id, installed_month'],
+];
+const summaryChange = ([table, key]: [string, string], values: string) => `insert into ${table} (${key}, ${COUNTS.join(', ')})
+  values (${key.split(', ').map((c) => `new.${c}`).join(', ')}, ${values})
+  on conflict (${key}) do update set ${COUNTS.map((c) => `${c} = ${c} + excluded.${c}`).join(', ')};`;
+const SUMMARY_TRIGGERS: [string, string, string][] = [
+  ['unit_exposure_summary_insert', 'after insert on unit_exposure', COUNTS.map((c) => `new.${c}`).join(', ')],
+  ['unit_exposure_summary_update', 'after update on unit_exposure', COUNTS.map((c) => `new.${c} - old.${c}`).join(', ')],
 ];
 
-/** Empties and refills `unit_exposure` (and through its triggers the network's sums) from its sources, after a bulk load that ran without triggers. */
-export const REFILL_UNIT_EXPOSURE = `delete from unit_failures;\ndelete from unit_exposure_network;\ndelete from unit_exposure;\n${change(1, 'true', 'both')}`;
+/** Empties and refills `unit_exposure` (and through its triggers its sums) from its sources, after a bulk load that ran without triggers. */
+export const REFILL_UNIT_EXPOSURE = `delete from unit_failures;\n${SUMMARIES.map(([table]) => `delete from ${table};`).join('\n')}\ndelete from unit_exposure;\n${change(1, 'true', 'both')}`;
+
+const countColumns = COUNTS.map((c) => `${c} integer not null`).join(', ');
 
 export async function up(db: Kysely<any>): Promise<void> {
   await sql`create table plan_margins (
@@ -102,15 +110,12 @@ export async function up(db: Kysely<any>): Promise<void> {
   )`.execute(db);
   await sql`create table unit_exposure (
     catalog_item_id integer not null, location_id integer not null, installed_month text not null,
-    drop_band integer not null, load_band integer not null, discharge_band integer not null,
-    ${sql.raw(COUNTS.map((c) => `${c} integer not null`).join(', '))},
-    primary key (${sql.raw(KEY)})
+    drop_band integer not null, load_band integer not null, discharge_band integer not null, ${sql.raw(countColumns)},
+    primary key (catalog_item_id, drop_band, load_band, discharge_band, location_id, installed_month)
   ) without rowid`.execute(db);
-  await sql`create table unit_exposure_network (
-    catalog_item_id integer not null, installed_month text not null,
-    ${sql.raw(COUNTS.map((c) => `${c} integer not null`).join(', '))},
-    primary key (${sql.raw(NETWORK_KEY)})
-  ) without rowid`.execute(db);
+  for (const [table, key] of SUMMARIES) {
+    await sql.raw(`create table ${table} (${key.split(', ').map((c) => `${c} ${c === 'installed_month' ? 'text' : 'integer'} not null`).join(', ')}, ${countColumns}, primary key (${key})) without rowid`).execute(db);
+  }
   await sql`create table unit_failures (
     claim_id integer primary key, build_item_id integer not null, build_id integer not null, catalog_item_id integer not null,
     location_id integer not null, installed_day integer not null, failed_day integer not null, failure_mode text not null, coverage text not null
@@ -118,9 +123,11 @@ export async function up(db: Kysely<any>): Promise<void> {
   await sql`create index unit_failures_item on unit_failures (catalog_item_id, installed_day, location_id, failed_day, failure_mode, coverage)`.execute(db);
   await sql`create index unit_failures_build on unit_failures (build_id)`.execute(db);
   await sql`create index unit_failures_build_item on unit_failures (build_item_id)`.execute(db);
-  // A lead's or a region's locations read their cells through this index alone.
-  await sql.raw(`create index unit_exposure_location on unit_exposure (location_id, catalog_item_id, installed_month, ${COUNTS.join(', ')})`).execute(db);
-  for (const [name, when, values] of NETWORK_TRIGGERS) await sql.raw(`create trigger ${name} ${when} begin ${networkChange(values)} end`).execute(db);
+  // A lead's or a region's locations read their sums through this index alone.
+  await sql.raw(`create index unit_exposure_location on unit_exposure_by_location (location_id, catalog_item_id, installed_month, ${COUNTS.join(', ')})`).execute(db);
+  for (const [name, when, values] of SUMMARY_TRIGGERS) {
+    await sql.raw(`create trigger ${name} ${when} begin ${SUMMARIES.map((summary) => summaryChange(summary, values)).join('\n')} end`).execute(db);
+  }
   await sql.raw(`create view installed_unit_source as ${UNIT_SOURCE}`).execute(db);
   await sql.raw(`create view failed_unit_source as ${FAILURE_SOURCE}`).execute(db);
   for (const [name, when, sign, where, what] of TRIGGERS) await sql.raw(`create trigger ${name} ${when} begin ${change(sign, where, what)} end`).execute(db);
@@ -129,11 +136,11 @@ export async function up(db: Kysely<any>): Promise<void> {
 }
 
 export async function down(db: Kysely<any>): Promise<void> {
-  for (const [name] of [...TRIGGERS, ...NETWORK_TRIGGERS, ...FAILURE_TRIGGERS]) await sql.raw(`drop trigger ${name}`).execute(db);
+  for (const [name] of [...TRIGGERS, ...SUMMARY_TRIGGERS, ...FAILURE_TRIGGERS]) await sql.raw(`drop trigger ${name}`).execute(db);
   await sql`drop view failed_unit_source`.execute(db);
   await sql`drop view installed_unit_source`.execute(db);
   await sql`drop table unit_failures`.execute(db);
-  await sql`drop table unit_exposure_network`.execute(db);
+  for (const [table] of SUMMARIES) await sql.raw(`drop table ${table}`).execute(db);
   await sql`drop table unit_exposure`.execute(db);
   await sql`drop table plan_margins`.execute(db);
 }

@@ -18,8 +18,11 @@ export interface UnitExposureTable {
   warrantyFailures: number;
 }
 
+/** The same counts summed over the bands, per catalog item, location and install month. */
+export type UnitExposureByLocationTable = Omit<UnitExposureTable, 'dropBand' | 'loadBand' | 'dischargeBand'>;
+
 /** The same counts summed over every location and band, per catalog item and install month. */
-export type UnitExposureNetworkTable = Omit<UnitExposureTable, 'locationId' | 'dropBand' | 'loadBand' | 'dischargeBand'>;
+export type UnitExposureNetworkTable = Omit<UnitExposureByLocationTable, 'locationId'>;
 
 /** How close a build's power plan runs to its limits, in bands: 1 the most margin, 4 past the limit. */
 export interface PlanMarginsTable {

@@ -60,7 +60,7 @@ export async function reliabilityDetail(
 }
 
 async function marginsOf(db: Db, filter: UnitFilter, today: string, todayDay: number): Promise<Pick<ReliabilityDetail, 'margins' | 'plannedUnits'>> {
-  const planned = (await unitSums(db, filter, 'bands', today)).filter((cell) => Number(cell.key) > 0);
+  const planned = await unitSums(db, filter, 'bands', today);
   const digitOf = (key: string | number, measure: MarginMeasure) => Math.floor(Number(key) / 10 ** (2 - MARGIN_MEASURES.indexOf(measure))) % 10;
   const margins = MARGIN_MEASURES.flatMap((measure) =>
     ([1, 2, 3, 4] as const).flatMap((band) => {
