@@ -54,14 +54,15 @@ const FIGURES = ['builds_delivered', 'builds_booked', 'revenue_cents', 'parts_co
 const KEY = 'grain, period, location_id';
 const JOB_MIX_KEY = 'grain, period, location_id, category';
 
-const figuresChange = (sign: 1 | -1, source: 'rollup_build_source' | 'rollup_claim_source', where: string) => `insert into rollup_figures (${KEY}, ${FIGURES.join(', ')})
+const figuresChange = (sign: 1 | -1, source: string, where: string, grains = GRAINS) => `insert into rollup_figures (${KEY}, ${FIGURES.join(', ')})
   select g.grain, ${PERIOD}, s.location_id, ${FIGURES.map((f) => `${sign} * sum(s.${f})`).join(', ')}
-  from ${source} s, ${GRAINS} where ${where} group by 1, 2, 3
+  from ${source} s, ${grains} where ${where} group by 1, 2, 3
   on conflict (${KEY}) do update set ${FIGURES.map((f) => `${f} = ${f} + excluded.${f}`).join(', ')};`;
 
-const jobMixChange = (sign: 1 | -1, where: string) => `insert into rollup_job_mix (${JOB_MIX_KEY}, builds)
-  select g.grain, ${PERIOD}, s.location_id, s.category, ${sign} * count(*)
-  from rollup_job_mix_source s, ${GRAINS} where ${where} group by 1, 2, 3, 4
+/** `source` rows are one build and category each, unless they carry a count of `builds`. */
+const jobMixChange = (sign: 1 | -1, where: string, grains = GRAINS, source = '') => `insert into rollup_job_mix (${JOB_MIX_KEY}, builds)
+  select g.grain, ${PERIOD}, s.location_id, s.category, ${sign} * ${source ? 'sum(s.builds)' : 'count(*)'}
+  from ${source || 'rollup_job_mix_source'} s, ${grains} where ${where} group by 1, 2, 3, 4
   on conflict (${JOB_MIX_KEY}) do update set builds = builds + excluded.builds;`;
 
 const ofBuild = (sign: 1 | -1, where: string) => `${figuresChange(sign, 'rollup_build_source', where)}\n${jobMixChange(sign, where)}`;
@@ -92,8 +93,20 @@ const TRIGGERS: [string, string, string][] = [
   ['rollup_claim_delete', 'before delete on warranty_claims', figuresChange(-1, 'rollup_claim_source', 's.claim_id = old.id')],
 ];
 
-/** Empties and refills both tables from their sources, after a bulk load that ran without triggers (and to check the kept tables). */
-export const REFILL_ROLLUPS = `delete from rollup_figures;\ndelete from rollup_job_mix;\n${ofBuild(1, 'true')}\n${figuresChange(1, 'rollup_claim_source', 'true')}`;
+const DAYS = `(select 'day' as grain) g`;
+const LONGER = `(select 'week' as grain union all select 'month' union all select 'quarter' union all select 'year') g`;
+
+/**
+ * Empties and refills both tables from their sources, after a bulk load that ran without triggers
+ * (and to check the kept tables): the days from the sources, the longer periods from the days.
+ */
+export const REFILL_ROLLUPS = `delete from rollup_figures;
+delete from rollup_job_mix;
+${figuresChange(1, 'rollup_build_source', 'true', DAYS)}
+${figuresChange(1, 'rollup_claim_source', 'true', DAYS)}
+${jobMixChange(1, 'true', DAYS)}
+${figuresChange(1, `(select location_id, period as day, ${FIGURES.join(', ')} from rollup_figures where grain = 'day')`, 'true', LONGER)}
+${jobMixChange(1, 'true', LONGER, `(select location_id, period as day, category, builds from rollup_job_mix where grain = 'day')`)}`;
 
 export async function up(db: Kysely<any>): Promise<void> {
   await sql`alter table builds add column delivered_on text`.execute(db);
