@@ -3,69 +3,85 @@ import { sql, type Kysely } from 'kysely';
 
 /**
  * Roll-ups kept current: `rollup_figures` holds, per grain (day, week, month, quarter, year),
- * period and location, the sums the roll-up figures are made of; `rollup_job_mix` the delivered
- * builds by category of component installed. Periods are cut in each location's own zone: the app
- * stores the local day a build was delivered (`builds.delivered_on`) and a claim was logged
- * (`warranty_claims.logged_on`), since SQLite knows no time zones; a row written without one
- * counts on its UTC day. `booked_for` is already a local day.
+ * period and location, the sums the roll-up figures are made of, and the job mix: delivered builds
+ * with a component of each category (one column a category, so a period of a location is one
+ * row). Periods are cut in each location's own zone: the app stores the local day a build was
+ * delivered (`builds.delivered_on`) and a claim was logged (`warranty_claims.logged_on`), since
+ * SQLite knows no time zones; a row written without one (straight into the database) counts on its
+ * UTC day. `booked_for` is already a local day.
  *
  * Period keys sort as text within a grain: day YYYY-MM-DD, week the YYYY-MM-DD of its Monday (ISO
  * weeks), month YYYY-MM, quarter YYYY-Qn, year YYYY.
  *
- * Triggers keep the tables current the way migration 019 does: before a change, take the rows
+ * Triggers keep the table current the way migration 019 does: before a change, take the rows
  * concerned out as the source views show them; after it, put them back. The triggers and the
- * period arithmetic in them are SQLite's; the tables and the queries reading them are plain SQL.
+ * period arithmetic in them are SQLite's; the table and the queries reading it are plain SQL.
  */
+
+/** The catalog's categories when this migration was written; a new category needs a migration adding its column. */
+export const MIX_CATEGORIES = [
+  'house_battery', 'starter_battery', 'dc_dc_charger', 'solar_panel', 'solar_controller', 'inverter', 'fuse_block',
+  'switch_panel', 'battery_monitor', 'air_compressor', 'cable_terminals', 'tray_mount', 'other',
+];
+const MIX = MIX_CATEGORIES.map((c) => `mix_${c}`);
+const FIGURES = ['builds_delivered', 'builds_booked', 'revenue_cents', 'parts_cost_cents', 'labor_centihours', 'claims_opened', 'warranty_cost_cents', 'credits_received_cents', ...MIX];
+/** Every summed column, `values` given and the rest 0. */
+const columns = (values: Record<string, string>) => FIGURES.map((f) => `${values[f] ?? '0'} as ${f}`).join(', ');
+
 const BOOKED = `('booked', 'in_bay', 'quality_check', 'delivered')`;
 const DELIVERED_DAY = `coalesce(b.delivered_on, substr(b.delivered_at, 1, 10))`;
 
 /** Each build once on its delivery day (if delivered) and once on its booked day (if booked and not cancelled). */
 const BUILD_SOURCE = `select b.id as build_id, b.location_id, ${DELIVERED_DAY} as day,
-    1 as builds_delivered, 0 as builds_booked, b.total_cents as revenue_cents, b.parts_cost_cents,
-    cast(round(b.labor_hours * 100) as integer) as labor_centihours, 0 as claims_opened, 0 as warranty_cost_cents, 0 as credits_received_cents
+    ${columns({ builds_delivered: '1', revenue_cents: 'b.total_cents', parts_cost_cents: 'b.parts_cost_cents', labor_centihours: 'cast(round(b.labor_hours * 100) as integer)' })}
   from builds b where b.status = 'delivered' and b.delivered_at is not null
   union all
-  select b.id, b.location_id, b.booked_for, 0, 1, 0, 0, 0, 0, 0, 0
+  select b.id, b.location_id, b.booked_for, ${columns({ builds_booked: '1' })}
   from builds b where b.status in ${BOOKED} and b.booked_for is not null`;
+
+/**
+ * Each delivered build's first line of each category (by line id), with 1 in that category's column:
+ * a build counts once in each category it has a component of. Line by line, so a trigger's
+ * condition on the build reaches the view's tables through their keys.
+ */
+const JOB_MIX_SOURCE = `select b.id as build_id, b.location_id, ${DELIVERED_DAY} as day,
+    ${columns(Object.fromEntries(MIX_CATEGORIES.map((c) => [`mix_${c}`, `(ci.category = '${c}')`])))}
+  from builds b join build_items i on i.build_id = b.id join catalog_items ci on ci.id = i.catalog_item_id
+  where b.status = 'delivered' and b.delivered_at is not null
+    and not exists (select 1 from build_items e join catalog_items ec on ec.id = e.catalog_item_id
+      where e.build_id = i.build_id and e.id < i.id and ec.category = ci.category)`;
 
 /**
  * Each claim on its logging day. Its warranty cost is its labor at its build's rate plus the credit
  * asked of the vendor and not (yet) received.
  */
 const CLAIM_SOURCE = `select c.id as claim_id, c.build_id, c.location_id, coalesce(c.logged_on, substr(c.created_at, 1, 10)) as day,
-    0 as builds_delivered, 0 as builds_booked, 0 as revenue_cents, 0 as parts_cost_cents, 0 as labor_centihours, 1 as claims_opened,
-    cast(round(c.labor_hours * b.labor_rate_cents) as integer) + max(c.credit_requested_cents - coalesce(c.credit_received_cents, 0), 0) as warranty_cost_cents,
-    coalesce(c.credit_received_cents, 0) as credits_received_cents
+    ${columns({
+      claims_opened: '1',
+      warranty_cost_cents: 'cast(round(c.labor_hours * b.labor_rate_cents) as integer) + max(c.credit_requested_cents - coalesce(c.credit_received_cents, 0), 0)',
+      credits_received_cents: 'coalesce(c.credit_received_cents, 0)',
+    })}
   from warranty_claims c join builds b on b.id = c.build_id`;
 
-/** Each category of component on a delivered build, once a build. */
-const JOB_MIX_SOURCE = `select distinct b.id as build_id, b.location_id, ${DELIVERED_DAY} as day, ci.category
-  from builds b join build_items i on i.build_id = b.id join catalog_items ci on ci.id = i.catalog_item_id
-  where b.status = 'delivered' and b.delivered_at is not null`;
-
 const GRAINS = `(select 'day' as grain union all select 'week' union all select 'month' union all select 'quarter' union all select 'year') g`;
+const DAYS = `(select 'day' as grain) g`;
+const LONGER = `(select 'week' as grain union all select 'month' union all select 'quarter' union all select 'year') g`;
 const PERIOD = `case g.grain when 'day' then s.day
   when 'week' then date(s.day, '-' || ((cast(strftime('%w', s.day) as integer) + 6) % 7) || ' days')
   when 'month' then substr(s.day, 1, 7)
   when 'quarter' then substr(s.day, 1, 4) || '-Q' || ((cast(substr(s.day, 6, 2) as integer) + 2) / 3)
   else substr(s.day, 1, 4) end`;
-
-const FIGURES = ['builds_delivered', 'builds_booked', 'revenue_cents', 'parts_cost_cents', 'labor_centihours', 'claims_opened', 'warranty_cost_cents', 'credits_received_cents'];
 const KEY = 'grain, period, location_id';
-const JOB_MIX_KEY = 'grain, period, location_id, category';
 
-const figuresChange = (sign: 1 | -1, source: string, where: string, grains = GRAINS) => `insert into rollup_figures (${KEY}, ${FIGURES.join(', ')})
+/** Adds (sign 1) or takes out (sign −1) the `source` rows `where` picks, in every grain of `grains`. */
+const change = (sign: 1 | -1, source: string, where: string, grains = GRAINS) => `insert into rollup_figures (${KEY}, ${FIGURES.join(', ')})
   select g.grain, ${PERIOD}, s.location_id, ${FIGURES.map((f) => `${sign} * sum(s.${f})`).join(', ')}
   from ${source} s, ${grains} where ${where} group by 1, 2, 3
   on conflict (${KEY}) do update set ${FIGURES.map((f) => `${f} = ${f} + excluded.${f}`).join(', ')};`;
 
-/** `source` rows are one build and category each, unless they carry a count of `builds`. */
-const jobMixChange = (sign: 1 | -1, where: string, grains = GRAINS, source = '') => `insert into rollup_job_mix (${JOB_MIX_KEY}, builds)
-  select g.grain, ${PERIOD}, s.location_id, s.category, ${sign} * ${source ? 'sum(s.builds)' : 'count(*)'}
-  from ${source || 'rollup_job_mix_source'} s, ${grains} where ${where} group by 1, 2, 3, 4
-  on conflict (${JOB_MIX_KEY}) do update set builds = builds + excluded.builds;`;
-
-const ofBuild = (sign: 1 | -1, where: string) => `${figuresChange(sign, 'rollup_build_source', where)}\n${jobMixChange(sign, where)}`;
+const ofBuild = (sign: 1 | -1, where: string) => `${change(sign, 'rollup_build_source', where)}\n${change(sign, 'rollup_job_mix_source', where)}`;
+const mix = (sign: 1 | -1, where: string) => change(sign, 'rollup_job_mix_source', where);
+const claim = (sign: 1 | -1, where: string) => change(sign, 'rollup_claim_source', where);
 const ofItemsOf = (item: string) => `s.build_id in (select build_id from build_items where catalog_item_id = ${item}.id)`;
 
 const BUILD_COLUMNS = 'status, delivered_at, delivered_on, booked_for, location_id, total_cents, parts_cost_cents, labor_hours';
@@ -77,36 +93,29 @@ const TRIGGERS: [string, string, string][] = [
   ['rollup_build_before_update', `before update of ${BUILD_COLUMNS} on builds`, ofBuild(-1, 's.build_id = old.id')],
   ['rollup_build_after_update', `after update of ${BUILD_COLUMNS} on builds`, ofBuild(1, 's.build_id = new.id')],
   ['rollup_build_delete', 'before delete on builds', ofBuild(-1, 's.build_id = old.id')],
-  ['rollup_rate_before_update', 'before update of labor_rate_cents on builds', figuresChange(-1, 'rollup_claim_source', 's.build_id = old.id')],
-  ['rollup_rate_after_update', 'after update of labor_rate_cents on builds', figuresChange(1, 'rollup_claim_source', 's.build_id = new.id')],
-  ['rollup_item_before_insert', 'before insert on build_items', jobMixChange(-1, 's.build_id = new.build_id')],
-  ['rollup_item_after_insert', 'after insert on build_items', jobMixChange(1, 's.build_id = new.build_id')],
-  ['rollup_item_before_update', 'before update of build_id, catalog_item_id on build_items', jobMixChange(-1, 's.build_id in (old.build_id, new.build_id)')],
-  ['rollup_item_after_update', 'after update of build_id, catalog_item_id on build_items', jobMixChange(1, 's.build_id in (old.build_id, new.build_id)')],
-  ['rollup_item_before_delete', 'before delete on build_items', jobMixChange(-1, 's.build_id = old.build_id')],
-  ['rollup_item_after_delete', 'after delete on build_items', jobMixChange(1, 's.build_id = old.build_id')],
-  ['rollup_category_before_update', 'before update of category on catalog_items', jobMixChange(-1, ofItemsOf('old'))],
-  ['rollup_category_after_update', 'after update of category on catalog_items', jobMixChange(1, ofItemsOf('new'))],
-  ['rollup_claim_insert', 'after insert on warranty_claims', figuresChange(1, 'rollup_claim_source', 's.claim_id = new.id')],
-  ['rollup_claim_before_update', `before update of ${CLAIM_COLUMNS} on warranty_claims`, figuresChange(-1, 'rollup_claim_source', 's.claim_id = old.id')],
-  ['rollup_claim_after_update', `after update of ${CLAIM_COLUMNS} on warranty_claims`, figuresChange(1, 'rollup_claim_source', 's.claim_id = new.id')],
-  ['rollup_claim_delete', 'before delete on warranty_claims', figuresChange(-1, 'rollup_claim_source', 's.claim_id = old.id')],
+  ['rollup_rate_before_update', 'before update of labor_rate_cents on builds', claim(-1, 's.build_id = old.id')],
+  ['rollup_rate_after_update', 'after update of labor_rate_cents on builds', claim(1, 's.build_id = new.id')],
+  ['rollup_item_before_insert', 'before insert on build_items', mix(-1, 's.build_id = new.build_id')],
+  ['rollup_item_after_insert', 'after insert on build_items', mix(1, 's.build_id = new.build_id')],
+  ['rollup_item_before_update', 'before update of build_id, catalog_item_id on build_items', mix(-1, 's.build_id in (old.build_id, new.build_id)')],
+  ['rollup_item_after_update', 'after update of build_id, catalog_item_id on build_items', mix(1, 's.build_id in (old.build_id, new.build_id)')],
+  ['rollup_item_before_delete', 'before delete on build_items', mix(-1, 's.build_id = old.build_id')],
+  ['rollup_item_after_delete', 'after delete on build_items', mix(1, 's.build_id = old.build_id')],
+  ['rollup_category_before_update', 'before update of category on catalog_items', mix(-1, ofItemsOf('old'))],
+  ['rollup_category_after_update', 'after update of category on catalog_items', mix(1, ofItemsOf('new'))],
+  ['rollup_claim_insert', 'after insert on warranty_claims', claim(1, 's.claim_id = new.id')],
+  ['rollup_claim_before_update', `before update of ${CLAIM_COLUMNS} on warranty_claims`, claim(-1, 's.claim_id = old.id')],
+  ['rollup_claim_after_update', `after update of ${CLAIM_COLUMNS} on warranty_claims`, claim(1, 's.claim_id = new.id')],
+  ['rollup_claim_delete', 'before delete on warranty_claims', claim(-1, 's.claim_id = old.id')],
 ];
 
-const DAYS = `(select 'day' as grain) g`;
-const LONGER = `(select 'week' as grain union all select 'month' union all select 'quarter' union all select 'year') g`;
-
 /**
- * Empties and refills both tables from their sources, after a bulk load that ran without triggers
- * (and to check the kept tables): the days from the sources, the longer periods from the days.
+ * Empties and refills the table from its sources, after a bulk load that ran without triggers (and
+ * to check the kept table): the days from the sources, the longer periods from the days.
  */
 export const REFILL_ROLLUPS = `delete from rollup_figures;
-delete from rollup_job_mix;
-${figuresChange(1, 'rollup_build_source', 'true', DAYS)}
-${figuresChange(1, 'rollup_claim_source', 'true', DAYS)}
-${jobMixChange(1, 'true', DAYS)}
-${figuresChange(1, `(select location_id, period as day, ${FIGURES.join(', ')} from rollup_figures where grain = 'day')`, 'true', LONGER)}
-${jobMixChange(1, 'true', LONGER, `(select location_id, period as day, category, builds from rollup_job_mix where grain = 'day')`)}`;
+${['rollup_build_source', 'rollup_job_mix_source', 'rollup_claim_source'].map((source) => change(1, source, 'true', DAYS)).join('\n')}
+${change(1, `(select location_id, period as day, ${FIGURES.join(', ')} from rollup_figures where grain = 'day')`, 'true', LONGER)}`;
 
 export async function up(db: Kysely<any>): Promise<void> {
   await sql`alter table builds add column delivered_on text`.execute(db);
@@ -116,10 +125,6 @@ export async function up(db: Kysely<any>): Promise<void> {
     grain text not null, period text not null, location_id integer not null,
     ${sql.raw(FIGURES.map((f) => `${f} integer not null`).join(', '))},
     primary key (${sql.raw(KEY)})
-  ) without rowid`.execute(db);
-  await sql`create table rollup_job_mix (
-    grain text not null, period text not null, location_id integer not null, category text not null, builds integer not null,
-    primary key (${sql.raw(JOB_MIX_KEY)})
   ) without rowid`.execute(db);
   await sql.raw(`create view rollup_build_source as ${BUILD_SOURCE}`).execute(db);
   await sql.raw(`create view rollup_claim_source as ${CLAIM_SOURCE}`).execute(db);
@@ -160,7 +165,6 @@ export async function down(db: Kysely<any>): Promise<void> {
   await sql`drop view rollup_job_mix_source`.execute(db);
   await sql`drop view rollup_claim_source`.execute(db);
   await sql`drop view rollup_build_source`.execute(db);
-  await sql`drop table rollup_job_mix`.execute(db);
   await sql`drop table rollup_figures`.execute(db);
   await sql`alter table warranty_claims drop column logged_on`.execute(db);
   await sql`alter table builds drop column delivered_on`.execute(db);

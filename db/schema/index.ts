@@ -16,7 +16,7 @@ import type { PowerPlanRevisionsTable } from './power-plan-revisions.ts';
 import type { PowerPlansTable } from './power-plans.ts';
 import type { RegionsTable } from './regions.ts';
 import type { RoleAssignmentsTable } from './role-assignments.ts';
-import type { RollupFiguresTable, RollupJobMixTable } from './rollups.ts';
+import type { RollupFiguresTable } from './rollups.ts';
 import type { SessionsTable } from './sessions.ts';
 import type { PlanMarginsTable, UnitExposureByLocationTable, UnitExposureNetworkTable, UnitExposureTable, UnitFailuresTable } from './unit-exposure.ts';
 import type { UsersTable } from './users.ts';
@@ -48,5 +48,4 @@ export interface Database {
   planMargins: PlanMarginsTable;
   unitFailures: UnitFailuresTable;
   rollupFigures: RollupFiguresTable;
-  rollupJobMix: RollupJobMixTable;
 }

@@ -1,10 +1,15 @@
 import type { Category, RollupGrain } from '@busbar/shared';
 
+type Camel<S extends string> = S extends `${infer Head}_${infer Tail}` ? `${Head}${Capitalize<Camel<Tail>>}` : S;
+
+/** Delivered builds with at least one component of each category: `mixHouseBattery`, `mixDcDcCharger`, … */
+export type JobMixColumns = { [C in Category as `mix${Capitalize<Camel<C>>}`]: number };
+
 /**
  * The sums the roll-up figures are made of, per grain, period and location (migration 021).
  * Period keys: day YYYY-MM-DD, week the YYYY-MM-DD of its Monday, month YYYY-MM, quarter YYYY-Qn, year YYYY.
  */
-export interface RollupFiguresTable {
+export interface RollupFiguresTable extends JobMixColumns {
   grain: RollupGrain;
   period: string;
   locationId: number;
@@ -19,13 +24,4 @@ export interface RollupFiguresTable {
   /** Claim labor at the build's rate plus credit asked of the vendor and not received, of the claims logged in the period. */
   warrantyCostCents: number;
   creditsReceivedCents: number;
-}
-
-/** Delivered builds with at least one component of the category, per grain, period and location. */
-export interface RollupJobMixTable {
-  grain: RollupGrain;
-  period: string;
-  locationId: number;
-  category: Category;
-  builds: number;
 }

@@ -1,7 +1,5 @@
-import type { Category, RollupFigures } from '@busbar/shared';
-import { SUM_FIELDS, type RollupSums } from './rollups.ts';
-
-export type JobMix = Partial<Record<Category, number>>;
+import { CATEGORIES, type RollupFigures } from '@busbar/shared';
+import { mixColumn, SUM_FIELDS, type RollupSums } from './rollups.ts';
 
 /** Which money a person reads where the figures come from: build prices, build costs. */
 export interface MoneyReads {
@@ -11,11 +9,15 @@ export interface MoneyReads {
 
 const PRICE_FIGURES = ['revenueCents', 'grossMarginCents', 'averageTicketCents', 'warrantyCostCents', 'warrantyCostShare', 'vendorCreditsReceivedCents'] as const;
 const COST_FIGURES = ['partsCostCents', 'grossMarginCents'] as const;
+const MIX = CATEGORIES.map((category) => [category, mixColumn(category)] as const);
 
-/** The figures of a period made from its sums and job mix, without the money the person may not read. */
-export function figuresOf(sums: RollupSums, jobMix: JobMix, reads: MoneyReads): RollupFigures {
+/** The figures of a period made from its sums after `head` (its location or region and period), without the money the person may not read. */
+export function figuresOf<H extends object>(head: H, sums: RollupSums, reads: MoneyReads): H & RollupFigures {
   const delivered = sums.buildsDelivered;
-  const figures: RollupFigures = {
+  const jobMix: RollupFigures['jobMix'] = {};
+  for (const [category, column] of MIX) if (sums[column] !== 0) jobMix[category] = sums[column];
+  const figures: H & RollupFigures = {
+    ...head,
     buildsDelivered: delivered,
     buildsBooked: sums.buildsBooked,
     revenueCents: sums.revenueCents,
@@ -38,11 +40,13 @@ export function figuresOf(sums: RollupSums, jobMix: JobMix, reads: MoneyReads): 
 
 export const noSums = (): RollupSums => Object.fromEntries(SUM_FIELDS.map((f) => [f, 0])) as unknown as RollupSums;
 
-/** Adds `more` into `into` (sums and job mix). */
-export function addInto(into: { sums: RollupSums; jobMix: JobMix }, more: { sums: RollupSums; jobMix: JobMix }): void {
-  for (const field of SUM_FIELDS) into.sums[field] += more.sums[field];
-  for (const [category, builds] of Object.entries(more.jobMix) as [Category, number][]) into.jobMix[category] = (into.jobMix[category] ?? 0) + builds;
+/** Adds `more` into `into`. */
+export function addInto(into: RollupSums, more: RollupSums): void {
+  for (const field of SUM_FIELDS) into[field] += more[field];
 }
 
-/** Whether a location's period holds anything at all. */
-export const isEmpty = (cell: { sums: RollupSums; jobMix: JobMix }) => SUM_FIELDS.every((f) => cell.sums[f] === 0) && Object.keys(cell.jobMix).length === 0;
+/** Whether a period holds nothing at all (a row whose builds and claims were all taken out again). */
+export const isEmpty = (sums: RollupSums) => SUM_FIELDS.every((f) => sums[f] === 0);
+
+/** SQLite answers sums as numbers already; PostgreSQL would answer bigint sums as text. */
+export const numbers = (row: RollupSums): RollupSums => Object.fromEntries(SUM_FIELDS.map((f) => [f, Number(row[f])])) as unknown as RollupSums;
