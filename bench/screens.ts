@@ -1,4 +1,5 @@
 import { call, type Person } from './client.ts';
+import { QUARTER_BY_WEEK, rollupPath, YEAR_BY_MONTH } from './rollups.ts';
 import { latency, type Latency } from './stats.ts';
 
 /** The API request behind each list, search, detail and reliability screen, as the screen first asks it. */
@@ -33,6 +34,8 @@ export const SCREENS: readonly (readonly [label: string, path: (ids: Ids) => str
   ['reliability, by vendor, a year', () => '/api/reliability?groupBy=vendor&from=2025-01&to=2025-12'],
   ['reliability, one item', (ids) => `/api/reliability/item/${ids.reliabilityItemId}`],
   ['reliability, one category', () => '/api/reliability/category/house_battery'],
+  ['roll-ups, a year by month', () => rollupPath(YEAR_BY_MONTH)],
+  ['roll-ups, a quarter by week', () => rollupPath(QUARTER_BY_WEEK)],
 ];
 
 export interface Ids {
