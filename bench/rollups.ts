@@ -80,9 +80,9 @@ export async function compareRollups(dir: string, samples: number): Promise<Roll
 /** The comparison as Markdown lines. */
 export function rollupLines(runs: [label: string, RollupComparison][]): string[] {
   return [
-    `The owner's roll-ups, a year by month (${YEAR_BY_MONTH.from} to ${YEAR_BY_MONTH.to}), in the process, from the summary tables and summed from builds, lines and claims:`,
+    `The owner's roll-ups, a year by month (${YEAR_BY_MONTH.from} to ${YEAR_BY_MONTH.to}), in the process, from the summary table and summed from builds, lines and claims:`,
     '',
-    '| data | summary tables p50 / p95 ms | base tables p50 / p95 ms | p95 ratio |',
+    '| data | summary table p50 / p95 ms | base tables p50 / p95 ms | p95 ratio |',
     '|---|---|---|---|',
     ...runs.map(([label, { summary, base }]) => `| ${label} | ${ms(summary.p50)} / ${ms(summary.p95)} | ${ms(base.p50)} / ${ms(base.p95)} | ${(summary.p95 / base.p95).toFixed(2)}× |`),
   ];

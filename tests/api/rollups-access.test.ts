@@ -1,3 +1,4 @@
+import { isoDay, localDay } from '@busbar/calc';
 import type { Rollups } from '@busbar/shared';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { loadViewer } from '../../apps/api/src/access/viewer.ts';
@@ -114,5 +115,18 @@ describe('asking for roll-ups', () => {
     expect(error.fields.to).toBe('Pick at most 400 periods: a shorter range or a longer period');
     // The same range by week is 58 periods.
     await (await h.signedIn('owner@demo.busbar.test')).get('/api/rollups?from=2025-01-01&to=2026-02-05&grain=week').expect(200);
+  });
+});
+
+describe("the demo's history", () => {
+  it("stores each delivery's and each claim's day at its shop, which the roll-ups count on", async () => {
+    const zones = new Map((await h.db.selectFrom('locations').select(['id', 'timeZone']).execute()).map((l) => [l.id, l.timeZone]));
+    const local = (locationId: number, at: string) => isoDay(localDay(zones.get(locationId)!, Date.parse(at)));
+    const builds = await h.db.selectFrom('builds').select(['locationId', 'deliveredAt', 'deliveredOn']).where('deliveredAt', 'is not', null).execute();
+    expect(builds.length).toBeGreaterThan(1_000);
+    expect(builds.filter((b) => b.deliveredOn !== local(b.locationId, b.deliveredAt!))).toEqual([]);
+    const claims = await h.db.selectFrom('warrantyClaims').select(['locationId', 'createdAt', 'loggedOn']).execute();
+    expect(claims.length).toBeGreaterThan(50);
+    expect(claims.filter((c) => c.loggedOn !== local(c.locationId, c.createdAt))).toEqual([]);
   });
 });
