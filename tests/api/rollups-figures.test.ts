@@ -7,8 +7,8 @@ import { addParts, createBuild, moveThrough } from '../support/build-fixtures.ts
 
 /**
  * A hand-made network built through the API at chosen moments: deliveries a minute either side of
- * local midnight in Denver (UTC−7 in winter) and Asheville (UTC−5), in the ISO week that runs from
- * Monday 2025-12-29 to Sunday 2026-01-04, and claims logged late in the evening.
+ * local midnight in Denver (UTC−7 in winter) and Asheville (UTC−5), an imported one, in the ISO week
+ * that runs from Monday 2025-12-29 to Sunday 2026-01-04, and claims logged late in the evening.
  */
 let h: Harness;
 let ids: Awaited<ReturnType<typeof demoIds>>;
@@ -67,6 +67,11 @@ async function handMadeNetwork() {
   await build('DEN', '2024-12-31', '2024-12-31T18:00:00.000Z', { charger: true }); // a year before
   await build('DEN', '2026-01-02', null); // booked, not yet delivered
   await build('DEN', '2026-01-03', null, { cancel: true }); // booked, then cancelled: counts nowhere
+  // An imported delivery is stamped 17:00 at the shop: for Denver in winter, midnight UTC of the next day.
+  const header = 'customer_name,customer_email,vehicle_year,vehicle_body_style,vehicle_make,vehicle_model,status,booked_for,delivered_on,lead_technician_email,labor_hours,items';
+  const row = `Orla Fenwick,orla@example.test,2019,van,Alder,Trekker,delivered,2025-12-29,2025-12-30,,2,${parts.fuse.sku} x1`;
+  const imported = await agents.den.post('/api/imports/builds').send({ locationId: ids.location('DEN'), csv: `${header}\r\n${row}`, dryRun: false });
+  expect(imported.body).toMatchObject({ ok: true, created: 1 });
   // Asheville, winter: local midnight is 05:00 UTC; the first is in 2026 in UTC, in 2025 at the shop.
   const c = await build('AVL', '2025-12-31', '2026-01-01T04:59:00.000Z', { charger: true }); // Wednesday 31st, 23:59
   await build('AVL', '2026-01-01', '2026-01-01T05:01:00.000Z'); // Thursday 1st, 00:01
@@ -166,7 +171,8 @@ describe('roll-up figures', () => {
     const [den, avl] = [ids.location('DEN'), ids.location('AVL')];
     const byDay = await rollups('day', '2025-12-30', '2026-01-01');
     const delivered = (locationId: number, period: string) => byDay.rows.find((r) => r.locationId === locationId && r.period === period)?.buildsDelivered ?? 0;
-    expect([delivered(den, '2025-12-30'), delivered(den, '2025-12-31')]).toEqual([1, 1]);
+    // Denver's 30th: the delivery at 23:59 and the imported one (00:00 UTC on the 31st); the 31st: the one at 00:01.
+    expect([delivered(den, '2025-12-30'), delivered(den, '2025-12-31')]).toEqual([2, 1]);
     expect([delivered(avl, '2025-12-31'), delivered(avl, '2026-01-01')]).toEqual([1, 1]);
     // Asheville's delivery at 04:59 UTC on 1 January was on 31 December at the shop: 2025's, not 2026's.
     const byYear = await rollups('year', '2026-01-01', '2026-01-01');
@@ -184,13 +190,13 @@ describe('roll-up figures', () => {
       { period: '2026-01-05', start: '2026-01-05', end: '2026-01-11', previous: '2025-12-29', lastYear: '2025-01-06' },
     ]);
     const week = (locationId: number, period: string) => byWeek.rows.find((r) => r.locationId === locationId && r.period === period);
-    // Denver: Tuesday 23:59, Wednesday 00:01 and Sunday; Asheville: Wednesday and Thursday.
-    expect(week(ids.location('DEN'), '2025-12-29')).toMatchObject({ buildsDelivered: 3, laborHours: 9.75, laborHoursPerBuild: 3.25, claimsOpened: 1 });
+    // Denver: Tuesday 23:59, the import of Tuesday, Wednesday 00:01 and Sunday; Asheville: Wednesday and Thursday.
+    expect(week(ids.location('DEN'), '2025-12-29')).toMatchObject({ buildsDelivered: 4, laborHours: 11.75, laborHoursPerBuild: 2.9375, claimsOpened: 1 });
     expect(week(ids.location('AVL'), '2025-12-29')).toMatchObject({ buildsDelivered: 2, claimsOpened: 1, claimsPer100Builds: 50 });
     expect(week(ids.location('DEN'), '2026-01-05')).toMatchObject({ buildsDelivered: 1 });
     // The same week a year before holds Denver's delivery of 31 December 2024.
     expect(week(ids.location('DEN'), '2024-12-30')).toMatchObject({ buildsDelivered: 1, buildsBooked: 1 });
-    expect(byWeek.network.find((n) => n.period === '2025-12-29')).toMatchObject({ buildsDelivered: 5, claimsOpened: 2 });
+    expect(byWeek.network.find((n) => n.period === '2025-12-29')).toMatchObject({ buildsDelivered: 6, claimsOpened: 2 });
   });
 
   it('counts bookings on their booked day unless cancelled, and the warranty cost as claim labor plus credit not received', async () => {
