@@ -2,7 +2,7 @@ import { isoDay, localDay } from '@busbar/calc';
 import type { Rollups } from '@busbar/shared';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { loadViewer } from '../../apps/api/src/access/viewer.ts';
-import { rollupReport } from '../../apps/api/src/queries/rollups-report.ts';
+import { checkAnswerSize, rollupReport } from '../../apps/api/src/queries/rollups-report.ts';
 import { demoIds, startHarness, type Harness } from '../support/api-harness.ts';
 
 let h: Harness;
@@ -115,6 +115,12 @@ describe('asking for roll-ups', () => {
     expect(error.fields.to).toBe('Pick at most 400 periods: a shorter range or a longer period');
     // The same range by week is 58 periods.
     await (await h.signedIn('owner@demo.busbar.test')).get('/api/rollups?from=2025-01-01&to=2026-02-05&grain=week').expect(200);
+  });
+
+  it('refuses more than 25,000 location-periods in one answer, in words', () => {
+    // A year by week for 200 locations: 52 weeks, the one before, and 52 a year before.
+    expect(() => checkAnswerSize(200, 105)).not.toThrow();
+    expect(() => checkAnswerSize(200, 731)).toThrow('That is 731 periods (with those compared) for each of 200 locations: pick a shorter range or a longer period');
   });
 });
 

@@ -2,6 +2,7 @@ import type { Db } from '@busbar/db';
 import { PERIODS_A_YEAR, periodEnd, periodKey, periodNumber, periodStart, type RollupQuery, type Rollups } from '@busbar/shared';
 import { locationScope, type LocationScope } from '../access/locations.ts';
 import type { Viewer } from '../access/viewer.ts';
+import { invalidField } from '../errors.ts';
 import { addInto, figuresOf, isEmpty, noSums, numbers, type MoneyReads } from './rollups-figures.ts';
 import { locationRegions, locationSums, networkSums, type RollupSums } from './rollups.ts';
 
@@ -14,6 +15,16 @@ export function askedPeriods({ grain, from, to }: RollupQuery) {
   return periods;
 }
 
+/** The most location-periods one answer holds (a year by week for 200 locations is about 21,000). */
+export const MAX_ROLLUP_ROWS = 25_000;
+
+/** Refuses an answer of more than `MAX_ROLLUP_ROWS` location-periods, in words. */
+export function checkAnswerSize(locations: number, periods: number): void {
+  if (locations * periods > MAX_ROLLUP_ROWS) {
+    throw invalidField('to', `That is ${periods} periods (with those compared) for each of ${locations} locations: pick a shorter range or a longer period`);
+  }
+}
+
 /**
  * Roll-ups of the locations in `scope` (never empty), of each region wholly in it, and of the whole
  * network, for the asked periods and the ones they are compared with.
@@ -22,6 +33,7 @@ export async function rollupReport(db: Db, viewer: Viewer, query: RollupQuery, s
   const { grain } = query;
   const periods = askedPeriods(query);
   const keys = [...new Set(periods.flatMap((p) => [p.period, p.previous, p.lastYear]))];
+  checkAnswerSize(scope === 'all' ? viewer.locationIds.length : scope.length, keys.length);
   const [rows, network, locations] = await Promise.all([locationSums(db, grain, keys, scope), networkSums(db, grain, keys), locationRegions(db)]);
   const kept = rows.filter((row) => !isEmpty(row));
 
