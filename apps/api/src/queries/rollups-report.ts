@@ -34,8 +34,10 @@ export async function rollupReport(db: Db, viewer: Viewer, query: RollupQuery, s
   const periods = askedPeriods(query);
   const keys = [...new Set(periods.flatMap((p) => [p.period, p.previous, p.lastYear]))];
   checkAnswerSize(scope === 'all' ? viewer.locationIds.length : scope.length, keys.length);
-  const [rows, network, locations] = await Promise.all([locationSums(db, grain, keys, scope), networkSums(db, grain, keys), locationRegions(db)]);
+  const [rows, locations] = await Promise.all([locationSums(db, grain, keys, scope), locationRegions(db)]);
   const kept = rows.filter((row) => !isEmpty(row));
+  // Someone who sees every location has the network's sums in their rows already.
+  const network = scope === 'all' ? sumsByPeriod(kept) : (await networkSums(db, grain, keys)).map((row) => ({ period: row.period, sums: numbers(row) }));
 
   const reads = moneyReads(viewer);
   const inScope = scope === 'all' ? null : new Set(scope);
@@ -57,10 +59,18 @@ export async function rollupReport(db: Db, viewer: Viewer, query: RollupQuery, s
     rows: kept.map((row) => figuresOf({ locationId: row.locationId, period: row.period }, row, reads([row.locationId]))),
     regions: [...regions.values()].map((r) => figuresOf({ regionId: r.regionId, period: r.period }, r.sums, reads(regionLocations(r.regionId)))),
     network: network
-      .map((row) => ({ period: row.period, sums: numbers(row) }))
       .filter((n) => !isEmpty(n.sums))
       .map((n) => figuresOf({ period: n.period }, n.sums, reads(scopeIds))),
   };
+}
+
+function sumsByPeriod(rows: (RollupSums & { period: string })[]) {
+  const periods = new Map<string, RollupSums>();
+  for (const row of rows) {
+    if (!periods.has(row.period)) periods.set(row.period, noSums());
+    addInto(periods.get(row.period)!, row);
+  }
+  return [...periods].map(([period, sums]) => ({ period, sums }));
 }
 
 /** Money a person reads over some locations: only what the role rules let them read at every one of them. */
