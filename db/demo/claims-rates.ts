@@ -35,8 +35,8 @@ export const SKU_FAILURE_RATES: Readonly<Record<string, Weibull>> = {
 /** Loose or burnt connections at a unit the shop wired: early failures, at every category but panels on the roof. */
 export const WORKMANSHIP: Weibull = { shape: 0.5, firstYearShare: 0.008 };
 
-/** Austin's installs come loose about eight times as often as the network's (hazard × 8). */
-export const WORKMANSHIP_FACTOR: Readonly<Record<string, number>> = { AUS: 8 };
+/** Austin's installs come loose about twelve times as often as the network's (hazard × 12). */
+export const WORKMANSHIP_FACTOR: Readonly<Record<string, number>> = { AUS: 12 };
 
 /**
  * Units on builds whose power plan runs a conductor past its allowed voltage drop or its amperage
@@ -50,7 +50,7 @@ export const TIGHT_DESIGN_FACTOR = 4;
  * year and month of manufacture are the serial's first digits, so the batch is one range of
  * serial numbers) fail early and often.
  */
-export const BAD_BATCH = { sku: 'TDW-DC40', monthsBeforeClock: [12, 11, 10], rate: { shape: 0.9, firstYearShare: 0.3 } } as const;
+export const BAD_BATCH = { sku: 'TDW-DC40', monthsBeforeClock: [12, 11, 10], rate: { shape: 0.9, firstYearShare: 0.6 } } as const;
 
 /** The serial-number prefixes of the bad batch at a clock (TW2506- to TW2508- with the clock in June 2026). */
 export function badBatchPrefixes(serialPrefix: string, nowMs: number): string[] {

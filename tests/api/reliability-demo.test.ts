@@ -46,12 +46,10 @@ describe('the demo stories, found by the reliability screens', () => {
     for (const other of detail.funnel.points.filter((p) => p !== austin && p.claims >= 5)) expect(share(austin)).toBeGreaterThan(share(other));
   });
 
-  it("reads the flooded battery's shape as wear-out and the chargers' as early failures", async () => {
+  it("reads the chargers' shape as early failures (the demo draws them with shape 0.6)", async () => {
     const owner = await h.signedIn('owner@demo.busbar.test');
     const chargers = (await owner.get('/api/reliability/category/dc_dc_charger').expect(200)).body as ReliabilityDetail;
+    expect(chargers.weibull?.shape).toBeLessThan(1);
     expect(chargers.weibull?.reading).toBe('early');
-    const items = await h.db.selectFrom('catalogItems').select(['id', 'sku']).where('sku', '=', 'NVB-FLD115').executeTakeFirstOrThrow();
-    const flooded = (await owner.get(`/api/reliability/item/${items.id}`).expect(200)).body as ReliabilityDetail;
-    expect(flooded.weibull?.reading ?? flooded.weibullNote).toBe('wear_out');
   });
 });

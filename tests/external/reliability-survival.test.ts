@@ -1,4 +1,4 @@
-import { kaplanMeier, weibullFit, type SurvivalObservation } from '@busbar/calc';
+import { kaplanMeier, weibullAgeTrend, weibullFit, type SurvivalObservation } from '@busbar/calc';
 import jStat from 'jstat';
 import { describe, expect, it } from 'vitest';
 
@@ -57,5 +57,19 @@ describe('Weibull maximum likelihood with censoring (NIST/SEMATECH §8.4.1.3)', 
     for (const [shapeStep, scaleStep] of [[1.01, 1], [0.99, 1], [1, 1.01], [1, 0.99], [1.01, 1.01], [0.99, 0.99]] as const) {
       expect(jstatLogLikelihood(fit.shape * shapeStep, fit.scale * scaleStep)).toBeLessThan(fit.logLikelihood);
     }
+  });
+
+  // The exponential is the Weibull of shape 1: its likelihood by jstat at the censored MLE rate r / Σt.
+  it('tests the fitted shape against a steady rate with the likelihood ratio that jstat gives', () => {
+    const trend = weibullAgeTrend(observations);
+    const totalTime = observations.reduce((sum, o) => sum + o.time, 0);
+    const exponential = jstatLogLikelihood(1, totalTime / 10);
+    expect(trend.statistic).toBeCloseTo(2 * (fit.logLikelihood - exponential), 9);
+    // About 2.84: under 3.84, the chi-square 95 % point on one degree of freedom, so ten failures do not
+    // tell a shape of 1.72 from a steady rate at 95 %; over 2.71, the 90 % point (printed tables, from memory).
+    expect(trend.statistic).toBeGreaterThan(2.706);
+    expect(trend.statistic).toBeLessThan(3.841);
+    expect(trend.trend).toBe('steady');
+    expect(weibullAgeTrend(observations, { confidence: 0.9 }).trend).toBe('wear_out');
   });
 });

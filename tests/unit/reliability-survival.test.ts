@@ -1,4 +1,4 @@
-import { kaplanMeier, weibullFit, type SurvivalObservation } from '@busbar/calc';
+import { kaplanMeier, weibullAgeTrend, weibullFit, type SurvivalObservation } from '@busbar/calc';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 
@@ -170,5 +170,21 @@ describe('grouped observations', () => {
   it('refuse a count that is not a whole number of 1 or more', () => {
     expect(() => kaplanMeier([{ time: 2, failed: true, count: 0 }])).toThrow(/observations\[0\]\.count must be a whole number/);
     expect(() => weibullFit([{ time: 2, failed: true, count: 1.5 }])).toThrow(/count must be a whole number/);
+  });
+});
+
+describe('weibullAgeTrend', () => {
+  it('reads early failures and wear-out from 600 simulated units, and a steady rate from exponential ones', () => {
+    expect(weibullAgeTrend(simulate(0.6, 40, 60, 600, 81)).trend).toBe('early');
+    expect(weibullAgeTrend(simulate(2.2, 40, 60, 600, 82)).trend).toBe('wear_out');
+    expect(weibullAgeTrend(simulate(1, 40, 60, 600, 83)).trend).toBe('steady');
+  });
+
+  it('calls a steady rate early or wear-out in about one sample in twenty at 95 %', () => {
+    const samples = 300;
+    const calls = Array.from({ length: samples }, (_, i) => weibullAgeTrend(simulate(1, 50, 40, 120, 1_000 + i))).filter((t) => t.trend !== 'steady').length;
+    // Binomial(300, 0.05): mean 15, sd 3.8; between 4 and 30 holds with far more than 99 % chance.
+    expect(calls).toBeGreaterThan(4);
+    expect(calls).toBeLessThan(30);
   });
 });

@@ -1,3 +1,4 @@
+import binomialCdfOf from '@stdlib/stats-base-dists-binomial-cdf';
 import chisquareQuantile from '@stdlib/stats-base-dists-chisquare-quantile';
 import normalQuantile from '@stdlib/stats-base-dists-normal-quantile';
 import poissonCdfOf from '@stdlib/stats-base-dists-poisson-cdf';
@@ -29,6 +30,11 @@ export function poissonCdf(count: number, mean: number): number {
 /** P(X ≥ count) for a Poisson mean: the chance of at least that many events by chance alone. */
 export function poissonUpperTail(count: number, mean: number): number {
   return count <= 0 ? 1 : 1 - poissonCdfOf(count - 1, mean);
+}
+
+/** P(X ≥ count) for a binomial of `trials` with success probability `p` (@stdlib/stats-base-dists-binomial-cdf). */
+export function binomialUpperTail(count: number, trials: number, p: number): number {
+  return count <= 0 ? 1 : 1 - binomialCdfOf(count - 1, trials, p);
 }
 
 /** Two-sided tail probability α of a confidence level, rejecting levels outside (0, 1). */

@@ -1,5 +1,5 @@
-import { kaplanMeier, WEIBULL_MIN_FAILURE_TIMES, weibullFit, type SurvivalObservation } from '@busbar/calc';
-import { DAYS_PER_MONTH, type ReliabilityDetail, type SurvivalPoint, type WeibullReading } from '@busbar/shared';
+import { kaplanMeier, WEIBULL_MIN_FAILURE_TIMES, weibullAgeTrend, type SurvivalObservation } from '@busbar/calc';
+import { DAYS_PER_MONTH, type ReliabilityDetail, type SurvivalPoint } from '@busbar/shared';
 import type { UnitSums } from '../queries/unit-exposure.ts';
 import type { UnitFailure } from '../queries/unit-failures.ts';
 
@@ -7,8 +7,6 @@ import type { UnitFailure } from '../queries/unit-failures.ts';
 const SAME_DAY = 0.5;
 /** Failures needed before the Weibull shape is read aloud: fewer leave it too uncertain to name. */
 export const WEIBULL_MIN_FAILURES_TO_READ = 10;
-/** Shapes within this of 1 read as a steady rate. */
-const STEADY_BAND = 0.15;
 
 /**
  * The units as survival observations, in days: each failure at its own age, and the units still in
@@ -42,13 +40,12 @@ export function survivalCurve(observations: readonly SurvivalObservation[]): Sur
   }));
 }
 
-/** The Weibull fit in months with a plain reading of its shape, or why there is none. */
+/** The Weibull fit in months with a plain reading of its shape (early, steady or wear-out, by the likelihood-ratio test), or why there is none. */
 export function weibullOf(observations: readonly SurvivalObservation[]): Pick<ReliabilityDetail, 'weibull' | 'weibullNote'> {
   const failures = observations.reduce((sum, o) => sum + (o.failed ? (o.count ?? 1) : 0), 0);
   if (failures < WEIBULL_MIN_FAILURES_TO_READ || observations.filter((o) => o.failed).length < WEIBULL_MIN_FAILURE_TIMES) {
     return { weibull: null, weibullNote: `${failures} failure${failures === 1 ? '' : 's'}: a shape is read from ${WEIBULL_MIN_FAILURES_TO_READ} or more` };
   }
-  const { shape, scale } = weibullFit(observations);
-  const reading: WeibullReading = shape < 1 - STEADY_BAND ? 'early' : shape > 1 + STEADY_BAND ? 'wear_out' : 'random';
-  return { weibull: { shape, scaleMonths: scale / DAYS_PER_MONTH, reading }, weibullNote: null };
+  const { shape, scale, trend } = weibullAgeTrend(observations);
+  return { weibull: { shape, scaleMonths: scale / DAYS_PER_MONTH, reading: trend }, weibullNote: null };
 }

@@ -1,8 +1,8 @@
-import { benjaminiHochberg, poissonRateInterval, poissonUpperTail } from '@busbar/calc';
+import { benjaminiHochberg, excessChance, poissonRateInterval, type RateStratum } from '@busbar/calc';
 import { CATEGORY_LABELS, type WatchRow } from '@busbar/shared';
 import type { UnitSums } from '../queries/unit-exposure.ts';
 import { addSums, unitMonthsOf } from './figures.ts';
-import type { CatalogNames } from './labels.ts';
+import type { CatalogEntry, CatalogNames } from './labels.ts';
 
 /** The share of listed rows that may be there by chance alone (false discovery rate). */
 export const WATCH_FALSE_DISCOVERY = 0.05;
@@ -41,13 +41,13 @@ const exposureOf = (s: UnitSums, todayDay: number): Exposure => ({ failures: s.f
 
 /**
  * Items, and each item's units installed in one quarter (a bad batch shows as a quarter), that fail
- * more than the other items of their category across the network. The failures expected are the
- * peers' rate in each install quarter times the item's time in service from that quarter, so young
- * and old installs are each compared with peers of their own age. Evidence is the one-sided Poisson
- * chance of the count or more. Judging hundreds of rows at once, some would pass any fixed threshold
- * by chance; the Benjamini–Hochberg step-up rule (J R Stat Soc B 57:289–300, 1995) lists the rows
- * whose chance is at most k/m × WATCH_FALSE_DISCOVERY for the k-th smallest of m judged, which keeps
- * the expected share of chance findings among those listed at or below WATCH_FALSE_DISCOVERY.
+ * more than the other items of their category across the network, judged quarter of install by
+ * quarter so young and old installs are each compared with peers of their own age: the exact
+ * conditional test of two Poisson rates, summed over the quarters (`excessChance`), which also
+ * judges a quarter whose peers have not failed yet. Judging hundreds of rows at once, some would
+ * pass any fixed threshold by chance; the Benjamini–Hochberg step-up rule (J R Stat Soc B
+ * 57:289–300, 1995) lists the rows whose chance is at most k/m × WATCH_FALSE_DISCOVERY for the k-th
+ * smallest of m judged, keeping the expected share of chance findings listed at or below it.
  */
 export function componentsToWatch(inScope: ItemMonthSums, network: ItemMonthSums, names: CatalogNames, todayDay: number): WatchRow[] {
   const mine = byQuarter(inScope, todayDay);
@@ -64,35 +64,29 @@ export function componentsToWatch(inScope: ItemMonthSums, network: ItemMonthSums
   for (const [itemId, quarters] of mine) {
     const item = names.items.get(itemId);
     if (!item) continue;
-    const judged: { quarter: string; observed: Exposure; expected: number }[] = [];
-    for (const [quarter, observed] of quarters) {
+    const strata = [...quarters].map(([quarter, observed]) => {
       const total = categoryTotals.get(`${item.category} ${quarter}`)!;
       const own = all.get(itemId)?.get(quarter) ?? { failures: 0, unitMonths: 0 };
-      const peers = { failures: total.failures - own.failures, unitMonths: total.unitMonths - own.unitMonths };
-      if (peers.unitMonths > 0 && peers.failures > 0 && observed.unitMonths > 0) {
-        judged.push({ quarter, observed, expected: (peers.failures / peers.unitMonths) * observed.unitMonths });
-      }
-    }
-    const whole = judged.reduce((sum, j) => ({ failures: sum.failures + j.observed.failures, unitMonths: sum.unitMonths + j.observed.unitMonths, expected: sum.expected + j.expected }), {
-      failures: 0,
-      unitMonths: 0,
-      expected: 0,
+      const stratum = { events: observed.failures, exposure: observed.unitMonths, peerEvents: total.failures - own.failures, peerExposure: total.unitMonths - own.unitMonths };
+      return { quarter, stratum };
     });
-    if (judged.length > 0) candidates.push(watchRow(item, null, whole, whole.expected));
-    for (const j of judged) candidates.push(watchRow(item, j.quarter, j.observed, j.expected));
+    const judged = strata.filter(({ stratum: s }) => s.exposure > 0 && s.peerExposure > 0 && s.events + s.peerEvents > 0);
+    if (judged.length === 0) continue;
+    candidates.push(watchRow(item, null, judged));
+    for (const quarter of judged) candidates.push(watchRow(item, quarter.quarter, [quarter]));
   }
-  const ranked = candidates.sort((a, b) => a.chance - b.chance || b.ratioLower - a.ratioLower);
-  const passing = benjaminiHochberg(ranked.map((row) => row.chance), WATCH_FALSE_DISCOVERY);
-  return ranked.slice(0, passing).slice(0, WATCH_LIMIT);
+  const ranked = candidates.filter((row) => row.failures > row.expected).sort((a, b) => a.chance - b.chance || b.ratioLower - a.ratioLower);
+  const passing = benjaminiHochberg(candidates.map((row) => row.chance), WATCH_FALSE_DISCOVERY);
+  return ranked.slice(0, Math.min(passing, ranked.length)).slice(0, WATCH_LIMIT);
 }
 
-function watchRow(item: { id: number; sku: string; name: string; category: keyof typeof CATEGORY_LABELS }, quarter: string | null, observed: Exposure, expected: number): WatchRow {
+function watchRow(item: CatalogEntry, quarter: string | null, strata: { stratum: RateStratum }[]): WatchRow {
   const { from, to } = quarter ? monthsOf(quarter) : { from: null, to: null };
-  const chance = poissonUpperTail(observed.failures, expected);
-  const ratio = observed.failures / expected;
-  // The item's exact lower rate limit over the peers' rate (their far larger exposure taken as known).
-  const ratioLower = (poissonRateInterval(observed.failures, observed.unitMonths).lower * observed.unitMonths) / expected;
+  const { events: failures, expected, chance } = excessChance(strata.map((s) => s.stratum));
+  const ratio = failures / expected;
+  // The lower exact Poisson limit of the count over the count expected (taken as known).
+  const ratioLower = poissonRateInterval(failures, 1).lower / expected;
   const which = quarter ? `Installed ${from} to ${to}: ` : '';
-  const reason = `${which}${observed.failures} failures where ${expected.toFixed(1)} were expected at the rate of the other items in ${CATEGORY_LABELS[item.category]}: ${ratio.toFixed(1)} times as many`;
-  return { key: String(item.id), label: `${item.sku} ${item.name}`, from, to, failures: observed.failures, expected, chance, ratio, ratioLower, reason };
+  const reason = `${which}${failures} failures where ${expected.toFixed(1)} were expected had it failed like the other items in ${CATEGORY_LABELS[item.category]} installed at the same time: ${ratio.toFixed(1)} times as many`;
+  return { key: String(item.id), label: `${item.sku} ${item.name}`, from, to, failures, expected, chance, ratio, ratioLower, reason };
 }

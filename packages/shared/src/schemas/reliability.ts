@@ -106,11 +106,12 @@ export interface ReliabilityList {
   watch: WatchRow[];
 }
 
-export const WEIBULL_READINGS = ['early', 'random', 'wear_out'] as const;
+/** Read from the likelihood-ratio test of a steady rate (Weibull shape 1) at 95 %. */
+export const WEIBULL_READINGS = ['early', 'steady', 'wear_out'] as const;
 export type WeibullReading = (typeof WEIBULL_READINGS)[number];
 export const WEIBULL_READING_LABELS: Record<WeibullReading, string> = {
   early: 'Early failures: the hazard falls with age (often installation or a bad batch)',
-  random: 'Failures at a steady rate, not tied to age',
+  steady: 'No clear change with age: as far as these failures show, they come at a steady rate',
   wear_out: 'Wear-out: the hazard rises with age',
 };
 
