@@ -4,6 +4,7 @@ import fc from 'fast-check';
 import { sql } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { MIX_CATEGORIES, REFILL_ROLLUPS } from '../../db/migrations/021-create-rollups.ts';
+import { refillRollups } from '../../apps/api/src/queries/rollups-refill.ts';
 import { startHarness, type Harness } from '../support/api-harness.ts';
 import { addCustomerWithVehicle, addParts } from '../support/build-fixtures.ts';
 
@@ -192,4 +193,13 @@ describe('the roll-up table follows every change', () => {
       { seed: 10_021, numRuns: 120 },
     );
   }, 60_000);
+
+  it('is rebuilt by the refill command after it was changed behind the triggers', async () => {
+    const kept = await keptTables(h.db);
+    await sql`delete from rollup_figures where grain = 'month'`.execute(h.db);
+    await sql`update rollup_figures set revenue_cents = 0 where grain = 'day'`.execute(h.db);
+    expect(await keptTables(h.db)).not.toEqual(kept);
+    await refillRollups(h.db);
+    expect(await keptTables(h.db)).toEqual(kept);
+  });
 });

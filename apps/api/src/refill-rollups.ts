@@ -1,0 +1,16 @@
+import { migrateToLatest, openDatabase } from '@busbar/db';
+import { loadConfig } from './config.ts';
+import { refillRollups } from './queries/rollups-refill.ts';
+
+/**
+ * `npx tsx apps/api/src/refill-rollups.ts`: rebuilds the roll-up table of the database in
+ * BUSBAR_DATA_DIR from its builds and claims (triggers keep it current; this is for a table that
+ * was loaded or changed without them).
+ */
+const config = loadConfig();
+const db = openDatabase(config.databaseFile);
+await migrateToLatest(db);
+const started = Date.now();
+await refillRollups(db);
+await db.destroy();
+console.log(`Refilled the roll-ups of ${config.databaseFile} in ${((Date.now() - started) / 1000).toFixed(1)} s.`);
