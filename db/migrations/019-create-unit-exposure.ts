@@ -1,11 +1,13 @@
 import { sql, type Kysely } from 'kysely';
 
 /**
- * Reliability counts kept current: `unit_exposure` holds, per catalog item, location, install
- * month and design-margin bands, the units installed, the sum of their install days, and the
- * failures among them with the sums of their install and failure days. From those the time in
- * service of every unit (from install until failure, or until today) is exact for any day:
+ * Reliability counts kept current: `unit_exposure` holds, per catalog item, location and install
+ * month, the units installed, the sum of their install days, and the failures among them with the
+ * sums of their install and failure days. From those the time in service of every unit (from
+ * install until failure, or until today) is exact for any day:
  * Σ(failed day − install day) over failures + Σ(today − install day) over the rest.
+ * `unit_exposure_bands` holds the same for units on planned builds, per design-margin measure and
+ * band; `unit_exposure_network` the cells summed over every location.
  *
  * A unit is a line of a delivered build, counted by its quantity, installed the later of the day
  * the build was delivered and the day the line was added (a replacement or a correction after
@@ -14,9 +16,8 @@ import { sql, type Kysely } from 'kysely';
  * most margin, 4 past the limit; 0 no plan), filled by the API whenever a build's plan changes.
  *
  * Triggers keep the tables current the way the search indexes are (migration 015): before a change,
- * take the rows concerned out as the source views show them; after it, put them back. The cells'
- * sums by location and by network follow each change of a cell; `unit_failures` keeps each claim
- * with its unit's days.
+ * take the rows concerned out as the source views show them; after it, put them back.
+ * `unit_failures` keeps each claim with its unit's days.
  */
 const DAY = (date: string) => `cast(julianday(${date}) - 2440587.5 as integer)`;
 
@@ -30,22 +31,36 @@ const FAILURE_SOURCE = `select c.id as claim_id, u.build_item_id, u.build_id, u.
     u.drop_band, u.load_band, u.discharge_band, c.failed_on, 1 - c.out_of_warranty as in_warranty, c.failure_mode, c.coverage
   from warranty_claims c join installed_unit_source u on u.build_item_id = c.build_item_id`;
 
-const KEY = 'catalog_item_id, location_id, installed_month, drop_band, load_band, discharge_band';
+const CELL_KEY = 'catalog_item_id, location_id, installed_month';
+const BAND_KEY = 'catalog_item_id, measure, band, location_id, installed_month';
 const COUNTS = ['units', 'installed_day_sum', 'failures', 'failed_installed_day_sum', 'failed_day_sum', 'warranty_failures'];
+const add = (key: string) => `on conflict (${key}) do update set ${COUNTS.map((c) => `${c} = ${c} + excluded.${c}`).join(', ')};`;
 
-/** Adds (sign 1) or takes out (sign −1) the units and the failures of the source rows `where` picks. */
-function change(sign: 1 | -1, where: string, what: 'units' | 'failures' | 'both'): string {
-  const upsert = `on conflict (${KEY}) do update set ${COUNTS.map((c) => `${c} = ${c} + excluded.${c}`).join(', ')};`;
-  const units = `insert into unit_exposure (${KEY}, ${COUNTS.join(', ')})
-    select catalog_item_id, location_id, substr(installed_on, 1, 7), drop_band, load_band, discharge_band,
-      ${sign} * sum(quantity), ${sign} * sum(quantity * ${DAY('installed_on')}), 0, 0, 0, 0
-    from installed_unit_source where ${where} group by 1, 2, 3, 4, 5, 6 ${upsert}`;
-  const failures = `insert into unit_exposure (${KEY}, ${COUNTS.join(', ')})
-    select catalog_item_id, location_id, substr(installed_on, 1, 7), drop_band, load_band, discharge_band,
-      0, 0, ${sign} * count(*), ${sign} * sum(${DAY('installed_on')}), ${sign} * sum(${DAY('failed_on')}), ${sign} * sum(in_warranty)
-    from failed_unit_source where ${where} group by 1, 2, 3, 4, 5, 6 ${upsert}
-    ${sign === 1 ? addFailures(where) : `delete from unit_failures where ${where};`}`;
-  return what === 'units' ? units : what === 'failures' ? failures : `${units}\n${failures}`;
+/** The counts a source row adds (sign 1) or takes out (sign −1): installed units, or failures. */
+const counts = (sign: 1 | -1, kind: 'units' | 'failures') =>
+  kind === 'units'
+    ? `${sign} * sum(quantity), ${sign} * sum(quantity * ${DAY('installed_on')}), 0, 0, 0, 0`
+    : `0, 0, ${sign} * count(*), ${sign} * sum(${DAY('installed_on')}), ${sign} * sum(${DAY('failed_on')}), ${sign} * sum(in_warranty)`;
+const SOURCE = { units: 'installed_unit_source', failures: 'failed_unit_source' };
+
+/** Into the cells: per item, location and install month. */
+const toCells = (sign: 1 | -1, kind: 'units' | 'failures', where: string) => `insert into unit_exposure (${CELL_KEY}, ${COUNTS.join(', ')})
+  select catalog_item_id, location_id, substr(installed_on, 1, 7), ${counts(sign, kind)}
+  from ${SOURCE[kind]} where ${where} group by 1, 2, 3 ${add(CELL_KEY)}`;
+
+/** Into the margin bands of planned builds: one row per measure (1 drop, 2 load, 3 discharge) and its band. */
+const toBands = (sign: 1 | -1, kind: 'units' | 'failures', where: string) => `insert into unit_exposure_bands (${BAND_KEY}, ${COUNTS.join(', ')})
+  select catalog_item_id, m.measure, case m.measure when 1 then drop_band when 2 then load_band else discharge_band end, location_id,
+    substr(installed_on, 1, 7), ${counts(sign, kind)}
+  from ${SOURCE[kind]} cross join (select 1 as measure union all select 2 union all select 3) as m
+  where (${where}) and drop_band > 0 group by 1, 2, 3, 4, 5 ${add(BAND_KEY)}`;
+
+/** Adds (sign 1) or takes out (sign −1) what the source rows `where` picks carry: units, failures, both, or only their bands. */
+function change(sign: 1 | -1, where: string, what: 'units' | 'failures' | 'both' | 'bands'): string {
+  const units = [toCells(sign, 'units', where), toBands(sign, 'units', where)];
+  const failures = [toCells(sign, 'failures', where), toBands(sign, 'failures', where), sign === 1 ? addFailures(where) : `delete from unit_failures where ${where};`];
+  if (what === 'bands') return [toBands(sign, 'units', where), toBands(sign, 'failures', where)].join('\n');
+  return [...(what === 'failures' ? [] : units), ...(what === 'units' ? [] : failures)].join('\n');
 }
 
 /** Each failure with its unit's install day, for survival curves and claim shares without visiting builds. */
@@ -54,19 +69,19 @@ const addFailures = (where: string) => `insert into unit_failures (claim_id, bui
   from failed_unit_source where ${where};`;
 
 /** [name, timing and event, sign, which source rows, what they carry] */
-const TRIGGERS: [string, string, 1 | -1, string, 'units' | 'failures' | 'both'][] = [
+const TRIGGERS: [string, string, 1 | -1, string, 'units' | 'failures' | 'both' | 'bands'][] = [
   ['unit_exposure_item_insert', 'after insert on build_items', 1, 'build_item_id = new.id', 'units'],
   ['unit_exposure_item_before_update', 'before update of quantity, catalog_item_id, build_id, created_at on build_items', -1, 'build_item_id = old.id', 'both'],
   ['unit_exposure_item_after_update', 'after update of quantity, catalog_item_id, build_id, created_at on build_items', 1, 'build_item_id = new.id', 'both'],
   ['unit_exposure_item_delete', 'before delete on build_items', -1, 'build_item_id = old.id', 'both'],
   ['unit_exposure_build_before_update', 'before update of status, delivered_at, location_id on builds', -1, 'build_id = old.id', 'both'],
   ['unit_exposure_build_after_update', 'after update of status, delivered_at, location_id on builds', 1, 'build_id = new.id', 'both'],
-  ['unit_exposure_margin_before_insert', 'before insert on plan_margins', -1, 'build_id = new.build_id', 'both'],
-  ['unit_exposure_margin_after_insert', 'after insert on plan_margins', 1, 'build_id = new.build_id', 'both'],
-  ['unit_exposure_margin_before_update', 'before update on plan_margins', -1, 'build_id = old.build_id', 'both'],
-  ['unit_exposure_margin_after_update', 'after update on plan_margins', 1, 'build_id = new.build_id', 'both'],
-  ['unit_exposure_margin_before_delete', 'before delete on plan_margins', -1, 'build_id = old.build_id', 'both'],
-  ['unit_exposure_margin_after_delete', 'after delete on plan_margins', 1, 'build_id = old.build_id', 'both'],
+  ['unit_exposure_margin_before_insert', 'before insert on plan_margins', -1, 'build_id = new.build_id', 'bands'],
+  ['unit_exposure_margin_after_insert', 'after insert on plan_margins', 1, 'build_id = new.build_id', 'bands'],
+  ['unit_exposure_margin_before_update', 'before update on plan_margins', -1, 'build_id = old.build_id', 'bands'],
+  ['unit_exposure_margin_after_update', 'after update on plan_margins', 1, 'build_id = new.build_id', 'bands'],
+  ['unit_exposure_margin_before_delete', 'before delete on plan_margins', -1, 'build_id = old.build_id', 'bands'],
+  ['unit_exposure_margin_after_delete', 'after delete on plan_margins', 1, 'build_id = old.build_id', 'bands'],
   ['unit_exposure_claim_insert', 'after insert on warranty_claims', 1, 'claim_id = new.id', 'failures'],
   ['unit_exposure_claim_before_update', 'before update of build_item_id, failed_on, out_of_warranty on warranty_claims', -1, 'claim_id = old.id', 'failures'],
   ['unit_exposure_claim_after_update', 'after update of build_item_id, failed_on, out_of_warranty on warranty_claims', 1, 'claim_id = new.id', 'failures'],
@@ -78,26 +93,20 @@ const FAILURE_TRIGGERS: [string, string, string][] = [
   ['unit_failures_claim_update', 'after update of failure_mode, coverage on warranty_claims', `delete from unit_failures where claim_id = new.id; ${addFailures('claim_id = new.id')}`],
 ];
 
-/**
- * Two sums of the cells, kept by triggers that add each change of a cell: per item, location and
- * install month without the bands (`unit_exposure_by_location`, for a shop's, a region's or an
- * item's figures), and per item and month over the whole network (`unit_exposure_network`, a few
- * thousand rows). `unit_exposure` itself, keyed by item and bands first, serves the margins.
- */
-const SUMMARIES: [table: string, key: string][] = [
-  ['unit_exposure_by_location', 'catalog_item_id, location_id, installed_month'],
-  ['unit_exposure_network', 'catalog_item_id, installed_month'],
-];
-const summaryChange = ([table, key]: [string, string], values: string) => `insert into ${table} (${key}, ${COUNTS.join(', ')})
-  values (${key.split(', ').map((c) => `new.${c}`).join(', ')}, ${values})
-  on conflict (${key}) do update set ${COUNTS.map((c) => `${c} = ${c} + excluded.${c}`).join(', ')};`;
-const SUMMARY_TRIGGERS: [string, string, string][] = [
-  ['unit_exposure_summary_insert', 'after insert on unit_exposure', COUNTS.map((c) => `new.${c}`).join(', ')],
-  ['unit_exposure_summary_update', 'after update on unit_exposure', COUNTS.map((c) => `new.${c} - old.${c}`).join(', ')],
+/** The cells summed over every location, per item and install month (a few thousand rows), kept by triggers that add each change of a cell. */
+const NETWORK_KEY = 'catalog_item_id, installed_month';
+const toNetwork = (values: string) => `insert into unit_exposure_network (${NETWORK_KEY}, ${COUNTS.join(', ')})
+  values (new.catalog_item_id, new.installed_month, ${values}) ${add(NETWORK_KEY)}`;
+const NETWORK_TRIGGERS: [string, string, string][] = [
+  ['unit_exposure_network_insert', 'after insert on unit_exposure', COUNTS.map((c) => `new.${c}`).join(', ')],
+  ['unit_exposure_network_update', 'after update on unit_exposure', COUNTS.map((c) => `new.${c} - old.${c}`).join(', ')],
 ];
 
-/** Empties and refills `unit_exposure` (and through its triggers its sums) from its sources, after a bulk load that ran without triggers. */
-export const REFILL_UNIT_EXPOSURE = `delete from unit_failures;\n${SUMMARIES.map(([table]) => `delete from ${table};`).join('\n')}\ndelete from unit_exposure;\n${change(1, 'true', 'both')}`;
+/** Empties and refills the tables from their sources, after a bulk load that ran without triggers. */
+export const REFILL_UNIT_EXPOSURE = ['unit_failures', 'unit_exposure_network', 'unit_exposure_bands', 'unit_exposure']
+  .map((table) => `delete from ${table};`)
+  .concat(change(1, 'true', 'both'))
+  .join('\n');
 
 const countColumns = COUNTS.map((c) => `${c} integer not null`).join(', ');
 
@@ -108,14 +117,14 @@ export async function up(db: Kysely<any>): Promise<void> {
     load_band integer not null check (load_band between 1 and 4),
     discharge_band integer not null check (discharge_band between 1 and 4)
   )`.execute(db);
-  await sql`create table unit_exposure (
-    catalog_item_id integer not null, location_id integer not null, installed_month text not null,
-    drop_band integer not null, load_band integer not null, discharge_band integer not null, ${sql.raw(countColumns)},
-    primary key (catalog_item_id, drop_band, load_band, discharge_band, location_id, installed_month)
-  ) without rowid`.execute(db);
-  for (const [table, key] of SUMMARIES) {
-    await sql.raw(`create table ${table} (${key.split(', ').map((c) => `${c} ${c === 'installed_month' ? 'text' : 'integer'} not null`).join(', ')}, ${countColumns}, primary key (${key})) without rowid`).execute(db);
-  }
+  await sql.raw(`create table unit_exposure (catalog_item_id integer not null, location_id integer not null, installed_month text not null,
+    ${countColumns}, primary key (${CELL_KEY})) without rowid`).execute(db);
+  // A lead's or a region's locations read their cells through this index alone.
+  await sql.raw(`create index unit_exposure_location on unit_exposure (location_id, catalog_item_id, installed_month, ${COUNTS.join(', ')})`).execute(db);
+  await sql.raw(`create table unit_exposure_bands (catalog_item_id integer not null, measure integer not null, band integer not null,
+    location_id integer not null, installed_month text not null, ${countColumns}, primary key (${BAND_KEY})) without rowid`).execute(db);
+  await sql.raw(`create table unit_exposure_network (catalog_item_id integer not null, installed_month text not null,
+    ${countColumns}, primary key (${NETWORK_KEY})) without rowid`).execute(db);
   await sql`create table unit_failures (
     claim_id integer primary key, build_item_id integer not null, build_id integer not null, catalog_item_id integer not null,
     location_id integer not null, installed_day integer not null, failed_day integer not null, failure_mode text not null, coverage text not null
@@ -123,11 +132,7 @@ export async function up(db: Kysely<any>): Promise<void> {
   await sql`create index unit_failures_item on unit_failures (catalog_item_id, installed_day, location_id, failed_day, failure_mode, coverage)`.execute(db);
   await sql`create index unit_failures_build on unit_failures (build_id)`.execute(db);
   await sql`create index unit_failures_build_item on unit_failures (build_item_id)`.execute(db);
-  // A lead's or a region's locations read their sums through this index alone.
-  await sql.raw(`create index unit_exposure_location on unit_exposure_by_location (location_id, catalog_item_id, installed_month, ${COUNTS.join(', ')})`).execute(db);
-  for (const [name, when, values] of SUMMARY_TRIGGERS) {
-    await sql.raw(`create trigger ${name} ${when} begin ${SUMMARIES.map((summary) => summaryChange(summary, values)).join('\n')} end`).execute(db);
-  }
+  for (const [name, when, values] of NETWORK_TRIGGERS) await sql.raw(`create trigger ${name} ${when} begin ${toNetwork(values)} end`).execute(db);
   await sql.raw(`create view installed_unit_source as ${UNIT_SOURCE}`).execute(db);
   await sql.raw(`create view failed_unit_source as ${FAILURE_SOURCE}`).execute(db);
   for (const [name, when, sign, where, what] of TRIGGERS) await sql.raw(`create trigger ${name} ${when} begin ${change(sign, where, what)} end`).execute(db);
@@ -136,11 +141,12 @@ export async function up(db: Kysely<any>): Promise<void> {
 }
 
 export async function down(db: Kysely<any>): Promise<void> {
-  for (const [name] of [...TRIGGERS, ...SUMMARY_TRIGGERS, ...FAILURE_TRIGGERS]) await sql.raw(`drop trigger ${name}`).execute(db);
+  for (const [name] of [...TRIGGERS, ...NETWORK_TRIGGERS, ...FAILURE_TRIGGERS]) await sql.raw(`drop trigger ${name}`).execute(db);
   await sql`drop view failed_unit_source`.execute(db);
   await sql`drop view installed_unit_source`.execute(db);
   await sql`drop table unit_failures`.execute(db);
-  for (const [table] of SUMMARIES) await sql.raw(`drop table ${table}`).execute(db);
+  await sql`drop table unit_exposure_network`.execute(db);
+  await sql`drop table unit_exposure_bands`.execute(db);
   await sql`drop table unit_exposure`.execute(db);
   await sql`drop table plan_margins`.execute(db);
 }

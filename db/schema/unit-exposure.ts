@@ -1,13 +1,10 @@
 import type { Coverage, FailureMode } from '@busbar/shared';
 
-/** Reliability counts per catalog item, location, install month (YYYY-MM) and design-margin bands (migration 019). */
+/** Reliability counts per catalog item, location and install month (YYYY-MM) (migration 019). */
 export interface UnitExposureTable {
   catalogItemId: number;
   locationId: number;
   installedMonth: string;
-  dropBand: number;
-  loadBand: number;
-  dischargeBand: number;
   units: number;
   /** Σ quantity × install day (days since 1970-01-01, UTC). */
   installedDaySum: number;
@@ -18,11 +15,11 @@ export interface UnitExposureTable {
   warrantyFailures: number;
 }
 
-/** The same counts summed over the bands, per catalog item, location and install month. */
-export type UnitExposureByLocationTable = Omit<UnitExposureTable, 'dropBand' | 'loadBand' | 'dischargeBand'>;
+/** The same counts for units on planned builds, per design-margin measure (1 drop, 2 load, 3 discharge) and band (1–4). */
+export type UnitExposureBandsTable = UnitExposureTable & { measure: number; band: number };
 
-/** The same counts summed over every location and band, per catalog item and install month. */
-export type UnitExposureNetworkTable = Omit<UnitExposureByLocationTable, 'locationId'>;
+/** The same counts summed over every location, per catalog item and install month. */
+export type UnitExposureNetworkTable = Omit<UnitExposureTable, 'locationId'>;
 
 /** How close a build's power plan runs to its limits, in bands: 1 the most margin, 4 past the limit. */
 export interface PlanMarginsTable {

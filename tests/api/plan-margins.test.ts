@@ -53,13 +53,17 @@ async function deliveredBuild(plan?: PlanInput) {
   return { build, itemIds, before };
 }
 
-/** Units of the items in `unit_exposure` by "drop-load-discharge" band, leaving out cells that add up to nothing. */
+const MEASURE_NAMES = ['drop', 'load', 'discharge'];
+
+/** Units of the items by margin measure and band ("drop 3"), and those on builds without margins ("none"), leaving out what adds up to nothing. */
 async function unitsByBand(itemIds: number[]): Promise<Record<string, number>> {
-  const rows = await h.db.selectFrom('unitExposure').selectAll().where('catalogItemId', 'in', itemIds).execute();
-  const units: Record<string, number> = {};
-  for (const r of rows) {
-    const key = `${r.dropBand}-${r.loadBand}-${r.dischargeBand}`;
+  const bands = await h.db.selectFrom('unitExposureBands').selectAll().where('catalogItemId', 'in', itemIds).execute();
+  const cells = await h.db.selectFrom('unitExposure').select('units').where('catalogItemId', 'in', itemIds).execute();
+  const units: Record<string, number> = { none: cells.reduce((sum, c) => sum + c.units, 0) };
+  for (const r of bands) {
+    const key = `${MEASURE_NAMES[r.measure - 1]} ${r.band}`;
     units[key] = (units[key] ?? 0) + r.units;
+    if (r.measure === 1) units.none! -= r.units;
   }
   return Object.fromEntries(Object.entries(units).filter(([, n]) => n !== 0));
 }
@@ -73,30 +77,30 @@ describe("a build's design margins follow its plan", () => {
     const { build, itemIds, before } = await deliveredBuild(roomy);
     expect(before).toEqual({});
     expect(await marginsOf(build.id)).toEqual({ dropBand: 3, loadBand: 1, dischargeBand: 1 });
-    expect(await unitsByBand(itemIds)).toEqual({ '3-1-1': 5 });
+    expect(await unitsByBand(itemIds)).toEqual({ 'drop 3': 5, 'load 1': 5, 'discharge 1': 5 });
 
     expect((await correct(build, 1, tight)).status).toBe(200);
     expect(await marginsOf(build.id)).toEqual({ dropBand: 4, loadBand: 1, dischargeBand: 1 });
-    expect(await unitsByBand(itemIds)).toEqual({ '4-1-1': 5 });
+    expect(await unitsByBand(itemIds)).toEqual({ 'drop 4': 5, 'load 1': 5, 'discharge 1': 5 });
 
     expect((await correct(build, 2, tight)).status).toBe(200);
-    expect(await unitsByBand(itemIds)).toEqual({ '4-1-1': 5 });
+    expect(await unitsByBand(itemIds)).toEqual({ 'drop 4': 5, 'load 1': 5, 'discharge 1': 5 });
 
     expect((await correct(build, 3, noCircuits)).status).toBe(200);
     expect(await marginsOf(build.id)).toBeUndefined();
-    expect(await unitsByBand(itemIds)).toEqual({ '0-0-0': 5 });
+    expect(await unitsByBand(itemIds)).toEqual({ none: 5 });
   });
 
   it('leaves the units where they were when a save is refused', async () => {
     const { build, itemIds } = await deliveredBuild(roomy);
     expect((await tech.put(`/api/builds/${build.id}/plan`).send({ version: 1, input: tight, correctionNote: 'Rewired' })).status).toBe(403);
     expect((await correct(build, 0, tight)).status).toBe(409);
-    expect(await unitsByBand(itemIds)).toEqual({ '3-1-1': 5 });
+    expect(await unitsByBand(itemIds)).toEqual({ 'drop 3': 5, 'load 1': 5, 'discharge 1': 5 });
   });
 
   it('writes no margins for a quick plan, and moves a delivered build’s units when one is attached to it', async () => {
     const { build, itemIds } = await deliveredBuild();
-    expect(await unitsByBand(itemIds)).toEqual({ '0-0-0': 5 });
+    expect(await unitsByBand(itemIds)).toEqual({ none: 5 });
     const rowsBefore = await h.db.selectFrom('planMargins').select('buildId').execute();
     const quick = await tech.post('/api/plans').send({ locationId: ids.location('DEN'), name: 'Van consult', input: tight });
     expect(quick.status).toBe(201);
@@ -105,6 +109,6 @@ describe("a build's design margins follow its plan", () => {
     const attached = await lead.post(`/api/plans/${quick.body.id}/attach`).send({ buildId: build.id, version: 1 });
     expect(attached.status).toBe(200);
     expect(await marginsOf(build.id)).toEqual({ dropBand: 4, loadBand: 1, dischargeBand: 1 });
-    expect(await unitsByBand(itemIds)).toEqual({ '4-1-1': 5 });
+    expect(await unitsByBand(itemIds)).toEqual({ 'drop 4': 5, 'load 1': 5, 'discharge 1': 5 });
   });
 });

@@ -108,11 +108,11 @@ describe('exposure from the kept tables', () => {
 
 /** Every kept table as rows, so the tables after changes can be compared with the same tables refilled from scratch. */
 async function keptTables(db: Db) {
-  const cells = await sql<object>`select * from unit_exposure where units != 0 or failures != 0 order by 1, 2, 3, 4, 5, 6`.execute(db);
-  const byLocation = await sql<object>`select * from unit_exposure_by_location where units != 0 or failures != 0 order by 1, 2, 3`.execute(db);
+  const cells = await sql<object>`select * from unit_exposure where units != 0 or failures != 0 order by 1, 2, 3`.execute(db);
+  const bands = await sql<object>`select * from unit_exposure_bands where units != 0 or failures != 0 order by 1, 2, 3, 4, 5`.execute(db);
   const network = await sql<object>`select * from unit_exposure_network where units != 0 or failures != 0 order by 1, 2`.execute(db);
   const failures = await sql<object>`select * from unit_failures order by claim_id`.execute(db);
-  return { cells: cells.rows, byLocation: byLocation.rows, network: network.rows, failures: failures.rows };
+  return { cells: cells.rows, bands: bands.rows, network: network.rows, failures: failures.rows };
 }
 
 async function refilled(db: Db) {

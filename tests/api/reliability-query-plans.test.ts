@@ -49,7 +49,7 @@ describe('reliability query plans', () => {
 
   it("a shop's list reads its own cells through the location index, and the network's sums for the peers", async () => {
     const run = (db: typeof h.db) => reliabilityList(db, [ids.location('DEN')], { groupBy: 'category' }, TODAY.today, TODAY.todayDay);
-    expect(await tablesOf(run)).toEqual(['catalog_items', 'vendors', 'unit_exposure_by_location', 'unit_exposure_network']);
+    expect(await tablesOf(run)).toEqual(['catalog_items', 'vendors', 'unit_exposure', 'unit_exposure_network']);
     const plans = planText(await plansOf(h.db, run));
     expect(plans).toMatch(/SEARCH x USING COVERING INDEX unit_exposure_location \(location_id=\? AND catalog_item_id=\?\)/);
     expect(plans).not.toMatch(/SCAN x\b/);
@@ -57,12 +57,12 @@ describe('reliability query plans', () => {
 
   it("one item's view reads its cells and failures by item", async () => {
     const item = await h.db.selectFrom('catalogItems').select('id').where('sku', '=', 'TDW-DC40').executeTakeFirstOrThrow();
-    const plans = planText(
-      await plansOf(h.db, (db) => reliabilityDetail(db, { groupBy: 'item', key: item.id }, 'all', new Map(), {}, TODAY.today, TODAY.todayDay)),
-    );
+    const run = (db: typeof h.db) => reliabilityDetail(db, { groupBy: 'item', key: item.id }, 'all', new Map(), {}, TODAY.today, TODAY.todayDay);
+    const plans = planText(await plansOf(h.db, run));
     expect(plans).toMatch(/SEARCH x USING PRIMARY KEY \(catalog_item_id=\?\)/);
-    // The margins read only the cells of planned builds.
-    expect(plans).toMatch(/SEARCH x USING PRIMARY KEY \(catalog_item_id=\? AND drop_band>\?\)/);
+    // The shops, the months (the network's sums) and the margin bands of planned builds, each by item.
+    expect(await tablesOf(run)).toContain('unit_exposure_bands');
+    expect(plans.match(/SEARCH x USING PRIMARY KEY \(catalog_item_id=\?\)/g)).toHaveLength(3);
     expect(plans).toMatch(/SEARCH unit_failures USING COVERING INDEX unit_failures_item \(catalog_item_id=\?\)/);
     expect(plans).not.toMatch(/SCAN (x|unit_exposure|unit_failures)\b/);
     expect(plans).not.toMatch(/builds|build_items|warranty_claims/);

@@ -34,24 +34,24 @@ const KEY_COLUMNS: Record<CellKey, string> = {
   month: 'x.installed_month',
   none: '0',
   location: 'x.location_id',
-  // Three digits: drop, load and discharge band, of planned builds only.
-  bands: 'x.drop_band * 100 + x.load_band * 10 + x.discharge_band',
+  // Two digits: the margin measure (1 drop, 2 load, 3 discharge) and its band, of planned builds only.
+  bands: 'x.measure * 10 + x.band',
 };
 
 type Cells = ExpressionBuilder<Database & { x: Database['unitExposure']; ci: Database['catalogItems'] }, 'x' | 'ci'>;
 
 /**
- * The cells' sums by `key`, for the units `filter` picks, as of `today` (YYYY-MM-DD): the bands from
- * the cells of planned builds, the whole network's by item or month from `unit_exposure_network`,
- * the rest from `unit_exposure_by_location`.
+ * The cells' sums by `key`, for the units `filter` picks, as of `today` (YYYY-MM-DD): the margin
+ * bands from `unit_exposure_bands`, the whole network's by item or month from
+ * `unit_exposure_network` (a few rows per item), the rest from `unit_exposure`.
  */
 export async function unitSums(db: Db, filter: UnitFilter, key: CellKey, today: string): Promise<(UnitSums & { key: string | number })[]> {
   const keyColumn = sql.raw<string | number>(KEY_COLUMNS[key]);
   // A unit installed in month M with W months of warranty has seen all of it once M + W months lies before this month.
   const completed = sql`x.installed_month < strftime('%Y-%m', ${today}, '-' || ci.warranty_months || ' months')`;
   const total = (column: RawBuilder<unknown>) => sql<number>`coalesce(sum(${column}), 0)`;
-  const table = key === 'bands' ? 'unitExposure' : filter.scope === 'all' && NETWORK_KEYS.includes(key) ? 'unitExposureNetwork' : 'unitExposureByLocation';
-  // The sums have the cells' columns less the bands (and the network's less the location), which they are never asked by.
+  const table = key === 'bands' ? 'unitExposureBands' : filter.scope === 'all' && NETWORK_KEYS.includes(key) ? 'unitExposureNetwork' : 'unitExposure';
+  // The network's sums have the cells' columns less the location, which they are never asked by.
   let query = db
     .selectFrom(`${table} as x` as 'unitExposure as x')
     .innerJoin('catalogItems as ci', 'ci.id', 'x.catalogItemId')
@@ -65,7 +65,7 @@ export async function unitSums(db: Db, filter: UnitFilter, key: CellKey, today: 
       total(sql`case when ${completed} then x.units end`).as('completedUnits'),
       total(sql`case when ${completed} then x.warranty_failures end`).as('completedWarrantyFailures'),
     ])
-    .where((eb) => eb.and([...conditions(eb, filter), ...(key === 'bands' ? [eb('x.dropBand', '>', 0)] : [])]));
+    .where((eb) => eb.and(conditions(eb, filter)));
   if (key !== 'none') query = query.groupBy(keyColumn);
   return (await query.execute()) as (UnitSums & { key: string | number })[];
 }

@@ -3,7 +3,7 @@ import {
   COVERAGES,
   FAILURE_MODES,
   MARGIN_MEASURES,
-  type MarginMeasure,
+  type MarginRow,
   type ReliabilityDetail,
   type ReliabilityDetailParams,
   type ReliabilityDetailQuery,
@@ -61,12 +61,8 @@ export async function reliabilityDetail(
 
 async function marginsOf(db: Db, filter: UnitFilter, today: string, todayDay: number): Promise<Pick<ReliabilityDetail, 'margins' | 'plannedUnits'>> {
   const planned = await unitSums(db, filter, 'bands', today);
-  const digitOf = (key: string | number, measure: MarginMeasure) => Math.floor(Number(key) / 10 ** (2 - MARGIN_MEASURES.indexOf(measure))) % 10;
-  const margins = MARGIN_MEASURES.flatMap((measure) =>
-    ([1, 2, 3, 4] as const).flatMap((band) => {
-      const cells = planned.filter((cell) => digitOf(cell.key, measure) === band);
-      return cells.length > 0 ? [{ measure, band, ...figuresOf(addSums(cells), todayDay) }] : [];
-    }),
-  );
-  return { margins, plannedUnits: addSums(planned).units };
+  const margins = planned
+    .map(({ key, ...sums }) => ({ measure: MARGIN_MEASURES[Math.floor(Number(key) / 10) - 1]!, band: (Number(key) % 10) as MarginRow['band'], ...figuresOf(sums, todayDay) }))
+    .sort((a, b) => MARGIN_MEASURES.indexOf(a.measure) - MARGIN_MEASURES.indexOf(b.measure) || a.band - b.band);
+  return { margins, plannedUnits: margins.filter((m) => m.measure === 'drop').reduce((sum, m) => sum + m.units, 0) };
 }
