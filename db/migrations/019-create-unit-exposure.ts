@@ -7,7 +7,7 @@ import { sql, type Kysely } from 'kysely';
  * install until failure, or until today) is exact for any day:
  * Σ(failed day − install day) over failures + Σ(today − install day) over the rest.
  * `unit_exposure_bands` holds the same for units on planned builds, per design-margin measure and
- * band; `unit_exposure_network` the cells summed over every location.
+ * band; `unit_exposure_network` and `unit_exposure_bands_network` both summed over every location.
  *
  * A unit is a line of a delivered build, counted by its quantity, installed the later of the day
  * the build was delivered and the day the line was added (a replacement or a correction after
@@ -93,17 +93,24 @@ const FAILURE_TRIGGERS: [string, string, string][] = [
   ['unit_failures_claim_update', 'after update of failure_mode, coverage on warranty_claims', `delete from unit_failures where claim_id = new.id; ${addFailures('claim_id = new.id')}`],
 ];
 
-/** The cells summed over every location, per item and install month (a few thousand rows), kept by triggers that add each change of a cell. */
-const NETWORK_KEY = 'catalog_item_id, installed_month';
-const toNetwork = (values: string) => `insert into unit_exposure_network (${NETWORK_KEY}, ${COUNTS.join(', ')})
-  values (new.catalog_item_id, new.installed_month, ${values}) ${add(NETWORK_KEY)}`;
-const NETWORK_TRIGGERS: [string, string, string][] = [
-  ['unit_exposure_network_insert', 'after insert on unit_exposure', COUNTS.map((c) => `new.${c}`).join(', ')],
-  ['unit_exposure_network_update', 'after update on unit_exposure', COUNTS.map((c) => `new.${c} - old.${c}`).join(', ')],
+/**
+ * The cells and the bands summed over every location (per item and install month, and per item,
+ * measure, band and month: a few thousand rows), for the whole network's figures, kept by triggers
+ * that add each change of a cell.
+ */
+const NETWORK_SUMS: [table: string, from: string, key: string][] = [
+  ['unit_exposure_network', 'unit_exposure', 'catalog_item_id, installed_month'],
+  ['unit_exposure_bands_network', 'unit_exposure_bands', 'catalog_item_id, measure, band, installed_month'],
 ];
+const toNetwork = ([table, , key]: [string, string, string], values: string) => `insert into ${table} (${key}, ${COUNTS.join(', ')})
+  values (${key.split(', ').map((c) => `new.${c}`).join(', ')}, ${values}) ${add(key)}`;
+const NETWORK_TRIGGERS: [string, string, string, [string, string, string]][] = NETWORK_SUMS.flatMap((sums) => [
+  [`${sums[0]}_insert`, `after insert on ${sums[1]}`, COUNTS.map((c) => `new.${c}`).join(', '), sums] as [string, string, string, [string, string, string]],
+  [`${sums[0]}_update`, `after update on ${sums[1]}`, COUNTS.map((c) => `new.${c} - old.${c}`).join(', '), sums] as [string, string, string, [string, string, string]],
+]);
 
 /** Empties and refills the tables from their sources, after a bulk load that ran without triggers. */
-export const REFILL_UNIT_EXPOSURE = ['unit_failures', 'unit_exposure_network', 'unit_exposure_bands', 'unit_exposure']
+export const REFILL_UNIT_EXPOSURE = ['unit_failures', 'unit_exposure_bands_network', 'unit_exposure_network', 'unit_exposure_bands', 'unit_exposure']
   .map((table) => `delete from ${table};`)
   .concat(change(1, 'true', 'both'))
   .join('\n');
@@ -123,8 +130,10 @@ export async function up(db: Kysely<any>): Promise<void> {
   await sql.raw(`create index unit_exposure_location on unit_exposure (location_id, catalog_item_id, installed_month, ${COUNTS.join(', ')})`).execute(db);
   await sql.raw(`create table unit_exposure_bands (catalog_item_id integer not null, measure integer not null, band integer not null,
     location_id integer not null, installed_month text not null, ${countColumns}, primary key (${BAND_KEY})) without rowid`).execute(db);
-  await sql.raw(`create table unit_exposure_network (catalog_item_id integer not null, installed_month text not null,
-    ${countColumns}, primary key (${NETWORK_KEY})) without rowid`).execute(db);
+  for (const [table, , key] of NETWORK_SUMS) {
+    const keyColumns = key.split(', ').map((c) => `${c} ${c === 'installed_month' ? 'text' : 'integer'} not null`).join(', ');
+    await sql.raw(`create table ${table} (${keyColumns}, ${countColumns}, primary key (${key})) without rowid`).execute(db);
+  }
   await sql`create table unit_failures (
     claim_id integer primary key, build_item_id integer not null, build_id integer not null, catalog_item_id integer not null,
     location_id integer not null, installed_day integer not null, failed_day integer not null, failure_mode text not null, coverage text not null
@@ -132,7 +141,7 @@ export async function up(db: Kysely<any>): Promise<void> {
   await sql`create index unit_failures_item on unit_failures (catalog_item_id, installed_day, location_id, failed_day, failure_mode, coverage)`.execute(db);
   await sql`create index unit_failures_build on unit_failures (build_id)`.execute(db);
   await sql`create index unit_failures_build_item on unit_failures (build_item_id)`.execute(db);
-  for (const [name, when, values] of NETWORK_TRIGGERS) await sql.raw(`create trigger ${name} ${when} begin ${toNetwork(values)} end`).execute(db);
+  for (const [name, when, values, sums] of NETWORK_TRIGGERS) await sql.raw(`create trigger ${name} ${when} begin ${toNetwork(sums, values)} end`).execute(db);
   await sql.raw(`create view installed_unit_source as ${UNIT_SOURCE}`).execute(db);
   await sql.raw(`create view failed_unit_source as ${FAILURE_SOURCE}`).execute(db);
   for (const [name, when, sign, where, what] of TRIGGERS) await sql.raw(`create trigger ${name} ${when} begin ${change(sign, where, what)} end`).execute(db);
@@ -145,7 +154,7 @@ export async function down(db: Kysely<any>): Promise<void> {
   await sql`drop view failed_unit_source`.execute(db);
   await sql`drop view installed_unit_source`.execute(db);
   await sql`drop table unit_failures`.execute(db);
-  await sql`drop table unit_exposure_network`.execute(db);
+  for (const [table] of NETWORK_SUMS) await sql.raw(`drop table ${table}`).execute(db);
   await sql`drop table unit_exposure_bands`.execute(db);
   await sql`drop table unit_exposure`.execute(db);
   await sql`drop table plan_margins`.execute(db);

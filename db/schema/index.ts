@@ -18,7 +18,7 @@ import type { RegionsTable } from './regions.ts';
 import type { RoleAssignmentsTable } from './role-assignments.ts';
 import type { RollupFiguresTable } from './rollups.ts';
 import type { SessionsTable } from './sessions.ts';
-import type { PlanMarginsTable, UnitExposureBandsTable, UnitExposureNetworkTable, UnitExposureTable, UnitFailuresTable } from './unit-exposure.ts';
+import type { PlanMarginsTable, UnitExposureBandsNetworkTable, UnitExposureBandsTable, UnitExposureNetworkTable, UnitExposureTable, UnitFailuresTable } from './unit-exposure.ts';
 import type { UsersTable } from './users.ts';
 
 export interface Database {
@@ -44,6 +44,7 @@ export interface Database {
   claimEvidence: ClaimEvidenceTable;
   unitExposure: UnitExposureTable;
   unitExposureBands: UnitExposureBandsTable;
+  unitExposureBandsNetwork: UnitExposureBandsNetworkTable;
   unitExposureNetwork: UnitExposureNetworkTable;
   planMargins: PlanMarginsTable;
   unitFailures: UnitFailuresTable;

@@ -21,6 +21,9 @@ export type UnitExposureBandsTable = UnitExposureTable & { measure: number; band
 /** The same counts summed over every location, per catalog item and install month. */
 export type UnitExposureNetworkTable = Omit<UnitExposureTable, 'locationId'>;
 
+/** The bands summed over every location. */
+export type UnitExposureBandsNetworkTable = Omit<UnitExposureBandsTable, 'locationId'>;
+
 /** How close a build's power plan runs to its limits, in bands: 1 the most margin, 4 past the limit. */
 export interface PlanMarginsTable {
   buildId: number;

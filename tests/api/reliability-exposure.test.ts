@@ -111,8 +111,9 @@ async function keptTables(db: Db) {
   const cells = await sql<object>`select * from unit_exposure where units != 0 or failures != 0 order by 1, 2, 3`.execute(db);
   const bands = await sql<object>`select * from unit_exposure_bands where units != 0 or failures != 0 order by 1, 2, 3, 4, 5`.execute(db);
   const network = await sql<object>`select * from unit_exposure_network where units != 0 or failures != 0 order by 1, 2`.execute(db);
+  const bandsNetwork = await sql<object>`select * from unit_exposure_bands_network where units != 0 or failures != 0 order by 1, 2, 3, 4`.execute(db);
   const failures = await sql<object>`select * from unit_failures order by claim_id`.execute(db);
-  return { cells: cells.rows, bands: bands.rows, network: network.rows, failures: failures.rows };
+  return { cells: cells.rows, bands: bands.rows, network: network.rows, bandsNetwork: bandsNetwork.rows, failures: failures.rows };
 }
 
 async function refilled(db: Db) {

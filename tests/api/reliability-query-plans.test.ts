@@ -61,7 +61,7 @@ describe('reliability query plans', () => {
     const plans = planText(await plansOf(h.db, run));
     expect(plans).toMatch(/SEARCH x USING PRIMARY KEY \(catalog_item_id=\?\)/);
     // The shops, the months (the network's sums) and the margin bands of planned builds, each by item.
-    expect(await tablesOf(run)).toContain('unit_exposure_bands');
+    expect(await tablesOf(run)).toContain('unit_exposure_bands_network');
     expect(plans.match(/SEARCH x USING PRIMARY KEY \(catalog_item_id=\?\)/g)).toHaveLength(3);
     expect(plans).toMatch(/SEARCH unit_failures USING COVERING INDEX unit_failures_item \(catalog_item_id=\?\)/);
     expect(plans).not.toMatch(/SCAN (x|unit_exposure|unit_failures)\b/);

@@ -42,16 +42,17 @@ type Cells = ExpressionBuilder<Database & { x: Database['unitExposure']; ci: Dat
 
 /**
  * The cells' sums by `key`, for the units `filter` picks, as of `today` (YYYY-MM-DD): the margin
- * bands from `unit_exposure_bands`, the whole network's by item or month from
- * `unit_exposure_network` (a few rows per item), the rest from `unit_exposure`.
+ * bands from `unit_exposure_bands`, the whole network's by item or month (or bands) from
+ * `unit_exposure_network` (`…_bands_network`), a few rows per item; the rest from `unit_exposure`.
  */
 export async function unitSums(db: Db, filter: UnitFilter, key: CellKey, today: string): Promise<(UnitSums & { key: string | number })[]> {
   const keyColumn = sql.raw<string | number>(KEY_COLUMNS[key]);
   // A unit installed in month M with W months of warranty has seen all of it once M + W months lies before this month.
   const completed = sql`x.installed_month < strftime('%Y-%m', ${today}, '-' || ci.warranty_months || ' months')`;
   const total = (column: RawBuilder<unknown>) => sql<number>`coalesce(sum(${column}), 0)`;
-  const table = key === 'bands' ? 'unitExposureBands' : filter.scope === 'all' && NETWORK_KEYS.includes(key) ? 'unitExposureNetwork' : 'unitExposure';
-  // The network's sums have the cells' columns less the location, which they are never asked by.
+  const network = filter.scope === 'all' && NETWORK_KEYS.includes(key);
+  const table = key === 'bands' ? (filter.scope === 'all' ? 'unitExposureBandsNetwork' : 'unitExposureBands') : network ? 'unitExposureNetwork' : 'unitExposure';
+  // The network's sums have their cells' columns less the location, which they are never asked by.
   let query = db
     .selectFrom(`${table} as x` as 'unitExposure as x')
     .innerJoin('catalogItems as ci', 'ci.id', 'x.catalogItemId')

@@ -1,23 +1,41 @@
 import { addMonthsIso, dayOfIso } from '@busbar/calc';
-import type { Db } from '@busbar/db';
+import type { Database, Db } from '@busbar/db';
 import type { Coverage, FailureMode } from '@busbar/shared';
+import { sql, type SelectQueryBuilder } from 'kysely';
+import type { LocationScope } from '../access/locations.ts';
 
-export interface UnitFailure {
-  locationId: number;
-  /** Days since 1970-01-01 (UTC). */
-  installedDay: number;
-  failedDay: number;
-  failureMode: FailureMode;
-  coverage: Coverage;
+/** Which failures: of these catalog items, among units installed in the months (YYYY-MM, inclusive), at these locations. */
+export interface FailureFilter {
+  itemIds: number[];
+  from?: string;
+  to?: string;
+  scope: LocationScope;
 }
 
-/** Every failure of these catalog items across the network among units installed in the months (YYYY-MM, inclusive). */
-export async function unitFailures(db: Db, itemIds: number[], months: { from?: string; to?: string }): Promise<UnitFailure[]> {
-  if (itemIds.length === 0) return [];
-  let query = db.selectFrom('unitFailures').select(['locationId', 'installedDay', 'failedDay', 'failureMode', 'coverage']).where('catalogItemId', 'in', itemIds);
-  if (months.from) query = query.where('installedDay', '>=', dayOfIso(`${months.from}-01`));
-  if (months.to) query = query.where('installedDay', '<', dayOfIso(addMonthsIso(`${months.to}-01`, 1)));
-  return query.execute();
+function failuresOf(db: Db, { itemIds, from, to, scope }: FailureFilter): SelectQueryBuilder<Database, 'unitFailures', object> {
+  let query = db.selectFrom('unitFailures').where('catalogItemId', 'in', itemIds.length > 0 ? itemIds : [0]);
+  if (from) query = query.where('installedDay', '>=', dayOfIso(`${from}-01`));
+  if (to) query = query.where('installedDay', '<', dayOfIso(addMonthsIso(`${to}-01`, 1)));
+  if (scope !== 'all') query = query.where('locationId', 'in', scope.length > 0 ? scope : [0]);
+  return query;
+}
+
+/** How many units failed at each age in days (failed day − install day). */
+export function failureAges(db: Db, filter: FailureFilter): Promise<{ days: number; failures: number }[]> {
+  return failuresOf(db, filter).select([sql<number>`failed_day - installed_day`.as('days'), sql<number>`count(*)`.as('failures')]).groupBy('days').execute();
+}
+
+/** Claims per location, and how many of them were the shop's workmanship. */
+export function claimsByLocation(db: Db, filter: FailureFilter): Promise<{ locationId: number; claims: number; workmanshipClaims: number }[]> {
+  return failuresOf(db, filter)
+    .select(['locationId', sql<number>`count(*)`.as('claims'), sql<number>`sum(coverage = 'workmanship')`.as('workmanshipClaims')])
+    .groupBy('locationId')
+    .execute();
+}
+
+/** Claims by failure mode and coverage. */
+export function claimShares(db: Db, filter: FailureFilter): Promise<{ failureMode: FailureMode; coverage: Coverage; claims: number }[]> {
+  return failuresOf(db, filter).select(['failureMode', 'coverage', sql<number>`count(*)`.as('claims')]).groupBy(['failureMode', 'coverage']).execute();
 }
 
 /** The catalog items of an item, category or vendor. */

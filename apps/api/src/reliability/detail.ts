@@ -11,7 +11,7 @@ import {
 import type { LocationScope } from '../access/locations.ts';
 import { notFound } from '../errors.ts';
 import { unitSums, type UnitFilter } from '../queries/unit-exposure.ts';
-import { itemsOf, unitFailures } from '../queries/unit-failures.ts';
+import { claimsByLocation, claimShares, failureAges, itemsOf } from '../queries/unit-failures.ts';
 import { addSums, figuresOf } from './figures.ts';
 import { funnelOf, type NamedLocation } from './funnel.ts';
 import { catalogNames, labelOf } from './labels.ts';
@@ -39,9 +39,12 @@ export async function reliabilityDetail(
   const inSelection = (locationId: number) => selected === 'all' || selected.includes(locationId);
 
   const byLocation = new Map((await unitSums(db, { ...filter, scope: 'all' }, 'location', today)).map(({ key, ...s }) => [Number(key), s]));
-  const failures = await unitFailures(db, await itemsOf(db, params), months);
-  const chosen = failures.filter((f) => inSelection(f.locationId));
-  const observations = observationsOf(chosen, await unitSums(db, filter, 'month', today), todayDay);
+  const failures = { itemIds: await itemsOf(db, params), ...months, scope: selected };
+  const observations = observationsOf(await failureAges(db, failures), await unitSums(db, filter, 'month', today), todayDay);
+  const shares = await claimShares(db, failures);
+  const claims = new Map((await claimsByLocation(db, { ...failures, scope: 'all' })).map(({ locationId, ...c }) => [locationId, c]));
+  const claimsOf = <K extends string>(key: 'failureMode' | 'coverage', values: readonly K[]) =>
+    values.map((value) => ({ value, claims: shares.filter((s) => s[key] === value).reduce((sum, s) => sum + s.claims, 0) })).filter((v) => v.claims > 0);
 
   return {
     asOf: today,
@@ -52,9 +55,9 @@ export async function reliabilityDetail(
     network: figuresOf(addSums([...byLocation.values()]), todayDay),
     survival: survivalCurve(observations),
     ...weibullOf(observations),
-    failureModes: FAILURE_MODES.map((mode) => ({ mode, claims: chosen.filter((f) => f.failureMode === mode).length })).filter((m) => m.claims > 0),
-    coverages: COVERAGES.map((coverage) => ({ coverage, claims: chosen.filter((f) => f.coverage === coverage).length })).filter((c) => c.claims > 0),
-    funnel: funnelOf(byLocation, failures, named, todayDay),
+    failureModes: claimsOf('failureMode', FAILURE_MODES).map(({ value, claims }) => ({ mode: value, claims })),
+    coverages: claimsOf('coverage', COVERAGES).map(({ value, claims }) => ({ coverage: value, claims })),
+    funnel: funnelOf(byLocation, claims, named, todayDay),
     ...(await marginsOf(db, filter, today, todayDay)),
   };
 }

@@ -1,7 +1,6 @@
 import { funnelLimits, funnelSide } from '@busbar/calc';
 import { RATE_PER_UNIT_MONTHS, type FunnelLimit, type FunnelPoint, type FunnelSignal } from '@busbar/shared';
 import type { UnitSums } from '../queries/unit-exposure.ts';
-import type { UnitFailure } from '../queries/unit-failures.ts';
 import { unitMonthsOf } from './figures.ts';
 
 /** Spiegelhalter's two funnels: 95 % warns, 99.8 % (about three standard errors) alarms. */
@@ -22,17 +21,10 @@ export interface NamedLocation {
  */
 export function funnelOf(
   byLocation: Map<number, UnitSums>,
-  failures: readonly UnitFailure[],
+  claims: Map<number, { claims: number; workmanshipClaims: number }>,
   named: Map<number, NamedLocation>,
   todayDay: number,
 ): { points: FunnelPoint[]; limits: FunnelLimit[] } {
-  const claims = new Map<number, { claims: number; workmanshipClaims: number }>();
-  for (const f of failures) {
-    const at = claims.get(f.locationId) ?? { claims: 0, workmanshipClaims: 0 };
-    at.claims++;
-    if (f.coverage === 'workmanship') at.workmanshipClaims++;
-    claims.set(f.locationId, at);
-  }
   const exposed = [...byLocation].map(([id, s]) => ({ id, sums: s, unitMonths: unitMonthsOf(s, todayDay) })).filter((l) => l.unitMonths > 0);
   const totalFailures = exposed.reduce((sum, l) => sum + l.sums.failures, 0);
   const networkRate = totalFailures / exposed.reduce((sum, l) => sum + l.unitMonths, 0);

@@ -1,7 +1,6 @@
 import { kaplanMeier, WEIBULL_MIN_FAILURE_TIMES, weibullAgeTrend, type SurvivalObservation } from '@busbar/calc';
 import { DAYS_PER_MONTH, type ReliabilityDetail, type SurvivalPoint } from '@busbar/shared';
 import type { UnitSums } from '../queries/unit-exposure.ts';
-import type { UnitFailure } from '../queries/unit-failures.ts';
 
 /** A failure on the day of install counts as half a day in service (times must be above 0). */
 const SAME_DAY = 0.5;
@@ -13,12 +12,9 @@ export const WEIBULL_MIN_FAILURES_TO_READ = 10;
  * service grouped by install month, censored at their mean age today (the cells keep their install
  * days' sum, not each day, so a month's units share one age; their time in service stays exact).
  */
-export function observationsOf(failures: readonly UnitFailure[], byMonth: readonly UnitSums[], todayDay: number): SurvivalObservation[] {
+export function observationsOf(ages: readonly { days: number; failures: number }[], byMonth: readonly UnitSums[], todayDay: number): SurvivalObservation[] {
   const failedAt = new Map<number, number>();
-  for (const f of failures) {
-    const days = Math.max(SAME_DAY, f.failedDay - f.installedDay);
-    failedAt.set(days, (failedAt.get(days) ?? 0) + 1);
-  }
+  for (const { days, failures } of ages) failedAt.set(Math.max(SAME_DAY, days), (failedAt.get(Math.max(SAME_DAY, days)) ?? 0) + failures);
   const observations: SurvivalObservation[] = [...failedAt].map(([time, count]) => ({ time, failed: true, count }));
   for (const s of byMonth) {
     const working = s.units - s.failures;
