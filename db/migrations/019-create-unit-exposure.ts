@@ -32,7 +32,8 @@ const FAILURE_SOURCE = `select c.id as claim_id, u.build_item_id, u.build_id, u.
   from warranty_claims c join installed_unit_source u on u.build_item_id = c.build_item_id`;
 
 const CELL_KEY = 'catalog_item_id, location_id, installed_month';
-const BAND_KEY = 'catalog_item_id, measure, band, location_id, installed_month';
+// Location second: a shop's or a region's margins of an item read their own rows; the network's come from their own sums.
+const BAND_KEY = 'catalog_item_id, location_id, measure, band, installed_month';
 const COUNTS = ['units', 'installed_day_sum', 'failures', 'failed_installed_day_sum', 'failed_day_sum', 'warranty_failures'];
 const add = (key: string) => `on conflict (${key}) do update set ${COUNTS.map((c) => `${c} = ${c} + excluded.${c}`).join(', ')};`;
 
@@ -50,7 +51,7 @@ const toCells = (sign: 1 | -1, kind: 'units' | 'failures', where: string) => `in
 
 /** Into the margin bands of planned builds: one row per measure (1 drop, 2 load, 3 discharge) and its band. */
 const toBands = (sign: 1 | -1, kind: 'units' | 'failures', where: string) => `insert into unit_exposure_bands (${BAND_KEY}, ${COUNTS.join(', ')})
-  select catalog_item_id, m.measure, case m.measure when 1 then drop_band when 2 then load_band else discharge_band end, location_id,
+  select catalog_item_id, location_id, m.measure, case m.measure when 1 then drop_band when 2 then load_band else discharge_band end,
     substr(installed_on, 1, 7), ${counts(sign, kind)}
   from ${SOURCE[kind]} cross join (select 1 as measure union all select 2 union all select 3) as m
   where (${where}) and drop_band > 0 group by 1, 2, 3, 4, 5 ${add(BAND_KEY)}`;

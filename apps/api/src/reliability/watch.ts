@@ -1,4 +1,4 @@
-import { benjaminiHochberg, excessChance, poissonRateInterval, type RateStratum } from '@busbar/calc';
+import { benjaminiHochberg, excessChance, poissonRateInterval } from '@busbar/calc';
 import { CATEGORY_LABELS, type WatchRow } from '@busbar/shared';
 import type { UnitSums } from '../queries/unit-exposure.ts';
 import { addSums, unitMonthsOf } from './figures.ts';
@@ -60,7 +60,7 @@ export function componentsToWatch(inScope: ItemMonthSums, network: ItemMonthSums
       categoryTotals.set(key, { failures: total.failures + e.failures, unitMonths: total.unitMonths + e.unitMonths });
     }
   }
-  const candidates: WatchRow[] = [];
+  const candidates: Judged[] = [];
   for (const [itemId, quarters] of mine) {
     const item = names.items.get(itemId);
     if (!item) continue;
@@ -72,17 +72,28 @@ export function componentsToWatch(inScope: ItemMonthSums, network: ItemMonthSums
     });
     const judged = strata.filter(({ stratum: s }) => s.exposure > 0 && s.peerExposure > 0 && s.events + s.peerEvents > 0);
     if (judged.length === 0) continue;
-    candidates.push(watchRow(item, null, judged));
-    for (const quarter of judged) candidates.push(watchRow(item, quarter.quarter, [quarter]));
+    candidates.push({ item, quarter: null, ...excessChance(judged.map((j) => j.stratum)) });
+    for (const j of judged) candidates.push({ item, quarter: j.quarter, ...excessChance([j.stratum]) });
   }
-  const ranked = candidates.filter((row) => row.failures > row.expected).sort((a, b) => a.chance - b.chance || b.ratioLower - a.ratioLower);
   const passing = benjaminiHochberg(candidates.map((row) => row.chance), WATCH_FALSE_DISCOVERY);
-  return ranked.slice(0, Math.min(passing, ranked.length)).slice(0, WATCH_LIMIT);
+  return candidates
+    .filter((row) => row.events > row.expected)
+    .sort((a, b) => a.chance - b.chance || b.events / b.expected - a.events / a.expected)
+    .slice(0, Math.min(passing, WATCH_LIMIT))
+    .map(watchRow);
 }
 
-function watchRow(item: CatalogEntry, quarter: string | null, strata: { stratum: RateStratum }[]): WatchRow {
+/** An item, or its units of one install quarter, with its evidence. */
+interface Judged {
+  item: CatalogEntry;
+  quarter: string | null;
+  events: number;
+  expected: number;
+  chance: number;
+}
+
+function watchRow({ item, quarter, events: failures, expected, chance }: Judged): WatchRow {
   const { from, to } = quarter ? monthsOf(quarter) : { from: null, to: null };
-  const { events: failures, expected, chance } = excessChance(strata.map((s) => s.stratum));
   const ratio = failures / expected;
   // The lower exact Poisson limit of the count over the count expected (taken as known).
   const ratioLower = poissonRateInterval(failures, 1).lower / expected;
