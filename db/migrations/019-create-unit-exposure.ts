@@ -69,14 +69,17 @@ const addFailures = (where: string) => `insert into unit_failures (claim_id, bui
   select claim_id, build_item_id, build_id, catalog_item_id, location_id, ${DAY('installed_on')}, ${DAY('failed_on')}, failure_mode, coverage
   from failed_unit_source where ${where};`;
 
+/** Only lines of delivered builds count: the others' triggers skip their statements. */
+const delivered = (buildId: string) => `exists (select 1 from builds b where b.id = ${buildId} and b.status = 'delivered')`;
+
 /** [name, timing and event, sign, which source rows, what they carry] */
 const TRIGGERS: [string, string, 1 | -1, string, 'units' | 'failures' | 'both' | 'bands'][] = [
-  ['unit_exposure_item_insert', 'after insert on build_items', 1, 'build_item_id = new.id', 'units'],
-  ['unit_exposure_item_before_update', 'before update of quantity, catalog_item_id, build_id, created_at on build_items', -1, 'build_item_id = old.id', 'both'],
-  ['unit_exposure_item_after_update', 'after update of quantity, catalog_item_id, build_id, created_at on build_items', 1, 'build_item_id = new.id', 'both'],
-  ['unit_exposure_item_delete', 'before delete on build_items', -1, 'build_item_id = old.id', 'both'],
-  ['unit_exposure_build_before_update', 'before update of status, delivered_at, location_id on builds', -1, 'build_id = old.id', 'both'],
-  ['unit_exposure_build_after_update', 'after update of status, delivered_at, location_id on builds', 1, 'build_id = new.id', 'both'],
+  ['unit_exposure_item_insert', `after insert on build_items when ${delivered('new.build_id')}`, 1, 'build_item_id = new.id', 'units'],
+  ['unit_exposure_item_before_update', `before update of quantity, catalog_item_id, build_id, created_at on build_items when ${delivered('old.build_id')}`, -1, 'build_item_id = old.id', 'both'],
+  ['unit_exposure_item_after_update', `after update of quantity, catalog_item_id, build_id, created_at on build_items when ${delivered('new.build_id')}`, 1, 'build_item_id = new.id', 'both'],
+  ['unit_exposure_item_delete', `before delete on build_items when ${delivered('old.build_id')}`, -1, 'build_item_id = old.id', 'both'],
+  ['unit_exposure_build_before_update', "before update of status, delivered_at, location_id on builds when old.status = 'delivered'", -1, 'build_id = old.id', 'both'],
+  ['unit_exposure_build_after_update', "after update of status, delivered_at, location_id on builds when new.status = 'delivered'", 1, 'build_id = new.id', 'both'],
   ['unit_exposure_margin_before_insert', 'before insert on plan_margins', -1, 'build_id = new.build_id', 'bands'],
   ['unit_exposure_margin_after_insert', 'after insert on plan_margins', 1, 'build_id = new.build_id', 'bands'],
   ['unit_exposure_margin_before_update', 'before update on plan_margins', -1, 'build_id = old.build_id', 'bands'],

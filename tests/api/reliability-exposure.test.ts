@@ -6,6 +6,7 @@ import { sql } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { REFILL_UNIT_EXPOSURE } from '../../db/migrations/019-create-unit-exposure.ts';
 import { demoIds, startHarness, type Harness } from '../support/api-harness.ts';
+import { afterRefill, rolledBack } from '../support/kept-tables.ts';
 import { addCatalogItem, addVendor } from '../support/catalog-fixtures.ts';
 import { addDeliveredUnit } from '../support/claim-fixtures.ts';
 
@@ -116,14 +117,7 @@ async function keptTables(db: Db) {
   return { cells: cells.rows, bands: bands.rows, network: network.rows, bandsNetwork: bandsNetwork.rows, failures: failures.rows };
 }
 
-async function refilled(db: Db) {
-  await sql.raw('savepoint refill').execute(db);
-  for (const statement of REFILL_UNIT_EXPOSURE.split(';').filter((s) => s.trim())) await sql.raw(statement).execute(db);
-  const tables = await keptTables(db);
-  await sql.raw('rollback to refill').execute(db);
-  await sql.raw('release refill').execute(db);
-  return tables;
-}
+const refilled = (db: Db) => afterRefill(db, REFILL_UNIT_EXPOSURE, keptTables);
 
 describe('the kept tables follow every change', () => {
   it('match a refill from scratch after any mix of deliveries, corrections, claims, plans and moves', async () => {
@@ -142,14 +136,10 @@ describe('the kept tables follow every change', () => {
     );
     await fc.assert(
       fc.asyncProperty(fc.array(change, { minLength: 1, maxLength: 12 }), async (changes) => {
-        await sql.raw('savepoint mix').execute(h.db);
-        try {
+        await rolledBack(h.db, async () => {
           for (const c of changes) await apply(h.db, c);
           expect(await keptTables(h.db)).toEqual(await refilled(h.db));
-        } finally {
-          await sql.raw('rollback to mix').execute(h.db);
-          await sql.raw('release mix').execute(h.db);
-        }
+        });
       }),
       { seed: 10_019, numRuns: 60 },
     );

@@ -6,6 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { MIX_CATEGORIES, REFILL_ROLLUPS } from '../../db/migrations/021-create-rollups.ts';
 import { refillRollups } from '../../apps/api/src/queries/rollups-refill.ts';
 import { startHarness, type Harness } from '../support/api-harness.ts';
+import { afterRefill, rolledBack } from '../support/kept-tables.ts';
 import { addCustomerWithVehicle, addParts } from '../support/build-fixtures.ts';
 
 let h: Harness;
@@ -54,14 +55,7 @@ async function keptTables(db: Db) {
   return rows.rows.filter((row) => Object.entries(row).some(([column, value]) => !key.includes(column) && value !== 0));
 }
 
-async function refilled(db: Db) {
-  await sql.raw('savepoint refill').execute(db);
-  for (const statement of REFILL_ROLLUPS.split(';').filter((s) => s.trim())) await sql.raw(statement).execute(db);
-  const tables = await keptTables(db);
-  await sql.raw('rollback to refill').execute(db);
-  await sql.raw('release refill').execute(db);
-  return tables;
-}
+const refilled = (db: Db) => afterRefill(db, REFILL_ROLLUPS, keptTables);
 
 type Change =
   | { kind: 'create'; like: number; bookedFor: string; status: BuildStatus }
@@ -181,14 +175,10 @@ describe('the roll-up table follows every change', () => {
     expect(before.length).toBeGreaterThan(100);
     await fc.assert(
       fc.asyncProperty(fc.array(change, { minLength: 1, maxLength: 15 }), async (changes) => {
-        await sql.raw('savepoint mix').execute(h.db);
-        try {
+        await rolledBack(h.db, async () => {
           for (const c of changes) await apply(h.db, c);
           expect(await keptTables(h.db)).toEqual(await refilled(h.db));
-        } finally {
-          await sql.raw('rollback to mix').execute(h.db);
-          await sql.raw('release mix').execute(h.db);
-        }
+        });
       }),
       { seed: 10_021, numRuns: 120 },
     );
