@@ -65,7 +65,8 @@ function change(sign: 1 | -1, where: string, what: 'units' | 'failures' | 'both'
 }
 
 /** Each failure with its unit's install day, for survival curves and claim shares without visiting builds. */
-const addFailures = (where: string) => `insert into unit_failures (claim_id, build_item_id, build_id, catalog_item_id, location_id, installed_day, failed_day, failure_mode, coverage)
+// Or replace: an update of a claim's day and its mode at once runs both kinds of its triggers, in no set order.
+const addFailures = (where: string) => `insert or replace into unit_failures (claim_id, build_item_id, build_id, catalog_item_id, location_id, installed_day, failed_day, failure_mode, coverage)
   select claim_id, build_item_id, build_id, catalog_item_id, location_id, ${DAY('installed_on')}, ${DAY('failed_on')}, failure_mode, coverage
   from failed_unit_source where ${where};`;
 
@@ -94,7 +95,7 @@ const TRIGGERS: [string, string, 1 | -1, string, 'units' | 'failures' | 'both' |
 
 /** A claim's mode and coverage change only its row of `unit_failures`. */
 const FAILURE_TRIGGERS: [string, string, string][] = [
-  ['unit_failures_claim_update', 'after update of failure_mode, coverage on warranty_claims', `delete from unit_failures where claim_id = new.id; ${addFailures('claim_id = new.id')}`],
+  ['unit_failures_claim_update', 'after update of failure_mode, coverage on warranty_claims', addFailures('claim_id = new.id')],
 ];
 
 /**

@@ -132,7 +132,7 @@ describe('the kept tables follow every change', () => {
       fc.record({ kind: fc.constant('failedOn' as const), id: pick(claims.map((c) => c.id)), at: day }),
       fc.record({ kind: fc.constant('plan' as const), buildId: pick(builds), band: fc.integer({ min: 0, max: 4 }) }),
       fc.record({ kind: fc.constant('move' as const), buildId: pick(builds), code: fc.constantFrom('DEN', 'BOI', 'AUS') }),
-      fc.record({ kind: fc.constant('coverage' as const), id: pick(claims.map((c) => c.id)), workmanship: fc.boolean() }),
+      fc.record({ kind: fc.constant('coverage' as const), id: pick(claims.map((c) => c.id)), workmanship: fc.boolean(), at: fc.option(day) }),
     );
     await fc.assert(
       fc.asyncProperty(fc.array(change, { minLength: 1, maxLength: 12 }), async (changes) => {
@@ -152,7 +152,7 @@ type Change =
   | { kind: 'failedOn'; id: number; at: string }
   | { kind: 'plan'; buildId: number; band: number }
   | { kind: 'move'; buildId: number; code: string }
-  | { kind: 'coverage'; id: number; workmanship: boolean };
+  | { kind: 'coverage'; id: number; workmanship: boolean; at: string | null };
 
 async function apply(db: Db, c: Change) {
   if (c.kind === 'status') {
@@ -160,7 +160,11 @@ async function apply(db: Db, c: Change) {
     await db.updateTable('builds').set(values).where('id', '=', c.buildId).execute();
   } else if (c.kind === 'quantity') await db.updateTable('buildItems').set({ quantity: c.quantity }).where('id', '=', c.id).execute();
   else if (c.kind === 'failedOn') await db.updateTable('warrantyClaims').set({ failedOn: c.at.slice(0, 10) }).where('id', '=', c.id).execute();
-  else if (c.kind === 'coverage') await db.updateTable('warrantyClaims').set({ coverage: c.workmanship ? 'workmanship' : 'vendor_defect' }).where('id', '=', c.id).execute();
+  else if (c.kind === 'coverage') {
+    // Who pays, and with it sometimes the day it failed, in one update as the claim form saves them.
+    const coverage = c.workmanship ? ('workmanship' as const) : ('vendor_defect' as const);
+    await db.updateTable('warrantyClaims').set(c.at ? { coverage, failedOn: c.at.slice(0, 10) } : { coverage }).where('id', '=', c.id).execute();
+  }
   else if (c.kind === 'move') await db.updateTable('builds').set({ locationId: ids.location(c.code) }).where('id', '=', c.buildId).execute();
   else if (c.band === 0) await db.deleteFrom('planMargins').where('buildId', '=', c.buildId).execute();
   else {
