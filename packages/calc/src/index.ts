@@ -68,7 +68,7 @@ export { awgAreaMm2, awgCircularMils, circularMilsToMm2, feetToMeters, metersToF
 export { funnelLimits, funnelSide } from './funnel.ts';
 export { kaplanMeier, type SurvivalRow } from './kaplan-meier.ts';
 export { poissonRateInterval, type RateInterval } from './poisson-rate.ts';
-export { binomialUpperTail, chiSquareQuantile, poissonCdf, poissonQuantile, poissonUpperTail, standardNormalQuantile } from './quantiles.ts';
+export { binomialUpperTail, chiSquareQuantile, poissonCdf, poissonQuantile, standardNormalQuantile } from './quantiles.ts';
 export type { SurvivalObservation } from './survival-data.ts';
 export { WEIBULL_MIN_FAILURE_TIMES, weibullFit, type WeibullFit } from './weibull-fit.ts';
 export { wilsonInterval, type ProportionInterval, type WilsonOptions } from './wilson.ts';

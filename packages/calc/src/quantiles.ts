@@ -27,11 +27,6 @@ export function poissonCdf(count: number, mean: number): number {
   return poissonCdfOf(count, mean);
 }
 
-/** P(X ≥ count) for a Poisson mean: the chance of at least that many events by chance alone. */
-export function poissonUpperTail(count: number, mean: number): number {
-  return count <= 0 ? 1 : 1 - poissonCdfOf(count - 1, mean);
-}
-
 /** P(X ≥ count) for a binomial of `trials` with success probability `p` (@stdlib/stats-base-dists-binomial-cdf). */
 export function binomialUpperTail(count: number, trials: number, p: number): number {
   return count <= 0 ? 1 : 1 - binomialCdfOf(count - 1, trials, p);
