@@ -10,7 +10,7 @@
  * - Burlington (BTV) opened about 200 days before the clock and is still the smallest shop.
  * Warranty claims follow the delivered units (failure rates in claims-rates.ts, invented):
  * - Austin (AUS) has clearly more workmanship claims: loose or burnt connections within months of
- *   the install, about eight times the network's rate; over half of its claims are workmanship.
+ *   the install, about twelve times the network's rate; over half of its claims are workmanship.
  * - Tidewell Relay 40 A chargers (TDW-DC40) made 12 to 10 months before the clock are a bad batch:
  *   serial numbers TW<yymm>- of those three months (TW2506- to TW2508- with the clock in June
  *   2026) fail several times as often as the item's other serials.
