@@ -1,25 +1,12 @@
-import type { PlanCircuit, PlanInput } from '@busbar/calc';
+import type { PlanInput } from '@busbar/calc';
 import type { BuildDetail } from '@busbar/shared';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { demoIds, startHarness, type Agent, type Harness } from '../support/api-harness.ts';
 import { addParts, createBuild, moveThrough } from '../support/build-fixtures.ts';
 import { SIGN_INS } from '../support/staff-fixtures.ts';
+import { feeder, feederPlan } from '../support/margin-plans.ts';
 
-// A 20 A feeder run 3 m each way with 105 °C insulation on a 100 Ah LiFePO4 bank that 40 Wh of
-// lights a day draw about 7 % down over two parked days (discharge band 1). 8 AWG drops 2.55 %, 85 %
-// of the 3 % allowed (drop band 3), and carries 80 A (25 %, load band 1); 10 AWG drops 4.07 %, over
-// the limit (drop band 4), and carries 60 A (33 %, load band 1).
-const feeder: PlanCircuit = { from: 'House battery', to: 'Fuse block', oneWayLengthM: 3, currentA: 20, critical: true, insulationC: 105, size: { awg: '8' } };
-const roomy: PlanInput = {
-  systemV: 12,
-  gauge: 'awg',
-  loads: [{ name: 'LED lights', watts: 10, hoursPerDay: 4, activeHours: [19, 20, 21, 22] }],
-  bank: { chemistry: 'lifepo4', capacityAh: 100 },
-  starterBattery: { capacityAh: 70 },
-  dcdcCharger: { outputA: 25 },
-  trip: { daysParked: 2, daysDriving: 1, driveHoursPerDay: 3 },
-  circuits: [feeder],
-};
+const roomy = feederPlan;
 const tight: PlanInput = { ...roomy, circuits: [{ ...feeder, size: { awg: '10' } }] };
 const noCircuits: PlanInput = { ...roomy, circuits: [] };
 

@@ -1,24 +1,11 @@
 import { designMargins, evaluatePlan, MARGIN_BAND_BOUNDS, marginBand, type Awg, type PlanCircuit, type PlanInput } from '@busbar/calc';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
+import { feeder, feederPlan } from '../support/margin-plans.ts';
 
 const runs = { seed: 4_217, numRuns: 120 };
 
-// A 20 A feeder run 3 m each way (6 m round trip) with 105 °C insulation: 8 AWG (0.778 Ω/kft at
-// 75 °C) drops 20 × 6 × 0.778 / 304.8 = 0.306 V, 2.55 % of 12 V, 85 % of the 3 % a critical circuit
-// may drop; 10 AWG (1.24 Ω/kft) drops 4.07 %, 136 % of it. 8 AWG carries 80 A at 105 °C: 25 % of it.
-const feeder: PlanCircuit = { from: 'House battery', to: 'Fuse block', oneWayLengthM: 3, currentA: 20, critical: true, insulationC: 105, size: { awg: '8' } };
-// 40 Wh a day of lights over two parked days on a 100 Ah LiFePO4 bank: about 7 Ah, 7 % of it.
-const plan: PlanInput = {
-  systemV: 12,
-  gauge: 'awg',
-  loads: [{ name: 'LED lights', watts: 10, hoursPerDay: 4, activeHours: [19, 20, 21, 22] }],
-  bank: { chemistry: 'lifepo4', capacityAh: 100 },
-  starterBattery: { capacityAh: 70 },
-  dcdcCharger: { outputA: 25 },
-  trip: { daysParked: 2, daysDriving: 1, driveHoursPerDay: 3 },
-  circuits: [feeder],
-};
+const plan = feederPlan;
 const margins = (input: PlanInput) => designMargins(evaluatePlan(input));
 const withCircuit = (patch: Partial<PlanCircuit>, base: PlanInput = plan): PlanInput => ({ ...base, circuits: [{ ...feeder, ...patch }] });
 
