@@ -3,7 +3,7 @@ import { openDatabase, type Db } from '@busbar/db';
 import type { RollupQuery } from '@busbar/shared';
 import { sql } from 'kysely';
 import { loadViewer } from '../apps/api/src/access/viewer.ts';
-import { askedPeriods, rollupReport } from '../apps/api/src/queries/rollups-report.ts';
+import { askedPeriods, moneyScopes, rollupReport } from '../apps/api/src/queries/rollups-report.ts';
 import { latency, ms, type Latency } from './stats.ts';
 
 const isoDate = (d: Date) => d.toISOString().slice(0, 10);
@@ -72,7 +72,7 @@ export async function compareRollups(dir: string, samples: number): Promise<Roll
   try {
     const owner = await db.selectFrom('users').select('id').where('email', '=', 'owner@demo.busbar.test').executeTakeFirstOrThrow();
     const viewer = (await loadViewer(db, owner.id))!;
-    const summary = await timed(samples, () => rollupReport(db, viewer, YEAR_BY_MONTH, 'all'));
+    const summary = await timed(samples, () => rollupReport(db, YEAR_BY_MONTH, 'all', moneyScopes(viewer)));
     const base = await timed(Math.min(samples, BASE_SAMPLES), () => fromBaseTables(db, YEAR_BY_MONTH));
     return { summary, base };
   } finally {

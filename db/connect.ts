@@ -7,13 +7,17 @@ import type { Database } from './schema/index.ts';
 
 export type Db = Kysely<Database>;
 
-/** Opens (creating if needed) the SQLite file with WAL, foreign keys and a busy timeout. */
-export function openDatabase(file: string): Db {
+/**
+ * Opens (creating if needed) the SQLite file with WAL, foreign keys and a busy timeout. A
+ * connection for reading only (`queryOnly`) refuses every write.
+ */
+export function openDatabase(file: string, { queryOnly = false } = {}): Db {
   if (file !== ':memory:') mkdirSync(dirname(file), { recursive: true });
   const sqlite = new SQLite(file);
   sqlite.pragma('journal_mode = WAL');
   sqlite.pragma('foreign_keys = ON');
   sqlite.pragma('busy_timeout = 5000');
+  if (queryOnly) sqlite.pragma('query_only = ON');
   return new Kysely<Database>({ dialect: new ImmediateSqliteDialect({ database: reusingStatements(sqlite) }), plugins: [new CamelCasePlugin()] });
 }
 

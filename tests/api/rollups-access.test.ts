@@ -2,7 +2,7 @@ import { isoDay, localDay } from '@busbar/calc';
 import type { Rollups } from '@busbar/shared';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { loadViewer } from '../../apps/api/src/access/viewer.ts';
-import { checkAnswerSize, rollupReport } from '../../apps/api/src/queries/rollups-report.ts';
+import { checkAnswerSize, moneyScopes, rollupReport } from '../../apps/api/src/queries/rollups-report.ts';
 import { demoIds, startHarness, type Harness } from '../support/api-harness.ts';
 
 let h: Harness;
@@ -79,7 +79,7 @@ describe('who reads the roll-ups', () => {
   it('leaves out the money a person may not read where the figures come from', async () => {
     const query = { from: '2026-01-01', to: '2026-03-31', grain: 'month' as const };
     const scope = [ids.location('DEN')];
-    const asTech = await rollupReport(h.db, (await loadViewer(h.db, ids.user('tech@demo.busbar.test')))!, query, scope);
+    const asTech = await rollupReport(h.db, query, scope, moneyScopes((await loadViewer(h.db, ids.user('tech@demo.busbar.test')))!));
     // A technician reads prices but not costs; a warranty clerk neither.
     expect(asTech.rows.length).toBeGreaterThan(0);
     for (const row of [...asTech.rows, ...asTech.network]) {
@@ -87,12 +87,12 @@ describe('who reads the roll-ups', () => {
       expect(row).not.toHaveProperty('partsCostCents');
       expect(row).not.toHaveProperty('grossMarginCents');
     }
-    const asClerk = await rollupReport(h.db, (await loadViewer(h.db, ids.user('warranty@demo.busbar.test')))!, query, scope);
+    const asClerk = await rollupReport(h.db, query, scope, moneyScopes((await loadViewer(h.db, ids.user('warranty@demo.busbar.test')))!));
     for (const row of [...asClerk.rows, ...asClerk.network]) {
       for (const field of MONEY) expect(row).not.toHaveProperty(field);
       expect(row.buildsDelivered).toBeGreaterThanOrEqual(0);
     }
-    const asLead = await rollupReport(h.db, (await loadViewer(h.db, ids.user('lead@demo.busbar.test')))!, query, scope);
+    const asLead = await rollupReport(h.db, query, scope, moneyScopes((await loadViewer(h.db, ids.user('lead@demo.busbar.test')))!));
     for (const row of asLead.rows) expect(row.partsCostCents).toEqual(expect.any(Number));
   });
 });

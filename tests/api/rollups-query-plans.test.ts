@@ -2,7 +2,7 @@ import type { Db } from '@busbar/db';
 import { CompiledQuery, sql } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { loadViewer } from '../../apps/api/src/access/viewer.ts';
-import { askedPeriods, rollupReport } from '../../apps/api/src/queries/rollups-report.ts';
+import { askedPeriods, moneyScopes, rollupReport } from '../../apps/api/src/queries/rollups-report.ts';
 import { locationSumsQuery } from '../../apps/api/src/queries/rollups.ts';
 import { demoIds, startHarness, type Harness } from '../support/api-harness.ts';
 import { plansOf } from '../support/query-plans.ts';
@@ -26,7 +26,7 @@ const YEAR_BY_MONTH = { from: '2025-07-01', to: '2026-06-30', grain: 'month' as 
 /** The plans of every statement the report sends; the locations' rows are read without the camelCase plugin, so their statement is compiled here. */
 async function planText(email: string, scope: 'all' | number[]) {
   const viewer = (await loadViewer(h.db, ids.user(email)))!;
-  const plans = await plansOf(h.db, (db: Db) => rollupReport(db, viewer, YEAR_BY_MONTH, scope));
+  const plans = await plansOf(h.db, (db: Db) => rollupReport(db, YEAR_BY_MONTH, scope, moneyScopes(viewer)));
   const keys = [...new Set(askedPeriods(YEAR_BY_MONTH).flatMap((p) => [p.period, p.previous, p.lastYear]))];
   const rows = locationSumsQuery(YEAR_BY_MONTH.grain, keys, scope).compile(h.db.withoutPlugins());
   const own = await h.db.executeQuery<{ detail: string }>(CompiledQuery.raw(`explain query plan ${rows.sql}`, [...rows.parameters]));

@@ -29,17 +29,18 @@ export function checkAnswerSize(locations: number, periods: number): void {
  * Roll-ups of the locations in `scope` (never empty), of each region wholly in it, and of the whole
  * network, for the asked periods and the ones they are compared with.
  */
-export async function rollupReport(db: Db, viewer: Viewer, query: RollupQuery, scope: LocationScope): Promise<Rollups> {
+export async function rollupReport(db: Db, query: RollupQuery, scope: LocationScope, money: MoneyScopes): Promise<Rollups> {
   const { grain } = query;
   const periods = askedPeriods(query);
   const keys = [...new Set(periods.flatMap((p) => [p.period, p.previous, p.lastYear]))];
-  checkAnswerSize(scope === 'all' ? viewer.locationIds.length : scope.length, keys.length);
-  const [rows, locations] = await Promise.all([locationSums(db, grain, keys, scope), locationRegions(db)]);
+  const locations = await locationRegions(db);
+  checkAnswerSize(scope === 'all' ? locations.length : scope.length, keys.length);
+  const rows = await locationSums(db, grain, keys, scope);
   const kept = rows.filter((row) => !isEmpty(row));
   // Someone who sees every location has the network's sums in their rows already.
   const network = scope === 'all' ? sumsByPeriod(kept) : (await networkSums(db, grain, keys)).map((row) => ({ period: row.period, sums: numbers(row) }));
 
-  const reads = moneyReads(viewer);
+  const reads = moneyReads(money);
   const inScope = scope === 'all' ? null : new Set(scope);
   const regionOf = new Map(locations.map((l) => [l.id, l.regionId]));
   const whole = new Set(locations.map((l) => l.regionId).filter((r) => locations.every((l) => l.regionId !== r || !inScope || inScope.has(l.id))));
@@ -73,10 +74,18 @@ function sumsByPeriod(rows: (RollupSums & { period: string })[]) {
   return [...periods].map(([period, sums]) => ({ period, sums }));
 }
 
+/** Where a person reads prices and where parts costs, by the role rules. */
+export interface MoneyScopes {
+  prices: LocationScope;
+  costs: LocationScope;
+}
+
+export function moneyScopes(viewer: Viewer): MoneyScopes {
+  return { prices: locationScope(viewer, 'read', 'Build', 'totalCents'), costs: locationScope(viewer, 'read', 'Build', 'partsCostCents') };
+}
+
 /** Money a person reads over some locations: only what the role rules let them read at every one of them. */
-function moneyReads(viewer: Viewer): (locationIds: number[]) => MoneyReads {
-  const prices = locationScope(viewer, 'read', 'Build', 'totalCents');
-  const costs = locationScope(viewer, 'read', 'Build', 'partsCostCents');
+function moneyReads({ prices, costs }: MoneyScopes): (locationIds: number[]) => MoneyReads {
   const everywhere = (scope: LocationScope, ids: number[]) => scope === 'all' || ids.every((id) => scope.includes(id));
   return (ids) => ({ prices: everywhere(prices, ids), costs: everywhere(costs, ids) });
 }

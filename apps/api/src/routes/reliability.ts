@@ -8,15 +8,14 @@ import type { AppContext } from '../context.ts';
 import { forbidden, notFound } from '../errors.ts';
 import { viewerOf } from '../middleware/session.ts';
 import { validate } from '../middleware/validate.ts';
-import { reliabilityDetail } from '../reliability/detail.ts';
 import type { NamedLocation } from '../reliability/funnel.ts';
-import { reliabilityList } from '../reliability/list.ts';
+import { readThread } from '../threads/read-thread.ts';
 
 /**
  * Component reliability in the person's locations (a lead's shop, a regional manager's region, or
  * the network), each compared with the whole network without naming shops they may not see.
  */
-export function reliabilityRouter({ db, now }: AppContext): Router {
+export function reliabilityRouter({ db, config, now }: AppContext): Router {
   const router = Router();
   const clock = () => {
     const todayDay = Math.floor(now().getTime() / DAY_MS);
@@ -27,7 +26,7 @@ export function reliabilityRouter({ db, now }: AppContext): Router {
     '/',
     validate({ query: reliabilityQuery }, async ({ query }, req, res) => {
       const { today, todayDay } = clock();
-      res.json(await reliabilityList(db, chosenLocations(viewerOf(req), query.locationIds), query, today, todayDay));
+      res.json(await readThread.run('reliabilityListOf', config.databaseFile, chosenLocations(viewerOf(req), query.locationIds), query, today, todayDay));
     }),
   );
 
@@ -37,7 +36,8 @@ export function reliabilityRouter({ db, now }: AppContext): Router {
       const viewer = viewerOf(req);
       const selected = chosenLocations(viewer, query.locationIds);
       const { today, todayDay } = clock();
-      res.json(await reliabilityDetail(db, params, selected, await namedLocations(db, locationScope(viewer, 'read', 'Reliability')), query, today, todayDay));
+      const named = await namedLocations(db, locationScope(viewer, 'read', 'Reliability'));
+      res.json(await readThread.run('reliabilityDetailOf', config.databaseFile, params, selected, named, query, today, todayDay));
     }),
   );
   return router;

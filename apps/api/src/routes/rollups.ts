@@ -5,14 +5,16 @@ import type { AppContext } from '../context.ts';
 import { forbidden } from '../errors.ts';
 import { viewerOf } from '../middleware/session.ts';
 import { validate } from '../middleware/validate.ts';
-import { rollupReport } from '../queries/rollups-report.ts';
+import { moneyScopes } from '../queries/rollups-report.ts';
+import { readThread } from '../threads/read-thread.ts';
 
 /**
  * Roll-ups of the person's locations by day, week, month, quarter or year, each period beside the
  * one before and the same one a year before, with the whole network's totals. A lead receives their
  * shop and the network, no other shop; people who read no reports (technicians, warranty clerks) 403.
+ * Summed on the read thread.
  */
-export function rollupsRouter({ db }: AppContext): Router {
+export function rollupsRouter({ config }: AppContext): Router {
   const router = Router();
 
   router.get(
@@ -21,7 +23,7 @@ export function rollupsRouter({ db }: AppContext): Router {
       const viewer = viewerOf(req);
       const scope = locationScope(viewer, 'read', 'Report');
       if (scope !== 'all' && scope.length === 0) throw forbidden('You cannot read the figures of any location');
-      res.json(await rollupReport(db, viewer, query, scope));
+      res.json(await readThread.run('rollupReportOf', config.databaseFile, query, scope, moneyScopes(viewer)));
     }),
   );
 
