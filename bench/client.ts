@@ -15,6 +15,8 @@ export interface Person {
   baseUrl: string;
   cookie: string;
   csrf: string;
+  /** Connections to use instead of the shared keep-alive pool (one per request, to reach every app process). */
+  agent?: Agent;
 }
 
 /** One request; resolves with the status, the time to the last byte and the body. Network errors answer status 0. */
@@ -26,7 +28,7 @@ export function call(person: Pick<Person, 'baseUrl'> & Partial<Person>, method: 
   if (person.cookie) headers['Cookie'] = person.cookie;
   if (method !== 'GET') Object.assign(headers, { 'X-CSRF-Token': person.csrf ?? '', 'Content-Type': 'application/json' });
   return new Promise((resolve) => {
-    const req = request(`${person.baseUrl}${path}`, { method, agent, headers }, (res) => {
+    const req = request(`${person.baseUrl}${path}`, { method, agent: person.agent ?? agent, headers }, (res) => {
       const chunks: Buffer[] = [];
       res.on('data', (c: Buffer) => chunks.push(c));
       res.on('end', () => {
@@ -56,8 +58,8 @@ function mergeCookies(current: string, set: string[]): string {
 }
 
 /** Signs a demo person in and answers their session cookie and forgery-protection token. */
-export async function signIn(baseUrl: string, email: string, password: string): Promise<Person> {
-  const person: Person = { baseUrl, cookie: '', csrf: '' };
+export async function signIn(baseUrl: string, email: string, password: string, connections?: Agent): Promise<Person> {
+  const person: Person = { baseUrl, cookie: '', csrf: '', agent: connections };
   await call(person, 'GET', '/api/health');
   const token = /busbar\.csrf=([^;]+)/.exec(person.cookie)?.[1];
   if (!token) throw new Error('no forgery-protection cookie from /api/health');

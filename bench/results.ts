@@ -3,6 +3,7 @@ import { cpus, loadavg, totalmem } from 'node:os';
 import type { ContentionFigures } from './contention.ts';
 import type { LoadFigures } from './load.ts';
 import type { DataSize } from './network-data.ts';
+import type { PeakMemory } from './server.ts';
 import { SCREENS, type ScreenFigure } from './screens.ts';
 import { ms } from './stats.ts';
 
@@ -16,7 +17,7 @@ export interface SizeRun {
   screens: Record<Who, Map<string, ScreenFigure>>;
   load: LoadFigures;
   contention: ContentionFigures;
-  peakRssMiB: number;
+  memory: PeakMemory;
 }
 
 const cell = (figure: ScreenFigure | undefined) =>
@@ -37,7 +38,7 @@ const sizeLine = ({ size }: SizeRun) =>
   (size.generatedSeconds === null ? '' : ` (generated in ${Math.round(size.generatedSeconds)} s)`);
 
 const otherRows = (run: SizeRun) => [
-  `| ${run.size.label} | ${run.load.perSecond.toFixed(0)} req/s, ${run.load.errors} errors of ${run.load.requests} (${run.load.writes} writes), p95 ${ms(run.load.latency.p95)} ms | ${ms(run.contention.leadDetail.p95)} ms (p50 ${ms(run.contention.leadDetail.p50)}, ${run.contention.leadDetail.count} requests; the lead's saves meanwhile p95 ${ms(run.contention.leadWrites.p95)} ms, max ${ms(run.contention.leadWrites.max)} ms of ${run.contention.leadWrites.count}; import of ${run.contention.importRows} rows answered ${run.contention.importStatus} in ${ms(run.contention.importMs)} ms, ${run.contention.ownerRequests} owner list requests meanwhile) | ${run.peakRssMiB.toFixed(0)} MiB |`,
+  `| ${run.size.label} | ${run.load.perSecond.toFixed(0)} req/s, ${run.load.errors} errors of ${run.load.requests} (${run.load.writes} writes), p95 ${ms(run.load.latency.p95)} ms | ${ms(run.contention.leadDetail.p95)} ms (p50 ${ms(run.contention.leadDetail.p50)}, ${run.contention.leadDetail.count} requests; the lead's saves meanwhile p95 ${ms(run.contention.leadWrites.p95)} ms, max ${ms(run.contention.leadWrites.max)} ms of ${run.contention.leadWrites.count}; import of ${run.contention.importRows} rows answered ${run.contention.importStatus} in ${ms(run.contention.importMs)} ms, ${run.contention.ownerRequests} owner list requests meanwhile) | ${run.memory.largestMiB.toFixed(0)} MiB (${run.memory.processes} processes: ${run.memory.totalMiB.toFixed(0)} MiB) |`,
 ];
 
 /** The figures as Markdown, with the machine and the date they were taken on. */
@@ -55,7 +56,7 @@ export function report(demo: SizeRun, network: SizeRun, samples: number, loadAtS
     `Each screen's API request through HTTP with a signed-in person, after 5 warm-up requests, ${samples} timed requests one after another (ms to the last byte, brotli as a browser asks). A regional manager and a lead read no audit log: (403).`,
     '',
     ...PEOPLE.flatMap((who) => [...screenTable(demo, network, who), '']),
-    `| data | ${demo.load.connections} connections, reads and writes, ${demo.load.seconds.toFixed(0)} s | a lead's build detail p95 while the owner imports and reads big lists, and the lead's saves | peak RSS of the app |`,
+    `| data | ${demo.load.connections} connections, reads and writes, ${demo.load.seconds.toFixed(0)} s | a lead's build detail p95 while the owner imports and reads big lists, and the lead's saves | peak RSS of the largest app process (of all together) |`,
     '|---|---|---|---|',
     ...otherRows(demo),
     ...otherRows(network),

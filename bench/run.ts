@@ -38,7 +38,7 @@ async function measure(dir: string, label: string, generatedSeconds: number | nu
     const contention = await detailDuringOwnerWork(owner, lead, shop, 2000);
     log(`${label}: roll-ups from the summary tables and from the base tables`);
     const rollups = await compareRollups(dir, options.samples);
-    return { size, screens, load, contention, peakRssMiB: app.peakRssMiB(), rollups };
+    return { size, screens, load, contention, memory: app.peakMemory(), rollups };
   } finally {
     await app.stop();
   }

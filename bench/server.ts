@@ -1,11 +1,19 @@
 import { spawn, type ChildProcess } from 'node:child_process';
-import { readFileSync } from 'node:fs';
+import { readdirSync, readFileSync } from 'node:fs';
 import { createServer } from 'node:net';
+
+/** Highest resident memory so far (VmHWM) of the largest of the app's processes and of all of them, in MiB. */
+export interface PeakMemory {
+  largestMiB: number;
+  totalMiB: number;
+  processes: number;
+}
 
 export interface RunningApp {
   baseUrl: string;
-  /** Highest resident memory of the app process so far (VmHWM), in MiB. */
-  peakRssMiB(): number;
+  peakMemory(): PeakMemory;
+  /** The ids of the processes that answer requests (the first one's children, when it starts several). */
+  processes(): number[];
   stop(): Promise<void>;
 }
 
@@ -30,11 +38,23 @@ async function waitUntilUp(baseUrl: string, child: ChildProcess, log: () => stri
   throw new Error(`the app did not answer within 5 minutes:\n${log()}`);
 }
 
-/** Starts the real app (apps/api/src/main.ts) as its own process on a free port, on the database in `dataDir`. */
-export async function startApp(dataDir: string): Promise<RunningApp> {
+const peakMiB = (pid: number) => Number(/VmHWM:\s+(\d+) kB/.exec(readFileSync(`/proc/${pid}/status`, 'utf8'))?.[1] ?? 0) / 1024;
+
+/** The app's own processes (it starts one per CPU: see apps/api/src/start/workers.ts). */
+function childrenOf(pid: number): number[] {
+  return readdirSync(`/proc/${pid}/task`).flatMap((task) =>
+    readFileSync(`/proc/${pid}/task/${task}/children`, 'utf8').split(' ').filter(Boolean).map(Number),
+  );
+}
+
+/**
+ * Starts the real app (apps/api/src/main.ts) as its own process on a free port, on the database
+ * in `dataDir`, with `env` added to its environment.
+ */
+export async function startApp(dataDir: string, env: Record<string, string> = {}): Promise<RunningApp> {
   const port = await freePort();
   const child = spawn(process.execPath, ['--import', 'tsx', 'apps/api/src/main.ts'], {
-    env: { ...process.env, PORT: String(port), BUSBAR_DATA_DIR: dataDir, SMTP_CAPTURE_PORT: '0', NODE_ENV: 'production' },
+    env: { ...process.env, PORT: String(port), BUSBAR_DATA_DIR: dataDir, SMTP_CAPTURE_PORT: '0', NODE_ENV: 'production', ...env },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
   let output = '';
@@ -44,9 +64,13 @@ export async function startApp(dataDir: string): Promise<RunningApp> {
   await waitUntilUp(baseUrl, child, () => output);
   return {
     baseUrl,
-    peakRssMiB() {
-      const status = readFileSync(`/proc/${child.pid}/status`, 'utf8');
-      return Number(/VmHWM:\s+(\d+) kB/.exec(status)?.[1] ?? 0) / 1024;
+    processes() {
+      const children = childrenOf(child.pid!);
+      return children.length > 0 ? children : [child.pid!];
+    },
+    peakMemory() {
+      const peaks = [child.pid!, ...childrenOf(child.pid!)].map(peakMiB);
+      return { largestMiB: Math.max(...peaks), totalMiB: peaks.reduce((a, b) => a + b, 0), processes: peaks.length };
     },
     stop: () =>
       new Promise((resolve) => {

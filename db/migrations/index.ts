@@ -20,6 +20,7 @@ import * as addClaimCatalogItems from './018-add-claim-catalog-items.ts';
 import * as createUnitExposure from './019-create-unit-exposure.ts';
 import * as fillPlanMargins from './020-fill-plan-margins.ts';
 import * as createRollups from './021-create-rollups.ts';
+import * as createAccessChanges from './022-create-access-changes.ts';
 
 /** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
 export const migrations: Record<string, Migration> = {
@@ -44,4 +45,5 @@ export const migrations: Record<string, Migration> = {
   '019-create-unit-exposure': createUnitExposure,
   '020-fill-plan-margins': fillPlanMargins,
   '021-create-rollups': createRollups,
+  '022-create-access-changes': createAccessChanges,
 };

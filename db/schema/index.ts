@@ -1,3 +1,4 @@
+import type { AccessChangesTable } from './access-changes.ts';
 import type { AuditLogTable } from './audit-log.ts';
 import type { BuildEventsTable } from './build-events.ts';
 import type { BuildItemsTable } from './build-items.ts';
@@ -49,4 +50,5 @@ export interface Database {
   planMargins: PlanMarginsTable;
   unitFailures: UnitFailuresTable;
   rollupFigures: RollupFiguresTable;
+  accessChanges: AccessChangesTable;
 }

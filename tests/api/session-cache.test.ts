@@ -1,3 +1,5 @@
+import { join } from 'node:path';
+import { openDatabase, type Db } from '@busbar/db';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { createBuild } from '../support/build-fixtures.ts';
 import { demoIds, startHarness, type Agent, type Harness } from '../support/api-harness.ts';
@@ -14,23 +16,53 @@ const storedExpiry = async (email: string) => {
   const row = await h.db.selectFrom('sessions as s').innerJoin('users as u', 'u.id', 's.userId').select('s.expiresAt').where('u.email', '=', email).executeTakeFirstOrThrow();
   return row.expiresAt;
 };
+const generation = async () => (await h.db.selectFrom('accessChanges').select('generation').executeTakeFirstOrThrow()).generation;
+/** A write on a second connection to the same file, as another app process or a script makes it. */
+async function withOtherConnection(write: (db: Db) => Promise<unknown>): Promise<void> {
+  const db = openDatabase(join(h.dataDir, 'busbar.sqlite'));
+  await write(db);
+  await db.destroy();
+}
 const assignmentOf = async (agent: Agent) => (await agent.get('/api/session')).body.assignments as { id: number; role: string; locationCode: string }[];
 
 describe('abilities kept per signed-in person', () => {
-  it('serves the person from the cache until their access changes, then at once from the database', async () => {
+  it('keeps the person while no one’s access changes, and shows a change written by any connection at the next request', async () => {
+    const ids = await demoIds(h.db);
     const lead = await h.signedIn(SIGN_INS.lead2);
     expect((await lead.get('/api/session')).body.person.name).toBe('Rosalind Achebe');
-    // Written around the app, as no route does: the kept person does not see it yet.
-    await h.db.updateTable('users').set({ name: 'Rosalind A. Achebe' }).where('email', '=', SIGN_INS.lead2).execute();
-    expect((await lead.get('/api/session')).body.person.name).toBe('Rosalind Achebe');
+    // Everyday work and a password made again change no one's access: kept abilities stay valid.
+    const before = await generation();
+    expect((await lead.post('/api/customers').send({ locationId: ids.location('AVL'), name: 'Kept Cache', email: 'kept.cache@example.test' })).status).toBe(201);
+    await h.db.updateTable('users').set({ passwordHash: 'made-again' }).where('email', '=', SIGN_INS.tech).execute();
+    expect(await generation()).toBe(before);
+
+    // Written around the app, on a connection of its own, as another app process would.
+    await withOtherConnection((db) => db.updateTable('users').set({ name: 'Rosalind A. Achebe' }).where('email', '=', SIGN_INS.lead2).execute());
+    expect((await lead.get('/api/session')).body.person.name).toBe('Rosalind A. Achebe');
 
     const owner = await h.signedIn(SIGN_INS.owner);
-    const ids = await demoIds(h.db);
     const granted = await owner.post(`/api/staff/${ids.user(SIGN_INS.lead2)}/roles`).send({ role: 'technician', locationId: ids.location('DEN') });
     expect(granted.status).toBe(201);
     const session = (await lead.get('/api/session')).body;
-    expect(session.person.name).toBe('Rosalind A. Achebe');
     expect(session.assignments.map((a: { role: string; locationCode: string }) => `${a.role}@${a.locationCode}`).sort()).toEqual(['location_lead@AVL', 'technician@DEN']);
+  });
+
+  it('takes away a role removed on another connection, and gives a regional manager a location added there, at the next request', async () => {
+    const ids = await demoIds(h.db);
+    const lead = await h.signedIn(SIGN_INS.lead2);
+    expect((await lead.get(`/api/locations/${ids.location('AVL')}`)).status).toBe(200);
+    await withOtherConnection((db) => db.deleteFrom('roleAssignments').where('userId', '=', ids.user(SIGN_INS.lead2)).execute());
+    expect(await assignmentOf(lead)).toEqual([]);
+    expect((await lead.get(`/api/locations/${ids.location('AVL')}`)).status).toBe(404);
+
+    const regional = await h.signedIn(SIGN_INS.regional);
+    const seen = async () => ((await regional.get('/api/locations')).body as { code: string }[]).map((l) => l.code);
+    const { regionId } = await h.db.selectFrom('locations').select('regionId').where('id', '=', ids.location('DEN')).executeTakeFirstOrThrow();
+    expect(await seen()).not.toContain('NEW');
+    await withOtherConnection((db) =>
+      db.insertInto('locations').values({ regionId, code: 'NEW', name: 'Newtown', timeZone: 'America/Denver', laborRateCents: 12000, royaltyBasisPoints: 600 }).execute(),
+    );
+    expect(await seen()).toContain('NEW');
   });
 
   it('takes a removed role away from the person on their very next request', async () => {

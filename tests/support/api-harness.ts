@@ -64,6 +64,7 @@ export async function startHarness(
     inviteTtlHours: 72,
     signInLimit: { windowMs: 15 * 60 * 1000, perAccount: 10, perAddress: 1000 },
     webDist: null,
+    processes: 1,
     ...overrides,
   };
   const app = createApp({ db, config, mailer, now });

@@ -1,5 +1,6 @@
 import { randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { availableParallelism } from 'node:os';
 import { join, resolve } from 'node:path';
 import { z } from 'zod';
 
@@ -13,6 +14,7 @@ const envSchema = z.object({
   MAIL_FROM: z.string().min(3).default('Busbar <no-reply@busbar.test>'),
   TRUST_PROXY: z.enum(['true', 'false']).default('false'),
   DEMO_DATA: z.enum(['true', 'false']).default('true'),
+  BUSBAR_PROCESSES: z.coerce.number().int().min(1).max(64).optional(),
 });
 
 export interface Config {
@@ -33,6 +35,8 @@ export interface Config {
   signInLimit: { windowMs: number; perAccount: number; perAddress: number };
   /** Built web app to serve, or null to serve only the API. */
   webDist: string | null;
+  /** App processes answering requests (one per CPU, at most four, unless set). */
+  processes: number;
 }
 
 /** A secret kept in the data folder, so sessions outlive a restart without any set-up. */
@@ -67,5 +71,6 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     inviteTtlHours: 72,
     signInLimit: { windowMs: 15 * 60 * 1000, perAccount: 10, perAddress: 100 },
     webDist: existsSync(join(webDist, 'index.html')) ? webDist : null,
+    processes: e.BUSBAR_PROCESSES ?? Math.min(availableParallelism(), 4),
   };
 }

@@ -1,6 +1,5 @@
 import type { Db } from '@busbar/db';
 import type { AssignmentView, Role, Scope } from '@busbar/shared';
-import { forgetViewers } from '../access/viewer-cache.ts';
 
 export type AssignmentRow = AssignmentView & { userId: number };
 
@@ -38,13 +37,11 @@ export interface NewAssignment {
 }
 
 export async function insertAssignment(db: Db, values: NewAssignment): Promise<number> {
-  forgetViewers();
   const row = await db.insertInto('roleAssignments').values(values).returning('id').executeTakeFirstOrThrow();
   return row.id;
 }
 
 export async function deleteAssignment(db: Db, id: number): Promise<void> {
-  forgetViewers();
   await db.deleteFrom('roleAssignments').where('id', '=', id).execute();
 }
 

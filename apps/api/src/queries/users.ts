@@ -1,6 +1,5 @@
 import type { Db } from '@busbar/db';
 import type { PersonStatus } from '@busbar/shared';
-import { forgetViewers } from '../access/viewer-cache.ts';
 import { cappedCount, offsetOf } from './paging.ts';
 import { contains } from './search.ts';
 
@@ -86,7 +85,6 @@ export async function insertInvitedUser(db: Db, values: { email: string; name: s
 }
 
 export async function setUserStatus(db: Db, id: number, status: PersonStatus): Promise<void> {
-  forgetViewers();
   await db.updateTable('users').set({ status }).where('id', '=', id).execute();
 }
 
@@ -96,7 +94,6 @@ export async function setPasswordHash(db: Db, id: number, passwordHash: string):
 }
 
 export async function activateWithPassword(db: Db, id: number, passwordHash: string): Promise<void> {
-  forgetViewers();
   await db.updateTable('users').set({ passwordHash, status: 'active' }).where('id', '=', id).execute();
 }
 

@@ -1,0 +1,32 @@
+import { migrateToLatest, openDatabase } from '@busbar/db';
+import { pruneSessions } from '../auth/session-store.ts';
+import type { Config } from '../config.ts';
+import { ensureDemoData } from '../demo.ts';
+import { startMailCapture } from '../mail/capture.ts';
+import { keepPlannerStatistics } from '../queries/statistics.ts';
+
+/** Where the app's mail goes: the configured server, or the local capture this start-up runs. */
+export interface MailRoute {
+  smtpUrl: string;
+  captured: boolean;
+}
+
+/**
+ * What runs once for the whole app, before any process answers requests: migrations, the demo
+ * network for an empty database, the planner's statistics and session pruning (both kept up on a
+ * schedule), and the local mail capture when no SMTP server is set.
+ */
+export async function prepare(config: Config, now: () => Date): Promise<MailRoute> {
+  const db = openDatabase(config.databaseFile);
+  await migrateToLatest(db);
+  if (config.demoData && (await ensureDemoData(db, config.scryptLogN, now(), config.dataDir))) {
+    console.log('Filled the empty database with the demo network.');
+  }
+  await keepPlannerStatistics(db);
+  await pruneSessions(db, now());
+  setInterval(() => void pruneSessions(db, now()), 3_600_000).unref();
+  if (config.smtpUrl) return { smtpUrl: config.smtpUrl, captured: false };
+  const capture = await startMailCapture(config.smtpCapturePort).catch(() => startMailCapture(0));
+  console.log(`No SMTP_URL set: mail is captured locally (port ${capture.port}) and listed in the Outbox.`);
+  return { smtpUrl: `smtp://127.0.0.1:${capture.port}`, captured: true };
+}

@@ -1,0 +1,73 @@
+import { Agent } from 'node:http';
+import { DEMO_PASSWORD } from '@busbar/db';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { call, signIn, type Person } from '../../bench/client.ts';
+import { startApp, type RunningApp } from '../../bench/server.ts';
+import { demoIds, startHarness, type Harness } from '../support/api-harness.ts';
+import { SIGN_INS } from '../support/staff-fixtures.ts';
+
+/**
+ * The real app started as `pnpm start` starts it, with two processes sharing the port. Every
+ * request goes on a new connection, so requests are dealt out to both processes in turn.
+ */
+let h: Harness;
+let app: RunningApp;
+const fresh = new Agent({ keepAlive: false });
+const person = (email: string) => signIn(app.baseUrl, email, DEMO_PASSWORD, fresh);
+const roles = async (who: Person) => (JSON.parse((await call(who, 'GET', '/api/session')).body) as { assignments: { id: number; locationCode: string }[] }).assignments;
+
+beforeAll(async () => {
+  h = await startHarness();
+  app = await startApp(h.dataDir, { BUSBAR_PROCESSES: '2', DEMO_DATA: 'false' });
+}, 60_000);
+afterAll(async () => {
+  await app?.stop();
+  await h.close();
+});
+
+describe('the app on two processes', () => {
+  it('takes a role away on every process at the requests that follow its removal', async () => {
+    expect(app.processes()).toHaveLength(2);
+    const lead = await person(SIGN_INS.lead2);
+    for (let i = 0; i < 4; i++) expect((await roles(lead)).map((a) => a.locationCode)).toEqual(['AVL']);
+    const [role] = await roles(lead);
+    const owner = await person(SIGN_INS.owner);
+    const ids = await demoIds(h.db);
+    expect((await call(owner, 'DELETE', `/api/staff/${ids.user(SIGN_INS.lead2)}/roles/${role!.id}`)).status).toBe(200);
+    for (let i = 0; i < 6; i++) expect(await roles(lead)).toEqual([]);
+  });
+
+  it('locks an account after ten failed sign-ins in all, whichever processes they reach', async () => {
+    const stranger = { baseUrl: app.baseUrl, agent: fresh, cookie: '', csrf: '' };
+    await call(stranger, 'GET', '/api/health');
+    stranger.csrf = decodeURIComponent(/busbar\.csrf=([^;]+)/.exec(stranger.cookie)![1]!);
+    const attempt = (password: string) => call(stranger, 'POST', '/api/session', { email: SIGN_INS.warranty, password });
+    for (let i = 0; i < 10; i++) expect((await attempt('not-the-password')).status).toBe(401);
+    // The right password now, on each process in turn.
+    for (let i = 0; i < 2; i++) expect((await attempt(DEMO_PASSWORD)).status).toBe(429);
+  });
+
+  it('sends mail through the local capture the first process runs, and lists it in the Outbox', async () => {
+    const owner = await person(SIGN_INS.owner);
+    const ids = await demoIds(h.db);
+    const invited = await call(owner, 'POST', '/api/staff/invites', { email: 'nell.brightwater@example.test', name: 'Nell Brightwater', role: 'technician', locationId: ids.location('DEN') });
+    expect(invited.status).toBe(201);
+    const outbox = JSON.parse((await call(owner, 'GET', '/api/outbox')).body) as { items: { to: string; status: string }[] };
+    expect(outbox.items.find((m) => m.to === 'nell.brightwater@example.test')?.status).toBe('sent');
+  });
+
+  it('keeps answering on the other process when one stops, and starts another in its place', async () => {
+    const tech = await person(SIGN_INS.tech);
+    const [first, second] = app.processes();
+    process.kill(first!, 'SIGKILL');
+    const until = async (done: () => boolean) => {
+      for (let tries = 0; tries < 200 && !done(); tries++) await new Promise((r) => setTimeout(r, 50));
+    };
+    await until(() => !app.processes().includes(first!));
+    for (let i = 0; i < 6; i++) expect((await call(tech, 'GET', '/api/session')).status).toBe(200);
+    await until(() => app.processes().length === 2);
+    expect(app.processes()).toContain(second);
+    expect(app.processes()).not.toContain(first);
+    expect(app.processes()).toHaveLength(2);
+  });
+});
