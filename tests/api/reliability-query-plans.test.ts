@@ -24,12 +24,12 @@ afterAll(() => h.close());
 const TODAY = { today: '2026-06-15', todayDay: dayOfIso('2026-06-15') };
 const planText = (plans: string[][]) => plans.flat().join('\n');
 
-/** The table each statement `run` sends reads first (its FROM). */
+/** The table each statement `run` sends reads first (its FROM, after any common table expression). */
 async function tablesOf(run: (db: Db) => Promise<unknown>): Promise<string[]> {
   const tables: string[] = [];
   const recorder: KyselyPlugin = {
     transformQuery: ({ node }) => {
-      tables.push(h.db.getExecutor().compileQuery(node, createQueryId()).sql.match(/ from "(\w+)"/)?.[1] ?? '?');
+      tables.push(h.db.getExecutor().compileQuery(node, createQueryId()).sql.match(/^(?:with [\s\S]*?\) )?select [\s\S]*? from "(\w+)"/)?.[1] ?? '?');
       return node;
     },
     transformResult: async ({ result }) => result,
