@@ -26,7 +26,7 @@ export function reliabilityRouter({ db, config, now }: AppContext): Router {
     '/',
     validate({ query: reliabilityQuery }, async ({ query }, req, res) => {
       const { today, todayDay } = clock();
-      res.json(await readThread.run('reliabilityListOf', config.databaseFile, chosenLocations(viewerOf(req), query.locationIds), query, today, todayDay));
+      res.type('json').send(await readThread.run('reliabilityListOf', config.databaseFile, chosenLocations(viewerOf(req), query.locationIds), query, today, todayDay));
     }),
   );
 
@@ -37,7 +37,7 @@ export function reliabilityRouter({ db, config, now }: AppContext): Router {
       const selected = chosenLocations(viewer, query.locationIds);
       const { today, todayDay } = clock();
       const named = await namedLocations(db, locationScope(viewer, 'read', 'Reliability'));
-      res.json(await readThread.run('reliabilityDetailOf', config.databaseFile, params, selected, named, query, today, todayDay));
+      res.type('json').send(await readThread.run('reliabilityDetailOf', config.databaseFile, params, selected, named, query, today, todayDay));
     }),
   );
   return router;

@@ -23,7 +23,7 @@ export function rollupsRouter({ config }: AppContext): Router {
       const viewer = viewerOf(req);
       const scope = locationScope(viewer, 'read', 'Report');
       if (scope !== 'all' && scope.length === 0) throw forbidden('You cannot read the figures of any location');
-      res.json(await readThread.run('rollupReportOf', config.databaseFile, query, scope, moneyScopes(viewer)));
+      res.type('json').send(await readThread.run('rollupReportOf', config.databaseFile, query, scope, moneyScopes(viewer)));
     }),
   );
 
