@@ -1,6 +1,8 @@
 // jstat ships no types; only the functions the reliability checks call.
 declare module 'jstat' {
   interface JStat {
+    median(values: number[]): number;
+    meddev(values: number[]): number;
     normal: { inv(p: number, mean: number, sd: number): number };
     chisquare: { inv(p: number, degreesOfFreedom: number): number; cdf(x: number, degreesOfFreedom: number): number };
     poisson: { cdf(count: number, mean: number): number };

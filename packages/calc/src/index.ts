@@ -66,6 +66,7 @@ export {
 } from './solar.ts';
 export { awgAreaMm2, awgCircularMils, circularMilsToMm2, feetToMeters, metersToFeet, mm2ToCircularMils } from './units.ts';
 export { funnelLimits, funnelSide } from './funnel.ts';
+export { median, MODIFIED_Z_LIMIT, modifiedZScores } from './robust-outliers.ts';
 export { kaplanMeier, type SurvivalRow } from './kaplan-meier.ts';
 export { poissonRateInterval, type RateInterval } from './poisson-rate.ts';
 export { binomialUpperTail, chiSquareQuantile, poissonCdf, poissonQuantile, standardNormalQuantile } from './quantiles.ts';

@@ -85,7 +85,7 @@ export function moneyScopes(viewer: Viewer): MoneyScopes {
 }
 
 /** Money a person reads over some locations: only what the role rules let them read at every one of them. */
-function moneyReads({ prices, costs }: MoneyScopes): (locationIds: number[]) => MoneyReads {
+export function moneyReads({ prices, costs }: MoneyScopes): (locationIds: number[]) => MoneyReads {
   const everywhere = (scope: LocationScope, ids: number[]) => scope === 'all' || ids.every((id) => scope.includes(id));
   return (ids) => ({ prices: everywhere(prices, ids), costs: everywhere(costs, ids) });
 }

@@ -1,10 +1,12 @@
-import { rollupQuery } from '@busbar/shared';
+import { comparisonQuery, rollupQuery } from '@busbar/shared';
 import { Router } from 'express';
-import { locationScope } from '../access/locations.ts';
+import { locationScope, type LocationScope } from '../access/locations.ts';
+import type { Viewer } from '../access/viewer.ts';
 import type { AppContext } from '../context.ts';
 import { forbidden } from '../errors.ts';
 import { viewerOf } from '../middleware/session.ts';
 import { validate } from '../middleware/validate.ts';
+import { compareLocations } from '../queries/rollups-compare.ts';
 import { moneyScopes } from '../queries/rollups-report.ts';
 import { readThread } from '../threads/read-thread.ts';
 
@@ -14,18 +16,32 @@ import { readThread } from '../threads/read-thread.ts';
  * shop and the network, no other shop; people who read no reports (technicians, warranty clerks) 403.
  * Summed on the read thread.
  */
-export function rollupsRouter({ config }: AppContext): Router {
+export function rollupsRouter({ db, config }: AppContext): Router {
   const router = Router();
 
   router.get(
     '/',
     validate({ query: rollupQuery }, async ({ query }, req, res) => {
       const viewer = viewerOf(req);
-      const scope = locationScope(viewer, 'read', 'Report');
-      if (scope !== 'all' && scope.length === 0) throw forbidden('You cannot read the figures of any location');
+      const scope = reportScope(viewer);
       res.type('json').send(await readThread.run('rollupReportOf', config.databaseFile, query, scope, moneyScopes(viewer)));
     }),
   );
 
+  router.get(
+    '/locations',
+    validate({ query: comparisonQuery }, async ({ query }, req, res) => {
+      const viewer = viewerOf(req);
+      res.json(await compareLocations(db, query, reportScope(viewer), moneyScopes(viewer)));
+    }),
+  );
+
   return router;
+}
+
+/** The locations whose figures the person reads; none is refused. */
+function reportScope(viewer: Viewer): LocationScope {
+  const scope = locationScope(viewer, 'read', 'Report');
+  if (scope !== 'all' && scope.length === 0) throw forbidden('You cannot read the figures of any location');
+  return scope;
 }

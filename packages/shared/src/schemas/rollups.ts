@@ -71,3 +71,46 @@ export interface Rollups {
   regions: (RollupFigures & { regionId: number; period: string })[];
   network: (RollupFigures & { period: string })[];
 }
+
+/** The most months one comparison of locations covers. */
+export const MAX_COMPARED_MONTHS = 36;
+const month = z.string().regex(/^\d{4}-(0[1-9]|1[0-2])$/, 'Use a month like 2026-03');
+const monthsBetween = (from: string, to: string) => (Number(to.slice(0, 4)) - Number(from.slice(0, 4))) * 12 + Number(to.slice(5)) - Number(from.slice(5)) + 1;
+
+/** Whole months, from and to (inclusive), each cut in its location's zone. */
+export const comparisonQuery = z
+  .strictObject({ from: month, to: month })
+  .refine((q) => q.from <= q.to, { path: ['to'], message: 'Pick an end on or after the start' })
+  .refine((q) => q.from > q.to || monthsBetween(q.from, q.to) <= MAX_COMPARED_MONTHS, {
+    path: ['to'],
+    message: `Pick at most ${MAX_COMPARED_MONTHS} months`,
+  });
+export type ComparisonQuery = z.infer<typeof comparisonQuery>;
+
+/** The figures locations are compared by; money follows the role rules as in RollupFigures. */
+export const COMPARED_FIGURES = [
+  'buildsDelivered',
+  'revenueCents',
+  'averageTicketCents',
+  'grossMarginShare',
+  'laborHoursPerBuild',
+  'claimsPer100Builds',
+  'warrantyCostShare',
+] as const;
+export type ComparedFigure = (typeof COMPARED_FIGURES)[number];
+export type ComparedFigures = Partial<Record<ComparedFigure, number | null>> & { buildsDelivered: number; claimsOpened: number };
+
+/**
+ * Each location of the person's scope over the months, beside the median of every location of the
+ * network that delivered a build in them. `outliers` names the figures that stand apart from the
+ * network: claims per 100 builds outside the Poisson funnel at 99.8 %, the others by a modified
+ * z-score beyond 3.5. A lead receives only their own location; the medians name no location.
+ */
+export interface LocationComparison {
+  from: string;
+  to: string;
+  /** Locations of the network with a delivered build in the months, which the medians are taken over. */
+  comparedLocations: number;
+  median: ComparedFigures;
+  locations: { locationId: number; figures: ComparedFigures; outliers: Partial<Record<ComparedFigure, 'high' | 'low'>> }[];
+}

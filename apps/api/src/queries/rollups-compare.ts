@@ -1,0 +1,86 @@
+import { funnelSide, median, MODIFIED_Z_LIMIT, modifiedZScores } from '@busbar/calc';
+import type { Db } from '@busbar/db';
+import { COMPARED_FIGURES, periodKey, periodNumber, type ComparedFigures, type ComparisonQuery, type LocationComparison } from '@busbar/shared';
+import type { LocationScope } from '../access/locations.ts';
+import { addInto, figuresOf, noSums, type MoneyReads } from './rollups-figures.ts';
+import { moneyReads, type MoneyScopes } from './rollups-report.ts';
+import { locationRegions, locationSums, type RollupSums } from './rollups.ts';
+
+type Outliers = LocationComparison['locations'][number]['outliers'];
+
+/** Claims per 100 builds stand apart outside the Poisson funnel at this confidence, as on the reliability funnel. */
+const FUNNEL_CONFIDENCE = 0.998;
+const PRICE_FIGURES: readonly string[] = ['revenueCents', 'averageTicketCents', 'warrantyCostShare'];
+const COST_FIGURES: readonly string[] = ['grossMarginShare'];
+
+function compared(sums: RollupSums): ComparedFigures {
+  const all = figuresOf({}, sums, { prices: true, costs: true });
+  return {
+    buildsDelivered: all.buildsDelivered,
+    claimsOpened: all.claimsOpened,
+    revenueCents: all.revenueCents!,
+    averageTicketCents: all.averageTicketCents!,
+    grossMarginShare: sums.revenueCents > 0 ? all.grossMarginCents! / sums.revenueCents : null,
+    laborHoursPerBuild: all.laborHoursPerBuild,
+    claimsPer100Builds: all.claimsPer100Builds,
+    warrantyCostShare: all.warrantyCostShare!,
+  };
+}
+
+/** `figures` (or outlier marks) without the money the person may not read. */
+function readable<T extends object>(figures: T, reads: MoneyReads): T {
+  return Object.fromEntries(Object.entries(figures).filter(([field]) => (reads.prices || !PRICE_FIGURES.includes(field)) && (reads.costs || !COST_FIGURES.includes(field)))) as T;
+}
+
+/** Marks of the figures of `figures` that stand apart from the rest (see LocationComparison). */
+function outliersOf(figures: { locationId: number; figures: ComparedFigures }[]): Map<number, Outliers> {
+  const marks = new Map(figures.map((f) => [f.locationId, {} as Outliers]));
+  for (const field of COMPARED_FIGURES.filter((f) => f !== 'claimsPer100Builds')) {
+    const known = figures.filter((f) => f.figures[field] !== null && f.figures[field] !== undefined);
+    modifiedZScores(known.map((f) => f.figures[field]!)).forEach((z, i) => {
+      if (Math.abs(z) > MODIFIED_Z_LIMIT) marks.get(known[i]!.locationId)![field] = z > 0 ? 'high' : 'low';
+    });
+  }
+  const delivered = figures.reduce((n, f) => n + f.figures.buildsDelivered, 0);
+  const claims = figures.reduce((n, f) => n + f.figures.claimsOpened, 0);
+  if (claims === 0) return marks;
+  for (const f of figures) {
+    const side = funnelSide(f.figures.claimsOpened, (claims / delivered) * f.figures.buildsDelivered, { confidence: FUNNEL_CONFIDENCE });
+    if (side !== 'within') marks.get(f.locationId)!.claimsPer100Builds = side === 'above' ? 'high' : 'low';
+  }
+  return marks;
+}
+
+/**
+ * Every location of the network summed over the months (from the monthly roll-ups) and judged
+ * against all the others that delivered a build in them; then only the person's locations kept.
+ * The medians and marks come from the whole network, so a lead's shop is compared with shops
+ * they never see. A location of the scope that delivered nothing is listed with no marks.
+ */
+export async function compareLocations(db: Db, query: ComparisonQuery, scope: LocationScope, money: MoneyScopes): Promise<LocationComparison> {
+  const first = periodNumber('month', `${query.from}-01`);
+  const keys = Array.from({ length: periodNumber('month', `${query.to}-01`) - first + 1 }, (_, i) => periodKey('month', first + i));
+  const [rows, locations] = await Promise.all([locationSums(db, 'month', keys, 'all'), locationRegions(db)]);
+  const totals = new Map(locations.map((l) => [l.id, noSums()]));
+  for (const row of rows) addInto(totals.get(row.locationId)!, row);
+  const all = [...totals].map(([locationId, sums]) => ({ locationId, figures: compared(sums) }));
+  const active = all.filter((f) => f.figures.buildsDelivered > 0);
+  const marks = outliersOf(active);
+
+  const middle = (values: number[]) => (values.length > 0 ? median(values) : 0);
+  const medians: ComparedFigures = { buildsDelivered: middle(active.map((f) => f.figures.buildsDelivered)), claimsOpened: middle(active.map((f) => f.figures.claimsOpened)) };
+  for (const field of COMPARED_FIGURES.filter((f) => f !== 'buildsDelivered')) {
+    const values = active.map((f) => f.figures[field]).filter((v): v is number => v !== null && v !== undefined);
+    medians[field] = values.length > 0 ? median(values) : null;
+  }
+  const reads = moneyReads(money);
+  const inScope = (id: number) => scope === 'all' || scope.includes(id);
+  return {
+    ...query,
+    comparedLocations: active.length,
+    median: readable(medians, reads(scope === 'all' ? locations.map((l) => l.id) : scope)),
+    locations: all
+      .filter((f) => inScope(f.locationId))
+      .map((f) => ({ locationId: f.locationId, figures: readable(f.figures, reads([f.locationId])), outliers: readable(marks.get(f.locationId) ?? {}, reads([f.locationId])) })),
+  };
+}
