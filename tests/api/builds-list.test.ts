@@ -48,6 +48,19 @@ describe('the build list', () => {
     expect(await numbers(owner, 'from=2026-06-01&to=2026-06-30&sort=number&order=asc')).toEqual(['AVL-00001', 'DEN-00002']);
   });
 
+  it('filters by the day a build was delivered at its location', async () => {
+    const delivered = await moveThrough(lead, builds[0]!, ['quoted', 'booked', 'in_bay', 'quality_check', 'delivered']);
+    // Delivered at 15:00 UTC: 09:00 in Denver, the same day there.
+    expect(delivered.deliveredAt).toBe('2026-06-15T15:00:00.000Z');
+    expect(await numbers(owner, 'deliveredFrom=2026-06-15&deliveredTo=2026-06-15')).toEqual(['DEN-00001']);
+    expect(await numbers(owner, 'deliveredFrom=2026-06-15')).toEqual(['DEN-00001']);
+    expect(await numbers(owner, 'deliveredTo=2026-06-14')).toEqual([]);
+    expect(await numbers(owner, 'deliveredFrom=2026-06-16')).toEqual([]);
+    const bad = await owner.get('/api/builds?deliveredFrom=June');
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.fields.deliveredFrom).toBeTruthy();
+  });
+
   it('searches build numbers, customer names and serial numbers', async () => {
     expect(await numbers(lead, 'q=00003')).toEqual(['DEN-00003']);
     expect(await numbers(lead, `q=${encodeURIComponent(builds[1]!.customerName)}`)).toEqual(['DEN-00002']);

@@ -43,6 +43,8 @@ function filteredBuilds(db: Db, scope: LocationScope, query: BuildQuery) {
     if (query.technicianId) conditions.push(eb('b.leadTechnicianId', '=', query.technicianId));
     if (query.from) conditions.push(eb('b.bookedFor', '>=', query.from));
     if (query.to) conditions.push(eb('b.bookedFor', '<=', query.to));
+    if (query.deliveredFrom) conditions.push(eb('b.deliveredOn', '>=', query.deliveredFrom));
+    if (query.deliveredTo) conditions.push(eb('b.deliveredOn', '<=', query.deliveredTo));
     if (query.hasPlan) {
       const planned = eb.exists(eb.selectFrom('powerPlans as p').select('p.id').whereRef('p.buildId', '=', 'b.id'));
       conditions.push(query.hasPlan === 'true' ? planned : eb.not(planned));

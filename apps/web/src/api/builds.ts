@@ -18,6 +18,8 @@ export interface BuildFilter {
   technicianId?: number;
   from?: string;
   to?: string;
+  deliveredFrom?: string;
+  deliveredTo?: string;
   q?: string;
   hasPlan?: 'true' | 'false';
   sort?: BuildSort;

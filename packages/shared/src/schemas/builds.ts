@@ -104,8 +104,12 @@ export const buildQuery = z.strictObject({
   status: z.union([z.enum(BUILD_STATUSES), z.array(z.enum(BUILD_STATUSES))]).optional(),
   locationId: idSchema.optional(),
   technicianId: idSchema.optional(),
+  /** Booked for a day from and to (inclusive). */
   from: isoDate.optional(),
   to: isoDate.optional(),
+  /** Delivered on a day at its location from and to (inclusive). */
+  deliveredFrom: isoDate.optional(),
+  deliveredTo: isoDate.optional(),
   q: z.string().trim().max(100).optional(),
   /** Only builds with (true) or without (false) a power plan. */
   hasPlan: z.enum(['true', 'false']).optional(),

@@ -15,6 +15,8 @@ export function readBuildFilters(query: LocationQuery) {
     technicianId: positiveInt(query.technicianId),
     from: isoDate(query.from),
     to: isoDate(query.to),
+    deliveredFrom: isoDate(query.deliveredFrom),
+    deliveredTo: isoDate(query.deliveredTo),
     q: q || undefined,
     sort: (BUILD_SORTS.find((s) => s === query.sort) ?? 'updatedAt') as BuildSort,
     order: query.order === 'asc' ? ('asc' as const) : ('desc' as const),
@@ -25,5 +27,5 @@ export type BuildFilters = ReturnType<typeof readBuildFilters>;
 
 /** Whether any filter narrows the list (the order does not count). */
 export function isFiltered(f: BuildFilters): boolean {
-  return f.status.length > 0 || Boolean(f.locationId || f.technicianId || f.from || f.to || f.q);
+  return f.status.length > 0 || Boolean(f.locationId || f.technicianId || f.from || f.to || f.deliveredFrom || f.deliveredTo || f.q);
 }
