@@ -38,9 +38,10 @@ async function waitUntilUp(baseUrl: string, child: ChildProcess, log: () => stri
   throw new Error(`the app did not answer within 5 minutes:\n${log()}`);
 }
 
+const APP = 'apps/api/src/main.ts';
 const peakMiB = (pid: number) => Number(/VmHWM:\s+(\d+) kB/.exec(readFileSync(`/proc/${pid}/status`, 'utf8'))?.[1] ?? 0) / 1024;
 
-/** The app's own processes (it starts one per CPU: see apps/api/src/start/workers.ts). */
+/** The app's child processes: the processes it answers on (one per CPU: see apps/api/src/start/workers.ts) and any helper (tsx's compiler). */
 function childrenOf(pid: number): number[] {
   return readdirSync(`/proc/${pid}/task`).flatMap((task) =>
     readFileSync(`/proc/${pid}/task/${task}/children`, 'utf8').split(' ').filter(Boolean).map(Number),
@@ -53,7 +54,7 @@ function childrenOf(pid: number): number[] {
  */
 export async function startApp(dataDir: string, env: Record<string, string> = {}): Promise<RunningApp> {
   const port = await freePort();
-  const child = spawn(process.execPath, ['--import', 'tsx', 'apps/api/src/main.ts'], {
+  const child = spawn(process.execPath, ['--import', 'tsx', APP], {
     env: { ...process.env, PORT: String(port), BUSBAR_DATA_DIR: dataDir, SMTP_CAPTURE_PORT: '0', NODE_ENV: 'production', ...env },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
@@ -65,8 +66,8 @@ export async function startApp(dataDir: string, env: Record<string, string> = {}
   return {
     baseUrl,
     processes() {
-      const children = childrenOf(child.pid!);
-      return children.length > 0 ? children : [child.pid!];
+      const servers = childrenOf(child.pid!).filter((pid) => readFileSync(`/proc/${pid}/cmdline`, 'utf8').includes(APP));
+      return servers.length > 0 ? servers : [child.pid!];
     },
     peakMemory() {
       const peaks = [child.pid!, ...childrenOf(child.pid!)].map(peakMiB);
