@@ -14,7 +14,7 @@ export interface ImportJob {
 
 /**
  * Checks an import and, when every row passes and it is not a dry run, writes it whole, a batch
- * at a time (write-rows.ts), on a connection of its own (it runs in a worker thread: see run-import.ts).
+ * at a time (write-rows.ts), on a connection of its own (it runs on the background thread: see threads/background.ts).
  */
 export async function importBuilds(job: ImportJob): Promise<ImportResult> {
   const db = openDatabase(job.databaseFile);

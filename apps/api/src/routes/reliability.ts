@@ -9,7 +9,7 @@ import { forbidden, notFound } from '../errors.ts';
 import { viewerOf } from '../middleware/session.ts';
 import { validate } from '../middleware/validate.ts';
 import type { NamedLocation } from '../reliability/funnel.ts';
-import { readThread } from '../threads/read-thread.ts';
+import { background } from '../threads/background.ts';
 
 /**
  * Component reliability in the person's locations (a lead's shop, a regional manager's region, or
@@ -26,7 +26,7 @@ export function reliabilityRouter({ db, config, now }: AppContext): Router {
     '/',
     validate({ query: reliabilityQuery }, async ({ query }, req, res) => {
       const { today, todayDay } = clock();
-      res.type('json').send(await readThread.run('reliabilityListOf', config.databaseFile, chosenLocations(viewerOf(req), query.locationIds), query, today, todayDay));
+      res.type('json').send(await background.run('reliabilityListOf', config.databaseFile, chosenLocations(viewerOf(req), query.locationIds), query, today, todayDay));
     }),
   );
 
@@ -37,7 +37,7 @@ export function reliabilityRouter({ db, config, now }: AppContext): Router {
       const selected = chosenLocations(viewer, query.locationIds);
       const { today, todayDay } = clock();
       const named = await namedLocations(db, locationScope(viewer, 'read', 'Reliability'));
-      res.type('json').send(await readThread.run('reliabilityDetailOf', config.databaseFile, params, selected, named, query, today, todayDay));
+      res.type('json').send(await background.run('reliabilityDetailOf', config.databaseFile, params, selected, named, query, today, todayDay));
     }),
   );
   return router;

@@ -8,13 +8,13 @@ import { viewerOf } from '../middleware/session.ts';
 import { validate } from '../middleware/validate.ts';
 import { compareLocations } from '../queries/rollups-compare.ts';
 import { moneyScopes } from '../queries/rollups-report.ts';
-import { readThread } from '../threads/read-thread.ts';
+import { background } from '../threads/background.ts';
 
 /**
  * Roll-ups of the person's locations by day, week, month, quarter or year, each period beside the
  * one before and the same one a year before, with the whole network's totals. A lead receives their
  * shop and the network, no other shop; people who read no reports (technicians, warranty clerks) 403.
- * Summed on the read thread.
+ * Summed on the background thread.
  */
 export function rollupsRouter({ db, config }: AppContext): Router {
   const router = Router();
@@ -24,7 +24,7 @@ export function rollupsRouter({ db, config }: AppContext): Router {
     validate({ query: rollupQuery }, async ({ query }, req, res) => {
       const viewer = viewerOf(req);
       const scope = reportScope(viewer);
-      res.type('json').send(await readThread.run('rollupReportOf', config.databaseFile, query, scope, moneyScopes(viewer)));
+      res.type('json').send(await background.run('rollupReportOf', config.databaseFile, query, scope, moneyScopes(viewer)));
     }),
   );
 

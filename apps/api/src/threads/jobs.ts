@@ -3,11 +3,14 @@ import { rollupReport } from '../queries/rollups-report.ts';
 import { reliabilityDetail } from '../reliability/detail.ts';
 import { reliabilityList } from '../reliability/list.ts';
 
+export { importBuilds } from '../imports/import-job.ts';
+
 /**
- * The long reads that run on the read thread (read-thread.ts), each given the database file first
- * and answering the JSON text to send: an owner's year of roll-ups is 3 MB, and turning it into
- * objects on the request thread and back into text would cost that thread 25 ms.
- * The thread keeps one connection, for reading only, to the file it was last asked about.
+ * The long work that runs on the background thread (background.ts). Each read is given the
+ * database file first and answers the JSON text to send: an owner's year of roll-ups is 3 MB, and
+ * turning it into objects on the request thread and back into text would cost that thread 25 ms.
+ * The reads keep one connection, for reading only, to the file last asked about; an import opens
+ * its own, to write.
  */
 let open: { file: string; db: Db } | null = null;
 
