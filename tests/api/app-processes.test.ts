@@ -1,3 +1,4 @@
+import { existsSync } from 'node:fs';
 import { Agent } from 'node:http';
 import { DEMO_PASSWORD } from '@busbar/db';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -63,7 +64,8 @@ describe('the app on two processes', () => {
     const until = async (done: () => boolean) => {
       for (let tries = 0; tries < 200 && !done(); tries++) await new Promise((r) => setTimeout(r, 50));
     };
-    await until(() => !app.processes().includes(first!));
+    // Gone from the process table once the first process has reaped it, and so seen it stop.
+    await until(() => !existsSync(`/proc/${first}`));
     for (let i = 0; i < 6; i++) expect((await call(tech, 'GET', '/api/session')).status).toBe(200);
     await until(() => app.processes().length === 2);
     expect(app.processes()).toContain(second);
