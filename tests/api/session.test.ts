@@ -44,6 +44,8 @@ describe('sign-in and sign-out', () => {
       expect.objectContaining({ role: 'location_lead', scope: 'location', locationId: ids.location('DEN'), locationCode: 'DEN' }),
     ]);
     expect(res.body.rules).toContainEqual({ action: 'read', subject: 'Location', conditions: { id: { $in: [ids.location('DEN')] } } });
+    // The server's date, which screens count months from: the harness's clock, not the test machine's.
+    expect(res.body.today).toBe('2026-06-15');
     const cookie = setSessionCookie(res);
     expect(cookie).toMatch(/HttpOnly/i);
     expect(cookie).toMatch(/SameSite=Lax/i);

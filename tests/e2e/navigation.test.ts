@@ -9,20 +9,20 @@ afterAll(async () => {
   await e2e?.close();
 });
 
-const NAV = ['Overview', 'Builds', 'Quick plans', 'Customers', 'Find a serial', 'Catalog', 'Vendors', 'Staff', 'Outbox', 'Audit log'] as const;
+const NAV = ['Overview', 'Builds', 'Quick plans', 'Customers', 'Find a serial', 'Locations compared', 'Catalog', 'Vendors', 'Staff', 'Outbox', 'Audit log'] as const;
 type Item = (typeof NAV)[number];
 const WORK: Item[] = ['Overview', 'Builds', 'Customers', 'Find a serial', 'Catalog', 'Vendors'];
 
 // What each demo person should find in the navigation, and nothing more.
 const expected: Record<string, Item[]> = {
   'owner@demo.busbar.test': [...NAV],
-  'regional@demo.busbar.test': [...WORK, 'Staff'],
+  'regional@demo.busbar.test': [...WORK, 'Locations compared', 'Staff'],
   // Quick plans are for those who plan systems with customers: leads and technicians.
-  'lead@demo.busbar.test': [...WORK, 'Quick plans', 'Staff'],
-  'lead2@demo.busbar.test': [...WORK, 'Quick plans', 'Staff'],
+  'lead@demo.busbar.test': [...WORK, 'Quick plans', 'Locations compared', 'Staff'],
+  'lead2@demo.busbar.test': [...WORK, 'Quick plans', 'Locations compared', 'Staff'],
   'tech@demo.busbar.test': [...WORK, 'Quick plans'],
   'warranty@demo.busbar.test': WORK,
-  'accountant@demo.busbar.test': WORK,
+  'accountant@demo.busbar.test': [...WORK, 'Locations compared'],
 };
 
 describe('navigation by role', () => {

@@ -10,8 +10,14 @@ describe('where a person lands after signing in', () => {
     expect(homeOf(as('warranty_clerk', 'warranty_clerk'))).toBe('claims');
   });
 
+  it('lands the owner and regional managers on the comparison of their locations, whatever else they do', () => {
+    expect(homeOf(as('owner'))).toBe('compare');
+    expect(homeOf(as('regional_manager'))).toBe('compare');
+    expect(homeOf(as('location_lead', 'regional_manager'))).toBe('compare');
+  });
+
   it('lands everyone else, and anyone whose wider role comes first, on the overview', () => {
-    for (const role of ['owner', 'regional_manager', 'location_lead', 'technician', 'accountant'] as const) expect(homeOf(as(role))).toBe('overview');
+    for (const role of ['location_lead', 'technician', 'accountant'] as const) expect(homeOf(as(role))).toBe('overview');
     expect(homeOf(as('warranty_clerk', 'location_lead'))).toBe('overview');
     expect(homeOf([])).toBe('overview');
   });

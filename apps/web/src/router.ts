@@ -162,6 +162,12 @@ export const router = createRouter({
           meta: { action: 'read', subject: 'Claim', title: 'Claim' },
         },
         {
+          path: 'compare',
+          name: 'compare',
+          component: () => import('./views/network/LocationsCompared.vue'),
+          meta: { action: 'read', subject: 'Report', title: 'Locations compared' },
+        },
+        {
           path: 'reliability',
           name: 'reliability',
           component: () => import('./views/reliability/ReliabilityList.vue'),

@@ -20,11 +20,11 @@ export async function signIn({ db, now }: AppContext, req: Request, res: Respons
   await recordSignIn(db, userId, now().toISOString());
   const viewer = await loadViewer(db, userId);
   if (!viewer) throw new HttpError(401, 'unauthenticated', 'Please sign in');
-  res.json(sessionView(viewer));
+  res.json(sessionView(viewer, now()));
 }
 
-function sessionView(viewer: NonNullable<Awaited<ReturnType<typeof loadViewer>>>): SessionView {
-  return { person: { id: viewer.id, email: viewer.email, name: viewer.name }, assignments: viewer.assignments, rules: viewer.rules };
+function sessionView(viewer: NonNullable<Awaited<ReturnType<typeof loadViewer>>>, now: Date): SessionView {
+  return { person: { id: viewer.id, email: viewer.email, name: viewer.name }, assignments: viewer.assignments, rules: viewer.rules, today: now.toISOString().slice(0, 10) };
 }
 
 /** Sign-in, the current session, sign-out. */
@@ -32,7 +32,7 @@ export function sessionRouter(ctx: AppContext): Router {
   const router = Router();
 
   router.get('/', requireSession(ctx.db), (req, res) => {
-    res.json(sessionView(viewerOf(req)));
+    res.json(sessionView(viewerOf(req), ctx.now()));
   });
 
   router.post(

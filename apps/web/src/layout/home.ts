@@ -1,12 +1,15 @@
 import { ROLES, type AssignmentView, type Role } from '@busbar/shared';
 
+type Home = 'overview' | 'claims' | 'compare';
+
 /**
- * Where each role lands after signing in (DESIGN.md, "home"): the clerk on the claim queue; the
- * others' own homes come with their screens, the overview until then.
+ * Where each role lands after signing in (DESIGN.md, "home"): the owner and regional managers on
+ * the comparison of their locations, the clerk on the claim queue; the others' own homes come with
+ * their screens, the overview until then.
  */
-const HOME_BY_ROLE: Record<Role, 'overview' | 'claims'> = {
-  owner: 'overview',
-  regional_manager: 'overview',
+const HOME_BY_ROLE: Record<Role, Home> = {
+  owner: 'compare',
+  regional_manager: 'compare',
   location_lead: 'overview',
   technician: 'overview',
   warranty_clerk: 'claims',
@@ -14,7 +17,7 @@ const HOME_BY_ROLE: Record<Role, 'overview' | 'claims'> = {
 };
 
 /** The home of a person's first role in the order of ROLES (the widest work first). */
-export function homeOf(assignments: Pick<AssignmentView, 'role'>[]): 'overview' | 'claims' {
+export function homeOf(assignments: Pick<AssignmentView, 'role'>[]): Home {
   const first = ROLES.find((role) => assignments.some((a) => a.role === role));
   return first ? HOME_BY_ROLE[first] : 'overview';
 }

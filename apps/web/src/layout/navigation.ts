@@ -1,6 +1,7 @@
 import {
   AppstoreOutlined,
   AuditOutlined,
+  BarChartOutlined,
   BarcodeOutlined,
   ContactsOutlined,
   EnvironmentOutlined,
@@ -27,6 +28,7 @@ export const NAVIGATION: { route: string; label: string; icon: Component; group?
   { route: 'serials', label: 'Find a serial', icon: BarcodeOutlined, group: 'Shop floor' },
   { route: 'claims', label: 'Claims', icon: FileProtectOutlined, group: 'Warranty' },
   { route: 'reliability', label: 'Reliability', icon: LineChartOutlined, group: 'Warranty' },
+  { route: 'compare', label: 'Locations compared', icon: BarChartOutlined, group: 'Network' },
   { route: 'catalog', label: 'Catalog', icon: AppstoreOutlined, group: 'Network' },
   { route: 'vendors', label: 'Vendors', icon: ShopOutlined, group: 'Network' },
   { route: 'locations', label: 'Locations', icon: EnvironmentOutlined, group: 'Network' },

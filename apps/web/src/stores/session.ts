@@ -14,6 +14,8 @@ export const useSessionStore = defineStore('session', () => {
 
   const person = computed(() => view.value?.person ?? null);
   const assignments = computed(() => view.value?.assignments ?? []);
+  /** The server's date, for counting months from the same day as the figures. */
+  const today = computed(() => view.value?.today ?? new Date().toISOString().slice(0, 10));
 
   function apply(next: SessionView | null) {
     view.value = next;
@@ -61,5 +63,5 @@ export const useSessionStore = defineStore('session', () => {
     apply(null);
   }
 
-  return { person, assignments, loadError, ensureLoaded, signIn, acceptInvite, signOut, forget };
+  return { person, assignments, today, loadError, ensureLoaded, signIn, acceptInvite, signOut, forget };
 });

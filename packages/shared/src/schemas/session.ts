@@ -32,4 +32,6 @@ export interface SessionView {
   person: SessionPerson;
   assignments: AssignmentView[];
   rules: AppRule[];
+  /** The server's date (YYYY-MM-DD, UTC), so screens count months from the same day as the figures. */
+  today: string;
 }

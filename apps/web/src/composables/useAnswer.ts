@@ -1,11 +1,11 @@
 import { ref, shallowRef, watch } from 'vue';
-import { ApiError, messageOf } from '../../api/client.ts';
+import { ApiError, messageOf } from '../api/client.ts';
 
 /**
  * One answer loaded again whenever its request (the address bar's filters) changes; an answer that
  * arrives after a newer request is dropped. `notFound` is said for a 404 in the page's own words.
  */
-export function useReliabilityLoad<T>(requestKey: () => string, fetch: () => Promise<T>, notFound: string) {
+export function useAnswer<T>(requestKey: () => string, fetch: () => Promise<T>, notFound: string) {
   const data = shallowRef<T | null>(null);
   const loading = ref(true);
   const error = ref<string | null>(null);

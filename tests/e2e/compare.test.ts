@@ -1,0 +1,59 @@
+import type { Page } from 'playwright-core';
+import { DEMO_SIGN_INS } from '../../db/demo/network.ts';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { startE2e, type E2e } from '../support/e2e-harness.ts';
+
+let e2e: E2e;
+beforeAll(async () => {
+  e2e = await startE2e({ history: true });
+});
+afterAll(async () => {
+  await e2e?.close();
+});
+
+/** The demo's manager of the EAST region, Austin's. */
+const EAST_MANAGER = DEMO_SIGN_INS.find((p) => p.role === 'regional_manager' && 'region' in p && p.region === 'EAST')!.email;
+const fitsWidth = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth <= document.documentElement.clientWidth);
+const shopRows = (page: Page) => page.locator('.comparison .ant-table-row');
+
+describe('locations compared', () => {
+  it("the regional manager lands on their shops, sorts by claims per 100 builds, and opens the outlier's delivered builds", async () => {
+    const page = await e2e.newPage();
+    await e2e.signIn(page, EAST_MANAGER);
+    await page.getByRole('heading', { level: 1, name: 'Locations compared' }).waitFor();
+    // The harness's clock stands at June 15, 2026: the last 12 whole months.
+    await page.getByText('Jun 2025 – May 2026', { exact: false }).waitFor();
+    await expect.poll(() => shopRows(page).count()).toBe(4);
+    expect(await page.locator('.ant-table-summary').textContent()).toMatch(/^Network median of 8 shops/);
+
+    await page.getByRole('columnheader', { name: /Claims per 100 builds/ }).click();
+    await expect.poll(() => new URL(page.url()).searchParams.get('sort')).toBe('claimsPer100Builds');
+    const top = shopRows(page).first();
+    await expect.poll(() => top.locator('td').first().textContent()).toBe('AUS Austin');
+    await top.getByText('▲ Above the funnel').waitFor();
+    const delivered = Number((await top.locator('td').nth(1).textContent())!.replace(/,/g, ''));
+
+    await top.getByRole('link', { name: 'Austin: its delivered builds of these months' }).click();
+    await page.getByRole('heading', { level: 1, name: 'Builds' }).waitFor();
+    const asked = new URL(page.url()).searchParams;
+    expect(Object.fromEntries(asked)).toMatchObject({ status: 'delivered', deliveredFrom: '2025-06-01', deliveredTo: '2026-05-31' });
+    await page.getByText(`1–50 of ${delivered.toLocaleString('en-US')}`).waitFor();
+    expect(await page.locator('.ant-table-row').first().textContent()).toContain('AUS');
+    await page.context().close();
+  });
+
+  it('the lead sees their shop against the network without other shops, on a phone too', async () => {
+    const page = await e2e.newPage();
+    await e2e.signIn(page, 'lead@demo.busbar.test');
+    await page.getByRole('navigation').getByText('Locations compared', { exact: true }).click();
+    await page.getByRole('heading', { level: 1, name: 'Your shop against the network' }).waitFor();
+    await expect.poll(() => shopRows(page).count()).toBe(1);
+    expect(await shopRows(page).first().locator('td').first().textContent()).toBe('DEN Denver');
+    const text = await page.locator('main').textContent();
+    for (const name of ['Austin', 'Boise', 'Portland', 'Asheville']) expect(text).not.toContain(name);
+    await page.setViewportSize({ width: 390, height: 844 });
+    await page.getByText('Shop and figures').waitFor();
+    await expect.poll(() => fitsWidth(page)).toBe(true);
+    await page.context().close();
+  });
+});
