@@ -61,6 +61,17 @@ describe('the build list', () => {
     expect(bad.body.error.fields.deliveredFrom).toBeTruthy();
   });
 
+  it('counts the lines of serial-numbered parts still without a serial on each build', async () => {
+    const parts = await h.db.selectFrom('catalogItems').select(['id', 'serialized']).where('serialized', '=', 1).execute();
+    const before = await owner.get(`/api/builds/${builds[1]!.id}`);
+    const added = await lead.post(`/api/builds/${builds[1]!.id}/items`).send({ version: before.body.version, catalogItemId: parts[0]!.id, quantity: 1 });
+    expect(added.status).toBe(201);
+    const listed = async () => new Map(((await lead.get('/api/builds?pageSize=50')).body.items as BuildView[]).map((b) => [b.number, b.serialsToRecord]));
+    expect((await listed()).get('DEN-00002')).toBe(1);
+    // The battery of DEN-00003 has its serial.
+    expect((await listed()).get('DEN-00003')).toBe(0);
+  });
+
   it('searches build numbers, customer names and serial numbers', async () => {
     expect(await numbers(lead, 'q=00003')).toEqual(['DEN-00003']);
     expect(await numbers(lead, `q=${encodeURIComponent(builds[1]!.customerName)}`)).toEqual(['DEN-00002']);

@@ -173,6 +173,8 @@ export interface BuildView {
   version: number;
   createdAt: string;
   updatedAt: string;
+  /** Lines of serial-numbered parts still without a serial number. */
+  serialsToRecord: number;
 }
 
 export interface BuildDetail extends BuildView {
