@@ -16,8 +16,13 @@ describe('where a person lands after signing in', () => {
     expect(homeOf(as('location_lead', 'regional_manager'))).toBe('compare');
   });
 
+  it('lands a technician on their bay', () => {
+    expect(homeOf(as('technician'))).toBe('my-bay');
+  });
+
   it('lands everyone else, and anyone whose wider role comes first, on the overview', () => {
-    for (const role of ['location_lead', 'technician', 'accountant'] as const) expect(homeOf(as(role))).toBe('overview');
+    for (const role of ['location_lead', 'accountant'] as const) expect(homeOf(as(role))).toBe('overview');
+    expect(homeOf(as('technician', 'location_lead'))).toBe('overview');
     expect(homeOf(as('warranty_clerk', 'location_lead'))).toBe('overview');
     expect(homeOf([])).toBe('overview');
   });

@@ -162,6 +162,12 @@ export const router = createRouter({
           meta: { action: 'read', subject: 'Claim', title: 'Claim' },
         },
         {
+          path: 'my-bay',
+          name: 'my-bay',
+          component: () => import('./views/home/MyBay.vue'),
+          meta: { action: 'update', subject: 'Build', title: 'My bay today' },
+        },
+        {
           path: 'compare',
           name: 'compare',
           component: () => import('./views/network/LocationsCompared.vue'),

@@ -1,6 +1,7 @@
 import type { Page } from 'playwright-core';
 import { DEMO_SIGN_INS } from '../../db/demo/network.ts';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createBuild, moveThrough } from '../support/build-fixtures.ts';
 import { startE2e, type E2e } from '../support/e2e-harness.ts';
 
 let e2e: E2e;
@@ -16,7 +17,7 @@ const EAST_MANAGER = DEMO_SIGN_INS.find((p) => p.role === 'regional_manager' && 
 const fitsWidth = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth <= document.documentElement.clientWidth);
 const shopRows = (page: Page) => page.locator('.comparison .ant-table-row');
 
-describe('locations compared', () => {
+describe('homes: locations compared and my bay', () => {
   it("the regional manager lands on their shops, sorts by claims per 100 builds, and opens the outlier's delivered builds", async () => {
     const page = await e2e.newPage();
     await e2e.signIn(page, EAST_MANAGER);
@@ -54,6 +55,44 @@ describe('locations compared', () => {
     await page.setViewportSize({ width: 390, height: 844 });
     await page.getByText('Shop and figures').waitFor();
     await expect.poll(() => fitsWidth(page)).toBe(true);
+    await page.context().close();
+  });
+
+  it("lands the technician on their bay today, work in hand first, usable on a phone", async () => {
+    const page = await e2e.newPage();
+    await page.setViewportSize({ width: 390, height: 844 });
+    await e2e.signIn(page, 'tech@demo.busbar.test');
+    await page.getByRole('heading', { level: 1, name: 'My bay today' }).waitFor();
+    await page.getByText('Jun 15, 2026 · the builds you lead').waitFor();
+    // Whatever the demo's draws left in the bay, the lead books one build into it and one for today.
+    const lead = await e2e.harness.signedIn('lead@demo.busbar.test');
+    const { id: techId } = await e2e.harness.db.selectFrom('users').select('id').where('email', '=', 'tech@demo.busbar.test').executeTakeFirstOrThrow();
+    const den = (await e2e.harness.db.selectFrom('locations').select('id').where('code', '=', 'DEN').executeTakeFirstOrThrow()).id;
+    for (const stages of [['quoted', 'booked', 'in_bay'], ['quoted', 'booked']]) {
+      await moveThrough(lead, await createBuild(e2e.harness.db, lead, den, { leadTechnicianId: techId, bookedFor: '2026-06-15' }), stages);
+    }
+    const open = await e2e.harness.db
+      .selectFrom('builds')
+      .select(['number', 'status'])
+      .where('leadTechnicianId', '=', techId)
+      .where((eb) => eb.or([eb('status', 'in', ['in_bay', 'quality_check']), eb.and([eb('status', '=', 'booked'), eb('bookedFor', '<=', '2026-06-15')])]))
+      .execute();
+    expect(open.length).toBeGreaterThanOrEqual(2);
+    await page.reload();
+    const cards = page.locator('.bay-card');
+    await expect.poll(() => cards.count()).toBe(open.length);
+    const numbers = await page.locator('.bay-card-number').allTextContents();
+    expect(numbers.sort()).toEqual(open.map((b) => b.number).sort());
+    const inBay = page.getByRole('region', { name: 'In the bay' });
+    expect(await inBay.locator('.bay-card').count()).toBe(open.filter((b) => b.status !== 'booked').length);
+    expect(await page.getByRole('region', { name: 'Booked for today' }).locator('.bay-card').count()).toBe(open.filter((b) => b.status === 'booked').length);
+    await expect.poll(() => fitsWidth(page)).toBe(true);
+    // Every card is a large target that opens its build.
+    const box = (await cards.first().boundingBox())!;
+    expect(box.height).toBeGreaterThanOrEqual(72);
+    expect(box.width).toBeGreaterThan(250);
+    await cards.first().click();
+    await page.getByRole('heading', { level: 1, name: new RegExp(numbers[0]!.replace(/[-]/g, '\\-')) }).waitFor();
     await page.context().close();
   });
 });
