@@ -43,9 +43,16 @@ describe('homes: locations compared and my bay', () => {
     await page.context().close();
   });
 
-  it('the lead sees their shop against the network without other shops, on a phone too', async () => {
+  it("the lead lands on the shop's week, then sees the shop against the network without other shops, on a phone too", async () => {
     const page = await e2e.newPage();
     await e2e.signIn(page, 'lead@demo.busbar.test');
+    await page.getByRole('heading', { level: 1, name: 'Denver this week' }).waitFor();
+    const den = (await e2e.harness.db.selectFrom('locations').select('id').where('code', '=', 'DEN').executeTakeFirstOrThrow()).id;
+    const inBay = await e2e.harness.db.selectFrom('builds').select('number').where('locationId', '=', den).where('status', 'in', ['in_bay', 'quality_check']).execute();
+    const counts = page.getByRole('list', { name: 'The week in numbers' });
+    await expect.poll(() => counts.locator('li').first().textContent()).toBe(`${inBay.length} in the bay`);
+    const cards = page.getByRole('region', { name: 'In the bay' }).locator('.bay-card-number');
+    expect((await cards.allTextContents()).sort()).toEqual(inBay.map((b) => b.number).sort());
     await page.getByRole('navigation').getByText('Locations compared', { exact: true }).click();
     await page.getByRole('heading', { level: 1, name: 'Your shop against the network' }).waitFor();
     await expect.poll(() => shopRows(page).count()).toBe(1);

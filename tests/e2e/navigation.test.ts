@@ -9,7 +9,7 @@ afterAll(async () => {
   await e2e?.close();
 });
 
-const NAV = ['Overview', 'My bay today', 'Builds', 'Quick plans', 'Customers', 'Find a serial', 'Locations compared', 'Catalog', 'Vendors', 'Staff', 'Outbox', 'Audit log'] as const;
+const NAV = ['Overview', 'This week', 'My bay today', 'Builds', 'Quick plans', 'Customers', 'Find a serial', 'Locations compared', 'Catalog', 'Vendors', 'Staff', 'Outbox', 'Audit log'] as const;
 type Item = (typeof NAV)[number];
 const WORK: Item[] = ['Overview', 'Builds', 'Customers', 'Find a serial', 'Catalog', 'Vendors'];
 
@@ -18,8 +18,8 @@ const expected: Record<string, Item[]> = {
   'owner@demo.busbar.test': [...NAV],
   'regional@demo.busbar.test': [...WORK, 'Locations compared', 'Staff'],
   // Quick plans are for those who plan systems with customers: leads and technicians.
-  'lead@demo.busbar.test': [...WORK, 'My bay today', 'Quick plans', 'Locations compared', 'Staff'],
-  'lead2@demo.busbar.test': [...WORK, 'My bay today', 'Quick plans', 'Locations compared', 'Staff'],
+  'lead@demo.busbar.test': [...WORK, 'This week', 'My bay today', 'Quick plans', 'Locations compared', 'Staff'],
+  'lead2@demo.busbar.test': [...WORK, 'This week', 'My bay today', 'Quick plans', 'Locations compared', 'Staff'],
   'tech@demo.busbar.test': [...WORK, 'My bay today', 'Quick plans'],
   'warranty@demo.busbar.test': WORK,
   'accountant@demo.busbar.test': [...WORK, 'Locations compared'],

@@ -16,14 +16,15 @@ describe('where a person lands after signing in', () => {
     expect(homeOf(as('location_lead', 'regional_manager'))).toBe('compare');
   });
 
-  it('lands a technician on their bay', () => {
+  it("lands a lead on their shop's week and a technician on their bay", () => {
+    expect(homeOf(as('location_lead'))).toBe('shop-week');
+    expect(homeOf(as('technician', 'location_lead'))).toBe('shop-week');
+    expect(homeOf(as('warranty_clerk', 'location_lead'))).toBe('shop-week');
     expect(homeOf(as('technician'))).toBe('my-bay');
   });
 
-  it('lands everyone else, and anyone whose wider role comes first, on the overview', () => {
-    for (const role of ['location_lead', 'accountant'] as const) expect(homeOf(as(role))).toBe('overview');
-    expect(homeOf(as('technician', 'location_lead'))).toBe('overview');
-    expect(homeOf(as('warranty_clerk', 'location_lead'))).toBe('overview');
+  it('lands the accountant, and a person without a role, on the overview', () => {
+    expect(homeOf(as('accountant'))).toBe('overview');
     expect(homeOf([])).toBe('overview');
   });
 });

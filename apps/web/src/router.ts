@@ -162,6 +162,12 @@ export const router = createRouter({
           meta: { action: 'read', subject: 'Claim', title: 'Claim' },
         },
         {
+          path: 'shop-week',
+          name: 'shop-week',
+          component: () => import('./views/home/ShopWeek.vue'),
+          meta: { action: 'plan', subject: 'Build', title: 'This week' },
+        },
+        {
           path: 'my-bay',
           name: 'my-bay',
           component: () => import('./views/home/MyBay.vue'),

@@ -1,16 +1,16 @@
 import { ROLES, type AssignmentView, type Role } from '@busbar/shared';
 
-type Home = 'overview' | 'claims' | 'compare' | 'my-bay';
+type Home = 'overview' | 'claims' | 'compare' | 'my-bay' | 'shop-week';
 
 /**
  * Where each role lands after signing in (DESIGN.md, "home"): the owner and regional managers on
- * the comparison of their locations, technicians on their bay, the clerk on the claim queue; the
- * others' own homes come with their screens, the overview until then.
+ * the comparison of their locations, leads on their shop's week, technicians on their bay, the
+ * clerk on the claim queue; the accountant's home comes with month close, the overview until then.
  */
 const HOME_BY_ROLE: Record<Role, Home> = {
   owner: 'compare',
   regional_manager: 'compare',
-  location_lead: 'overview',
+  location_lead: 'shop-week',
   technician: 'my-bay',
   warranty_clerk: 'claims',
   accountant: 'overview',

@@ -3,6 +3,7 @@ import {
   AuditOutlined,
   BarChartOutlined,
   BarcodeOutlined,
+  CalendarOutlined,
   CarOutlined,
   ContactsOutlined,
   EnvironmentOutlined,
@@ -23,6 +24,7 @@ export type NavigationGroup = 'Shop floor' | 'Warranty' | 'Network';
 /** The main menu; each entry opens the route of the same name, whose meta says who may use it. */
 export const NAVIGATION: { route: string; label: string; icon: Component; group?: NavigationGroup }[] = [
   { route: 'overview', label: 'Overview', icon: HomeOutlined },
+  { route: 'shop-week', label: 'This week', icon: CalendarOutlined, group: 'Shop floor' },
   { route: 'my-bay', label: 'My bay today', icon: CarOutlined, group: 'Shop floor' },
   { route: 'builds', label: 'Builds', icon: ToolOutlined, group: 'Shop floor' },
   { route: 'plans', label: 'Quick plans', icon: ThunderboltOutlined, group: 'Shop floor' },

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { sortedBy } from '../../apps/web/src/views/network/comparedFigures.ts';
+import { mondayOf, weekFrom } from '../../apps/web/src/views/home/shopWeek.ts';
 import { addMonths, lastDayOf, monthsOf, readRange } from '../../apps/web/src/views/network/comparedMonths.ts';
 
 describe('the months a comparison covers', () => {
@@ -42,5 +43,20 @@ describe('ordering the shops', () => {
   it('puts shops without the figure last, whichever way the order goes', () => {
     expect(sortedBy(rows, 'claimsPer100Builds', 'descend').map((r) => r.code)).toEqual(['A', 'C', 'B']);
     expect(sortedBy(rows, 'claimsPer100Builds', 'ascend').map((r) => r.code)).toEqual(['C', 'A', 'B']);
+  });
+});
+
+describe("a shop's week", () => {
+  // Weekdays as GNU date names them (date -d 2026-12-03 +%A: Thursday).
+  it('counts deliveries from the Monday of the week, across month and year ends', () => {
+    expect(mondayOf('2026-12-03')).toBe('2026-11-30');
+    expect(mondayOf('2026-11-30')).toBe('2026-11-30');
+    expect(mondayOf('2026-12-06')).toBe('2026-11-30');
+    expect(mondayOf('2027-01-01')).toBe('2026-12-28');
+    expect(mondayOf('2024-02-29')).toBe('2024-02-26');
+  });
+
+  it('books the next seven days from today, through the end of a leap February', () => {
+    expect(weekFrom('2024-02-26')).toEqual(['2024-02-26', '2024-02-27', '2024-02-28', '2024-02-29', '2024-03-01', '2024-03-02', '2024-03-03']);
   });
 });
