@@ -22,6 +22,7 @@ import * as fillPlanMargins from './020-fill-plan-margins.ts';
 import * as createRollups from './021-create-rollups.ts';
 import * as createAccessChanges from './022-create-access-changes.ts';
 import * as indexBuildsDeliveredOn from './023-index-builds-delivered-on.ts';
+import * as addWeeklyDigest from './024-add-weekly-digest.ts';
 
 /** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
 export const migrations: Record<string, Migration> = {
@@ -48,4 +49,5 @@ export const migrations: Record<string, Migration> = {
   '021-create-rollups': createRollups,
   '022-create-access-changes': createAccessChanges,
   '023-index-builds-delivered-on': indexBuildsDeliveredOn,
+  '024-add-weekly-digest': addWeeklyDigest,
 };

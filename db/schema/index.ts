@@ -20,7 +20,7 @@ import type { RoleAssignmentsTable } from './role-assignments.ts';
 import type { RollupFiguresTable } from './rollups.ts';
 import type { SessionsTable } from './sessions.ts';
 import type { PlanMarginsTable, UnitExposureBandsNetworkTable, UnitExposureBandsTable, UnitExposureNetworkTable, UnitExposureTable, UnitFailuresTable } from './unit-exposure.ts';
-import type { UsersTable } from './users.ts';
+import type { UsersTable, WeeklyDigestsTable } from './users.ts';
 
 export interface Database {
   regions: RegionsTable;
@@ -51,4 +51,5 @@ export interface Database {
   unitFailures: UnitFailuresTable;
   rollupFigures: RollupFiguresTable;
   accessChanges: AccessChangesTable;
+  weeklyDigests: WeeklyDigestsTable;
 }

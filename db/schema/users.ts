@@ -9,4 +9,13 @@ export interface UsersTable {
   status: 'active' | 'invited' | 'inactive';
   createdAt: string;
   lastSignInAt: string | null;
+  /** 1 while the person wants the weekly e-mail of last week's figures (leads and regional managers get one). */
+  weeklyDigest: Generated<number>;
+}
+
+export interface WeeklyDigestsTable {
+  userId: number;
+  /** The Monday of the week the e-mail covered (the roll-ups' week key). */
+  week: string;
+  sentAt: string;
 }

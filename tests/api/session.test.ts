@@ -39,7 +39,7 @@ describe('sign-in and sign-out', () => {
     const agent = await h.agent();
     const res = await agent.post('/api/session').send({ email: SIGN_INS.lead, password: DEMO_PASSWORD });
     expect(res.status).toBe(200);
-    expect(res.body.person).toEqual({ id: ids.user(SIGN_INS.lead), email: SIGN_INS.lead, name: 'Priya Halvorsen' });
+    expect(res.body.person).toEqual({ id: ids.user(SIGN_INS.lead), email: SIGN_INS.lead, name: 'Priya Halvorsen', weeklyDigest: true });
     expect(res.body.assignments).toEqual([
       expect.objectContaining({ role: 'location_lead', scope: 'location', locationId: ids.location('DEN'), locationCode: 'DEN' }),
     ]);

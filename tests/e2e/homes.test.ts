@@ -102,4 +102,21 @@ describe('homes: locations compared and my bay', () => {
     await page.getByRole('heading', { level: 1, name: new RegExp(numbers[0]!.replace(/[-]/g, '\\-')) }).waitFor();
     await page.context().close();
   });
+
+  it('a lead turns the weekly e-mail off on the overview, and it stays off', async () => {
+    const page = await e2e.newPage();
+    await e2e.signIn(page, 'lead2@demo.busbar.test');
+    await page.getByRole('navigation').getByText('Overview', { exact: true }).click();
+    const choice = page.getByRole('switch');
+    await choice.waitFor();
+    expect(await choice.getAttribute('aria-checked')).toBe('true');
+    await choice.click();
+    await expect.poll(async () => (await e2e.harness.db.selectFrom('users').select('weeklyDigest').where('email', '=', 'lead2@demo.busbar.test').executeTakeFirstOrThrow()).weeklyDigest).toBe(0);
+    // Opening Busbar again lands on the shop's week; the overview keeps the choice.
+    await page.reload();
+    await page.getByRole('heading', { level: 1, name: 'Asheville this week' }).waitFor();
+    await page.getByRole('navigation').getByText('Overview', { exact: true }).click();
+    await expect.poll(() => page.getByRole('switch').getAttribute('aria-checked')).toBe('false');
+    await page.context().close();
+  });
 });

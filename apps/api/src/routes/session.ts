@@ -1,6 +1,7 @@
-import { signInBody, type SessionView } from '@busbar/shared';
+import type { Db } from '@busbar/db';
+import { sessionSettingsBody, signInBody, type SessionView } from '@busbar/shared';
 import { Router, type Request, type Response } from 'express';
-import { loadViewer } from '../access/viewer.ts';
+import { loadViewer, type Viewer } from '../access/viewer.ts';
 import { hashPassword, needsRehash, unmatchableHash, verifyPassword } from '../auth/password.ts';
 import type { AppContext } from '../context.ts';
 import { HttpError } from '../errors.ts';
@@ -20,20 +21,37 @@ export async function signIn({ db, now }: AppContext, req: Request, res: Respons
   await recordSignIn(db, userId, now().toISOString());
   const viewer = await loadViewer(db, userId);
   if (!viewer) throw new HttpError(401, 'unauthenticated', 'Please sign in');
-  res.json(sessionView(viewer, now()));
+  res.json(await sessionView(db, viewer, now()));
 }
 
-function sessionView(viewer: NonNullable<Awaited<ReturnType<typeof loadViewer>>>, now: Date): SessionView {
-  return { person: { id: viewer.id, email: viewer.email, name: viewer.name }, assignments: viewer.assignments, rules: viewer.rules, today: now.toISOString().slice(0, 10) };
+async function sessionView(db: Db, viewer: Viewer, now: Date): Promise<SessionView> {
+  const { weeklyDigest } = await db.selectFrom('users').select('weeklyDigest').where('id', '=', viewer.id).executeTakeFirstOrThrow();
+  return {
+    person: { id: viewer.id, email: viewer.email, name: viewer.name, weeklyDigest: weeklyDigest === 1 },
+    assignments: viewer.assignments,
+    rules: viewer.rules,
+    today: now.toISOString().slice(0, 10),
+  };
 }
 
 /** Sign-in, the current session, sign-out. */
 export function sessionRouter(ctx: AppContext): Router {
   const router = Router();
 
-  router.get('/', requireSession(ctx.db), (req, res) => {
-    res.json(sessionView(viewerOf(req), ctx.now()));
+  router.get('/', requireSession(ctx.db), async (req, res) => {
+    res.json(await sessionView(ctx.db, viewerOf(req), ctx.now()));
   });
+
+  // The person's own settings: for now, whether they get the weekly e-mail.
+  router.patch(
+    '/',
+    requireSession(ctx.db),
+    validate({ body: sessionSettingsBody }, async ({ body }, req, res) => {
+      const viewer = viewerOf(req);
+      await ctx.db.updateTable('users').set({ weeklyDigest: body.weeklyDigest ? 1 : 0 }).where('id', '=', viewer.id).execute();
+      res.json(await sessionView(ctx.db, viewer, ctx.now()));
+    }),
+  );
 
   router.post(
     '/',

@@ -2,7 +2,9 @@ import { migrateToLatest, openDatabase } from '@busbar/db';
 import { pruneSessions } from '../auth/session-store.ts';
 import type { Config } from '../config.ts';
 import { ensureDemoData } from '../demo.ts';
+import { sendWeeklyDigests } from '../digest/weekly-digest.ts';
 import { startMailCapture } from '../mail/capture.ts';
+import { createMailer } from '../mail/mailer.ts';
 import { keepPlannerStatistics } from '../queries/statistics.ts';
 
 /** Where the app's mail goes: the configured server, or the local capture this start-up runs. */
@@ -14,7 +16,8 @@ export interface MailRoute {
 /**
  * What runs once for the whole app, before any process answers requests: migrations, the demo
  * network for an empty database, the planner's statistics and session pruning (both kept up on a
- * schedule), and the local mail capture when no SMTP server is set.
+ * schedule), the local mail capture when no SMTP server is set, and the weekly e-mail (looked
+ * for every hour).
  */
 export async function prepare(config: Config, now: () => Date): Promise<MailRoute> {
   const db = openDatabase(config.databaseFile);
@@ -25,6 +28,15 @@ export async function prepare(config: Config, now: () => Date): Promise<MailRout
   await keepPlannerStatistics(db);
   await pruneSessions(db, now());
   setInterval(() => void pruneSessions(db, now()), 3_600_000).unref();
+  const mail = await mailRoute(config);
+  const mailer = createMailer(db, mail.smtpUrl, config.mailFrom, now, mail.captured);
+  const sendDigests = () => void sendWeeklyDigests(db, mailer, config.publicUrl, now()).catch((error: unknown) => console.error('The weekly e-mail failed:', error));
+  sendDigests();
+  setInterval(sendDigests, 3_600_000).unref();
+  return mail;
+}
+
+async function mailRoute(config: Config): Promise<MailRoute> {
   if (config.smtpUrl) return { smtpUrl: config.smtpUrl, captured: false };
   const capture = await startMailCapture(config.smtpCapturePort).catch(() => startMailCapture(0));
   console.log(`No SMTP_URL set: mail is captured locally (port ${capture.port}) and listed in the Outbox.`);

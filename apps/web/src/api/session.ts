@@ -1,9 +1,11 @@
-import type { AcceptInviteBody, InviteView, SessionView, SignInBody } from '@busbar/shared';
+import type { AcceptInviteBody, InviteView, SessionSettingsBody, SessionView, SignInBody } from '@busbar/shared';
 import { request } from './client.ts';
 
 export const getSession = () => request<SessionView>('/session');
 
 export const signIn = (body: SignInBody) => request<SessionView>('/session', { method: 'POST', body });
+
+export const changeSettings = (body: SessionSettingsBody) => request<SessionView>('/session', { method: 'PATCH', body });
 
 export const signOut = () => request<void>('/session', { method: 'DELETE' });
 

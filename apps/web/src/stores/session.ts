@@ -1,4 +1,4 @@
-import { createAbility, type AcceptInviteBody, type SessionView, type SignInBody } from '@busbar/shared';
+import { createAbility, type AcceptInviteBody, type SessionSettingsBody, type SessionView, type SignInBody } from '@busbar/shared';
 import { defineStore } from 'pinia';
 import { computed, ref } from 'vue';
 import { ApiError, messageOf } from '../api/client.ts';
@@ -43,6 +43,11 @@ export const useSessionStore = defineStore('session', () => {
     loadError.value = null;
   }
 
+  /** Changes the person's own settings (the weekly e-mail) and takes the answer as the session. */
+  async function changeSettings(body: SessionSettingsBody) {
+    apply(await api.changeSettings(body));
+  }
+
   async function acceptInvite(body: AcceptInviteBody) {
     apply(await api.acceptInvite(body));
     loadError.value = null;
@@ -63,5 +68,5 @@ export const useSessionStore = defineStore('session', () => {
     apply(null);
   }
 
-  return { person, assignments, today, loadError, ensureLoaded, signIn, acceptInvite, signOut, forget };
+  return { person, assignments, today, loadError, ensureLoaded, signIn, changeSettings, acceptInvite, signOut, forget };
 });

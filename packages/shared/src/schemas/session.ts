@@ -25,7 +25,13 @@ export interface SessionPerson {
   id: number;
   email: string;
   name: string;
+  /** Whether they get the weekly e-mail of last week's figures (sent to leads and regional managers). */
+  weeklyDigest: boolean;
 }
+
+/** A person's own settings, changed by themselves. */
+export const sessionSettingsBody = z.strictObject({ weeklyDigest: z.boolean({ error: 'Say whether you want the weekly e-mail' }) });
+export type SessionSettingsBody = z.infer<typeof sessionSettingsBody>;
 
 /** What sign-in and `GET /api/session` answer. */
 export interface SessionView {
