@@ -52,7 +52,7 @@ describe('invites', () => {
     const newcomer = await h.agent();
     const accepted = await newcomer.post('/api/invites/accept').send({ token, password: 'amp-hours-all-day' });
     expect(accepted.status).toBe(200);
-    expect(accepted.body.person).toEqual({ id: invited.body.id, email, name: 'Nell Brightwater' });
+    expect(accepted.body.person).toEqual({ id: invited.body.id, email, name: 'Nell Brightwater', weeklyDigest: true });
     const session = await newcomer.get('/api/session');
     expect(session.status).toBe(200);
     expect(session.body.assignments).toEqual([expect.objectContaining({ role: 'technician', locationId: ids.location('DEN') })]);
