@@ -100,6 +100,10 @@ describe('homes: locations compared and my bay', () => {
     expect(box.width).toBeGreaterThan(250);
     await cards.first().click();
     await page.getByRole('heading', { level: 1, name: new RegExp(numbers[0]!.replace(/[-]/g, '\\-')) }).waitFor();
+    // The build says where it stands along its stages, in words, and the tab names it.
+    const track = page.getByRole('list', { name: 'Where the build stands' });
+    expect(await track.locator('[aria-current="step"]').textContent()).toMatch(/^(In the bay|Final check)\s*\(now\)$/);
+    await expect.poll(() => page.title()).toBe(`Build ${numbers[0]} · Builds · Busbar`);
     await page.context().close();
   });
 

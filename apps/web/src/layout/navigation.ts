@@ -16,16 +16,21 @@ import {
   ThunderboltOutlined,
   ToolOutlined,
 } from '@ant-design/icons-vue';
+import type { Role } from '@busbar/shared';
 import type { Component } from 'vue';
 
 /** The kinds of work the menu is grouped by (DESIGN.md, "Look"); the overview stands above them. */
 export type NavigationGroup = 'Shop floor' | 'Warranty' | 'Network';
 
-/** The main menu; each entry opens the route of the same name, whose meta says who may use it. */
-export const NAVIGATION: { route: string; label: string; icon: Component; group?: NavigationGroup }[] = [
+/**
+ * The main menu; each entry opens the route of the same name, whose meta says who may use it.
+ * `roles` keeps a person's own work (their bay, their shop's week) to those who do it: the owner
+ * may open every page but leads no bay.
+ */
+export const NAVIGATION: { route: string; label: string; icon: Component; group?: NavigationGroup; roles?: Role[] }[] = [
   { route: 'overview', label: 'Overview', icon: HomeOutlined },
-  { route: 'shop-week', label: 'This week', icon: CalendarOutlined, group: 'Shop floor' },
-  { route: 'my-bay', label: 'My bay today', icon: CarOutlined, group: 'Shop floor' },
+  { route: 'shop-week', label: 'This week', icon: CalendarOutlined, group: 'Shop floor', roles: ['location_lead'] },
+  { route: 'my-bay', label: 'My bay today', icon: CarOutlined, group: 'Shop floor', roles: ['location_lead', 'technician'] },
   { route: 'builds', label: 'Builds', icon: ToolOutlined, group: 'Shop floor' },
   { route: 'plans', label: 'Quick plans', icon: ThunderboltOutlined, group: 'Shop floor' },
   { route: 'customers', label: 'Customers', icon: ContactsOutlined, group: 'Shop floor' },
