@@ -32,6 +32,8 @@ describe('homes: locations compared and my bay', () => {
     const top = shopRows(page).first();
     await expect.poll(() => top.locator('td').first().textContent()).toBe('AUS Austin');
     await top.getByText('▲ Above the funnel').waitFor();
+    // Failure highlights of the region's shops: the components failing more than their peers.
+    await page.locator('.watch').getByText('Components to watch').waitFor();
     const delivered = Number((await top.locator('td').nth(1).textContent())!.replace(/,/g, ''));
 
     await top.getByRole('link', { name: 'Austin: its delivered builds of these months' }).click();
