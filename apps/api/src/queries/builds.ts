@@ -20,9 +20,10 @@ function buildsWithNames(db: Db) {
       'b.status', 'b.leadTechnicianId', 't.name as leadTechnicianName', 'b.bookedFor', 'b.startedAt', 'b.deliveredAt',
       'b.laborHours', 'b.laborRateCents', 'b.laborCents', 'b.partsPriceCents', 'b.partsCostCents', 'b.totalCents',
       'b.notes', 'b.version', 'b.createdAt', 'b.updatedAt',
-      // Lines of serial-numbered parts still without a serial (a few lines per build, read by its index).
+      // Lines of serial-numbered parts still without a serial: a few lines per build, read by the
+      // build's index. The + keeps SQLite off the serial-number index, where "no serial" is millions of lines.
       sql<number>`(select count(*) from build_items i join catalog_items ci on ci.id = i.catalog_item_id
-        where i.build_id = b.id and ci.serialized = 1 and i.serial_number is null and i.removed_on is null)`.as('serialsToRecord'),
+        where i.build_id = b.id and ci.serialized = 1 and +i.serial_number is null and +i.removed_on is null)`.as('serialsToRecord'),
     ]);
 }
 
