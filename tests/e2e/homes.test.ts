@@ -24,6 +24,10 @@ describe('homes: locations compared and my bay', () => {
     await page.getByRole('heading', { level: 1, name: 'Locations compared' }).waitFor();
     // The harness's clock stands at June 15, 2026: the last 12 whole months.
     await page.getByText('Jun 2025 – May 2026', { exact: false }).waitFor();
+    // The last whole month's figures for the region's shops together, against April and May 2025.
+    const key = page.getByRole('region', { name: 'May 2026' });
+    await key.getByText('Builds delivered').waitFor();
+    expect(await key.locator('.tile-change').allTextContents()).toEqual(expect.arrayContaining([expect.stringMatching(/(on Apr 2026|= Apr 2026)$/)]));
     await expect.poll(() => shopRows(page).count()).toBe(4);
     expect(await page.locator('.ant-table-summary').textContent()).toMatch(/^Network median of 8 shops/);
 

@@ -1,0 +1,79 @@
+import type { Rollups } from '@busbar/shared';
+import { monthName } from './comparedMonths.ts';
+
+/** The person's shops together in one month. */
+interface MonthSums {
+  delivered: number;
+  revenueCents: number | null;
+  claims: number;
+}
+
+export interface KeyFigure {
+  label: string;
+  value: string;
+  /** Against the month before and the same month a year before, in words with a shape (▲ ▼ =). */
+  changes: string[];
+}
+
+const whole = new Intl.NumberFormat('en-US');
+const dollars = new Intl.NumberFormat('en-US', { style: 'currency', currency: 'USD', maximumFractionDigits: 0 });
+const tenth = new Intl.NumberFormat('en-US', { minimumFractionDigits: 1, maximumFractionDigits: 1 });
+
+function sumsOf(rollups: Rollups, period: string): MonthSums {
+  const rows = rollups.rows.filter((r) => r.period === period);
+  const money = rows.every((r) => r.revenueCents !== undefined);
+  return {
+    delivered: rows.reduce((n, r) => n + r.buildsDelivered, 0),
+    revenueCents: money ? rows.reduce((n, r) => n + (r.revenueCents ?? 0), 0) : null,
+    claims: rows.reduce((n, r) => n + r.claimsOpened, 0),
+  };
+}
+
+const per100 = (s: MonthSums) => (s.delivered > 0 ? (s.claims * 100) / s.delivered : null);
+
+/** "▲ 12 % on Oct 2026", "▼ 3 % on Nov 2025", "= Oct 2026"; nothing to compare with says so. */
+function percentChange(now: number | null, then: number | null, month: string): string {
+  if (now === null || then === null) return `none to compare in ${monthName(month)}`;
+  if (then === 0) return now === 0 ? `= ${monthName(month)}` : `▲ from none in ${monthName(month)}`;
+  const change = Math.round(((now - then) / then) * 100);
+  return change === 0 ? `= ${monthName(month)}` : `${change > 0 ? '▲' : '▼'} ${Math.abs(change)} % on ${monthName(month)}`;
+}
+
+/** Claims per 100 builds change in points, not percent: "▲ 2.5 points on Oct 2026". */
+function pointChange(now: number | null, then: number | null, month: string): string {
+  if (now === null || then === null) return `none to compare in ${monthName(month)}`;
+  const change = Math.round((now - then) * 10) / 10;
+  return change === 0 ? `= ${monthName(month)}` : `${change > 0 ? '▲' : '▼'} ${tenth.format(Math.abs(change))} points on ${monthName(month)}`;
+}
+
+/**
+ * The last month of a monthly roll-up for the person's shops together: builds delivered, revenue
+ * (when the person reads it), claims per 100 builds, each against the month before and the same
+ * month a year before.
+ */
+export function keyFigures(rollups: Rollups): { month: string; figures: KeyFigure[] } | null {
+  const last = rollups.periods.at(-1);
+  if (!last) return null;
+  const [now, before, yearBefore] = [last.period, last.previous, last.lastYear].map((p) => sumsOf(rollups, p)) as [MonthSums, MonthSums, MonthSums];
+  const figures: KeyFigure[] = [
+    {
+      label: 'Builds delivered',
+      value: whole.format(now.delivered),
+      changes: [percentChange(now.delivered, before.delivered, last.previous), percentChange(now.delivered, yearBefore.delivered, last.lastYear)],
+    },
+  ];
+  if (now.revenueCents !== null) {
+    figures.push({
+      label: 'Revenue',
+      value: dollars.format(now.revenueCents / 100),
+      changes: [percentChange(now.revenueCents, before.revenueCents, last.previous), percentChange(now.revenueCents, yearBefore.revenueCents, last.lastYear)],
+    });
+  }
+  const rate = per100(now);
+  figures.push({
+    label: 'Claims per 100 builds',
+    value: rate === null ? '—' : tenth.format(rate),
+    changes: [pointChange(rate, per100(before), last.previous), pointChange(rate, per100(yearBefore), last.lastYear)],
+  });
+  return { month: last.period, figures };
+}
