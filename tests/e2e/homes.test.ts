@@ -129,4 +129,14 @@ describe('homes: locations compared and my bay', () => {
     await expect.poll(() => page.getByRole('switch').getAttribute('aria-checked')).toBe('false');
     await page.context().close();
   });
+
+  it('the accountant compares every shop, without the failure highlights they may not read', async () => {
+    const page = await e2e.newPage();
+    await e2e.signIn(page, 'accountant@demo.busbar.test');
+    await page.getByRole('navigation').getByText('Locations compared', { exact: true }).click();
+    await expect.poll(() => shopRows(page).count()).toBe(8);
+    expect(await page.getByText('Failure highlights').count()).toBe(0);
+    expect(await page.locator('.ant-alert').count()).toBe(0);
+    await page.context().close();
+  });
 });
