@@ -84,7 +84,9 @@ export class DbSessionStore extends session.Store {
 }
 
 function lifetime(sess: session.SessionData): number {
-  return sess.cookie?.originalMaxAge ?? 86_400_000;
+  // express-session works the cookie's original lifetime out from its expiry and the wall clock, so
+  // it can come out a millisecond short; sessions last whole seconds.
+  return Math.round((sess.cookie?.originalMaxAge ?? 86_400_000) / 1000) * 1000;
 }
 
 /** Removes sessions past their expiry; run at start-up and now and then. */
