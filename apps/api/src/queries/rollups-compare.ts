@@ -28,7 +28,7 @@ function compared(sums: RollupSums): ComparedFigures {
 }
 
 /** `figures` (or outlier marks) without the money the person may not read. */
-function readable<T extends object>(figures: T, reads: MoneyReads): T {
+function moneyShown<T extends object>(figures: T, reads: MoneyReads): T {
   return Object.fromEntries(Object.entries(figures).filter(([field]) => (reads.prices || !PRICE_FIGURES.includes(field)) && (reads.costs || !COST_FIGURES.includes(field)))) as T;
 }
 
@@ -78,9 +78,9 @@ export async function compareLocations(db: Db, query: ComparisonQuery, scope: Lo
   return {
     ...query,
     comparedLocations: active.length,
-    median: readable(medians, reads(scope === 'all' ? locations.map((l) => l.id) : scope)),
+    median: moneyShown(medians, reads(scope === 'all' ? locations.map((l) => l.id) : scope)),
     locations: all
       .filter((f) => inScope(f.locationId))
-      .map((f) => ({ locationId: f.locationId, figures: readable(f.figures, reads([f.locationId])), outliers: readable(marks.get(f.locationId) ?? {}, reads([f.locationId])) })),
+      .map((f) => ({ locationId: f.locationId, figures: moneyShown(f.figures, reads([f.locationId])), outliers: moneyShown(marks.get(f.locationId) ?? {}, reads([f.locationId])) })),
   };
 }

@@ -1,7 +1,8 @@
 import type { ComparedFigure, ComparedFigures, LocationComparison } from '@busbar/shared';
-const whole = new Intl.NumberFormat('en-US', { maximumFractionDigits: 0 });
-const tenth = new Intl.NumberFormat('en-US', { minimumFractionDigits: 1, maximumFractionDigits: 1 });
-const dollars = new Intl.NumberFormat('en-US', { style: 'currency', currency: 'USD', maximumFractionDigits: 0 });
+/** How the network screens write counts, whole dollars and tenths. */
+export const whole = new Intl.NumberFormat('en-US', { maximumFractionDigits: 0 });
+export const tenth = new Intl.NumberFormat('en-US', { minimumFractionDigits: 1, maximumFractionDigits: 1 });
+export const dollars = new Intl.NumberFormat('en-US', { style: 'currency', currency: 'USD', maximumFractionDigits: 0 });
 const share = (value: number) => `${tenth.format(value * 100)} %`;
 
 /** The compared figures in the order the table shows them, each with its heading and format. */

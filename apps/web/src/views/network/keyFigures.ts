@@ -1,4 +1,5 @@
 import type { Rollups } from '@busbar/shared';
+import { dollars, tenth, whole } from './comparedFigures.ts';
 import { monthName } from './comparedMonths.ts';
 
 /** The person's shops together in one month. */
@@ -15,9 +16,6 @@ export interface KeyFigure {
   changes: string[];
 }
 
-const whole = new Intl.NumberFormat('en-US');
-const dollars = new Intl.NumberFormat('en-US', { style: 'currency', currency: 'USD', maximumFractionDigits: 0 });
-const tenth = new Intl.NumberFormat('en-US', { minimumFractionDigits: 1, maximumFractionDigits: 1 });
 
 function sumsOf(rollups: Rollups, period: string): MonthSums {
   const rows = rollups.rows.filter((r) => r.period === period);
