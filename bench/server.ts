@@ -1,6 +1,7 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import { readdirSync, readFileSync } from 'node:fs';
 import { createServer } from 'node:net';
+import { API_DIST, buildApi } from '../scripts/build-api.ts';
 
 /** Highest resident memory so far (VmHWM) of the largest of the app's processes and of all of them, in MiB. */
 export interface PeakMemory {
@@ -38,10 +39,10 @@ async function waitUntilUp(baseUrl: string, child: ChildProcess, log: () => stri
   throw new Error(`the app did not answer within 5 minutes:\n${log()}`);
 }
 
-const APP = 'apps/api/src/main.ts';
+const APP = `${API_DIST}/main.mjs`;
 const peakMiB = (pid: number) => Number(/VmHWM:\s+(\d+) kB/.exec(readFileSync(`/proc/${pid}/status`, 'utf8'))?.[1] ?? 0) / 1024;
 
-/** The app's child processes: the processes it answers on (one per CPU: see apps/api/src/start/workers.ts) and any helper (tsx's compiler). */
+/** The app's child processes: the processes it answers on (one per CPU: see apps/api/src/start/workers.ts) and any helper. */
 function childrenOf(pid: number): number[] {
   return readdirSync(`/proc/${pid}/task`).flatMap((task) =>
     readFileSync(`/proc/${pid}/task/${task}/children`, 'utf8').split(' ').filter(Boolean).map(Number),
@@ -49,12 +50,13 @@ function childrenOf(pid: number): number[] {
 }
 
 /**
- * Starts the real app (apps/api/src/main.ts) as its own process on a free port, on the database
- * in `dataDir`, with `env` added to its environment.
+ * Starts the real app as `pnpm start` does (built to dist/api by scripts/build-api.ts), as its
+ * own process on a free port, on the database in `dataDir`, with `env` added to its environment.
  */
 export async function startApp(dataDir: string, env: Record<string, string> = {}): Promise<RunningApp> {
   const port = await freePort();
-  const child = spawn(process.execPath, ['--import', 'tsx', APP], {
+  await buildApi();
+  const child = spawn(process.execPath, [APP], {
     env: { ...process.env, PORT: String(port), BUSBAR_DATA_DIR: dataDir, SMTP_CAPTURE_PORT: '0', NODE_ENV: 'production', ...env },
     stdio: ['ignore', 'pipe', 'pipe'],
   });

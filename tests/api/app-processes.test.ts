@@ -8,7 +8,7 @@ import { demoIds, startHarness, type Harness } from '../support/api-harness.ts';
 import { SIGN_INS } from '../support/staff-fixtures.ts';
 
 /**
- * The real app started as `pnpm start` starts it, with two processes sharing the port. Every
+ * The real app started as `pnpm start` starts it (built to JavaScript), with two processes sharing the port. Every
  * request goes on a new connection, so requests are dealt out to both processes in turn.
  */
 let h: Harness;
@@ -55,6 +55,16 @@ describe('the app on two processes', () => {
     expect(invited.status).toBe(201);
     const outbox = JSON.parse((await call(owner, 'GET', '/api/outbox')).body) as { items: { to: string; status: string }[] };
     expect(outbox.items.find((m) => m.to === 'nell.brightwater@example.test')?.status).toBe('sent');
+  });
+
+  it('runs long reads on the background thread of each process, built as the app is', async () => {
+    const owner = await person(SIGN_INS.owner);
+    for (let i = 0; i < 2; i++) {
+      const answer = await call(owner, 'GET', '/api/rollups?from=2026-01-01&to=2026-03-31&grain=month');
+      expect(answer.status).toBe(200);
+      expect((JSON.parse(answer.body) as { periods: { period: string }[] }).periods.map((p) => p.period)).toEqual(['2026-01', '2026-02', '2026-03']);
+      expect((await call(owner, 'GET', '/api/reliability?groupBy=vendor')).status).toBe(200);
+    }
   });
 
   it('keeps answering on the other process when one stops, and starts another in its place', async () => {

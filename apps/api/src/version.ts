@@ -1,4 +1,4 @@
-import { readFileSync } from 'node:fs';
+import api from '../package.json' with { type: 'json' };
 
-/** The version in apps/api/package.json, read once. */
-export const version: string = JSON.parse(readFileSync(new URL('../package.json', import.meta.url), 'utf8')).version;
+/** The version in apps/api/package.json (built into dist/api by scripts/build-api.ts). */
+export const version: string = api.version;

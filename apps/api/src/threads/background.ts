@@ -1,6 +1,9 @@
 import { JobThread } from './job-thread.ts';
 import type * as Jobs from './jobs.ts';
 
+/** `.ts` where this runs as TypeScript (tsx), `.mjs` where it was built (scripts/build-api.ts puts jobs.mjs beside it). */
+const ownExtension = () => /\.[a-z]+$/.exec(new URL(import.meta.url).pathname)![0];
+
 /**
  * The one thread each app process runs long work on (jobs.ts): reads that take tens or hundreds
  * of milliseconds on a large network (a category's reliability over every shop, a year of
@@ -10,4 +13,4 @@ import type * as Jobs from './jobs.ts';
  * by default) keeps an import's many short-lived row objects from pushing the app past its memory
  * target; the largest file (5,000 rows, 5 MB) fits the old generation with room to spare.
  */
-export const background = new JobThread<typeof Jobs>(new URL('./jobs.ts', import.meta.url), { maxYoungGenerationSizeMb: 8, maxOldGenerationSizeMb: 256 });
+export const background = new JobThread<typeof Jobs>(new URL(`./jobs${ownExtension()}`, import.meta.url), { maxYoungGenerationSizeMb: 8, maxOldGenerationSizeMb: 256 });

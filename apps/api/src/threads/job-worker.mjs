@@ -1,10 +1,12 @@
 // A job thread (job-thread.ts). Plain JavaScript, because a worker starts without the TypeScript
-// loader the API runs under: tsx loads the module of jobs here, once. Each job is answered with
-// { id, result } or { id, error }, the error with the fields the error middleware reads.
+// loader the API may run under: under tsx (tests, `pnpm dev:api`) the module of jobs is loaded
+// through tsx here, once; built (`pnpm start`, scripts/build-api.ts) it is plain JavaScript. Each
+// job is answered with { id, result } or { id, error }, the error with the fields the error
+// middleware reads.
 import { parentPort, workerData } from 'node:worker_threads';
-import { tsImport } from 'tsx/esm/api';
 
-const jobs = await tsImport(workerData.module, import.meta.url);
+const load = async (module) => (module.endsWith('.ts') ? (await import('tsx/esm/api')).tsImport(module, import.meta.url) : import(module));
+const jobs = await load(workerData.module);
 
 parentPort.on('message', async ({ id, name, args }) => {
   try {
