@@ -1,10 +1,10 @@
 import { funnelSide, median, MODIFIED_Z_LIMIT, modifiedZScores } from '@busbar/calc';
 import type { Db } from '@busbar/db';
-import { COMPARED_FIGURES, periodKey, periodNumber, type ComparedFigures, type ComparisonQuery, type LocationComparison } from '@busbar/shared';
+import { COMPARED_FIGURES, periodKey, periodNumber, type ComparedFigures, type ComparisonQuery, type LocationComparison, type RollupFigures } from '@busbar/shared';
+import { sql } from 'kysely';
 import type { LocationScope } from '../access/locations.ts';
-import { addInto, figuresOf, noSums, type MoneyReads } from './rollups-figures.ts';
+import { figuresJson, summed, type MoneyReads } from './rollups-json.ts';
 import { moneyReads, type MoneyScopes } from './rollups-report.ts';
-import { locationRegions, locationSums, type RollupSums } from './rollups.ts';
 
 type Outliers = LocationComparison['locations'][number]['outliers'];
 
@@ -13,14 +13,13 @@ const FUNNEL_CONFIDENCE = 0.998;
 const PRICE_FIGURES: readonly string[] = ['revenueCents', 'averageTicketCents', 'warrantyCostShare'];
 const COST_FIGURES: readonly string[] = ['grossMarginShare'];
 
-function compared(sums: RollupSums): ComparedFigures {
-  const all = figuresOf({}, sums, { prices: true, costs: true });
+function compared(all: RollupFigures): ComparedFigures {
   return {
     buildsDelivered: all.buildsDelivered,
     claimsOpened: all.claimsOpened,
     revenueCents: all.revenueCents!,
     averageTicketCents: all.averageTicketCents!,
-    grossMarginShare: sums.revenueCents > 0 ? all.grossMarginCents! / sums.revenueCents : null,
+    grossMarginShare: all.revenueCents! > 0 ? all.grossMarginCents! / all.revenueCents! : null,
     laborHoursPerBuild: all.laborHoursPerBuild,
     claimsPer100Builds: all.claimsPer100Builds,
     warrantyCostShare: all.warrantyCostShare!,
@@ -60,10 +59,11 @@ function outliersOf(figures: { locationId: number; figures: ComparedFigures }[])
 export async function compareLocations(db: Db, query: ComparisonQuery, scope: LocationScope, money: MoneyScopes): Promise<LocationComparison> {
   const first = periodNumber('month', `${query.from}-01`);
   const keys = Array.from({ length: periodNumber('month', `${query.to}-01`) - first + 1 }, (_, i) => periodKey('month', first + i));
-  const [rows, locations] = await Promise.all([locationSums(db, 'month', keys, 'all'), locationRegions(db)]);
-  const totals = new Map(locations.map((l) => [l.id, noSums()]));
-  for (const row of rows) addInto(totals.get(row.locationId)!, row);
-  const all = [...totals].map(([locationId, sums]) => ({ locationId, figures: compared(sums) }));
+  const { rows } = await sql<{ id: number; json: string }>`
+    select l.id, ${figuresJson([], summed, { prices: true, costs: true })} as json
+    from locations l left join rollup_figures f on f.location_id = l.id and f.grain = 'month' and f.period in (${sql.join(keys)})
+    group by l.id order by l.id`.execute(db);
+  const all = rows.map((row) => ({ locationId: row.id, figures: compared(JSON.parse(row.json) as RollupFigures) }));
   const active = all.filter((f) => f.figures.buildsDelivered > 0);
   const marks = outliersOf(active);
 
@@ -78,7 +78,7 @@ export async function compareLocations(db: Db, query: ComparisonQuery, scope: Lo
   return {
     ...query,
     comparedLocations: active.length,
-    median: moneyShown(medians, reads(scope === 'all' ? locations.map((l) => l.id) : scope)),
+    median: moneyShown(medians, reads(scope === 'all' ? rows.map((l) => l.id) : scope)),
     locations: all
       .filter((f) => inScope(f.locationId))
       .map((f) => ({ locationId: f.locationId, figures: moneyShown(f.figures, reads([f.locationId])), outliers: moneyShown(marks.get(f.locationId) ?? {}, reads([f.locationId])) })),

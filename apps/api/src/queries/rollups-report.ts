@@ -1,10 +1,12 @@
 import type { Db } from '@busbar/db';
+import { sql } from 'kysely';
 import { PERIODS_A_YEAR, periodEnd, periodKey, periodNumber, periodStart, type RollupQuery, type Rollups } from '@busbar/shared';
 import { locationScope, type LocationScope } from '../access/locations.ts';
 import type { Viewer } from '../access/viewer.ts';
 import { invalidField } from '../errors.ts';
-import { addInto, figuresOf, isEmpty, noSums, numbers, type MoneyReads } from './rollups-figures.ts';
-import { locationRegions, locationSums, networkSums, type RollupSums } from './rollups.ts';
+import { byMoneyReads, figuresJson, holdsAny, jsonArrayOf, own, summed, type MoneyReads } from './rollups-json.ts';
+import { utf8Of } from '../utf8.ts';
+import { locationRegions } from './rollups.ts';
 
 /** The asked periods with the keys of the period before each and of the same period a year before. */
 export function askedPeriods({ grain, from, to }: RollupQuery) {
@@ -27,52 +29,47 @@ export function checkAnswerSize(locations: number, periods: number): void {
 
 /**
  * Roll-ups of the locations in `scope` (never empty), of each region wholly in it, and of the whole
- * network, for the asked periods and the ones they are compared with.
+ * network, for the asked periods and the ones they are compared with, as the UTF-8 bytes of the JSON
+ * of Rollups: the figures are written by SQLite (rollups-json.ts), so the thousands of rows of a year
+ * of the network never become JavaScript objects or strings.
  */
-export async function rollupReport(db: Db, query: RollupQuery, scope: LocationScope, money: MoneyScopes): Promise<Rollups> {
+export async function rollupReportJson(db: Db, query: RollupQuery, scope: LocationScope, money: MoneyScopes): Promise<Uint8Array> {
   const { grain } = query;
   const periods = askedPeriods(query);
   const keys = [...new Set(periods.flatMap((p) => [p.period, p.previous, p.lastYear]))];
   const locations = await locationRegions(db);
   checkAnswerSize(scope === 'all' ? locations.length : scope.length, keys.length);
-  const rows = await locationSums(db, grain, keys, scope);
-  const kept = rows.filter((row) => !isEmpty(row));
-  // Someone who sees every location has the network's sums in their rows already.
-  const network = scope === 'all' ? sumsByPeriod(kept) : (await networkSums(db, grain, keys)).map((row) => ({ period: row.period, sums: numbers(row) }));
-
   const reads = moneyReads(money);
-  const inScope = scope === 'all' ? null : new Set(scope);
-  const regionOf = new Map(locations.map((l) => [l.id, l.regionId]));
-  const whole = new Set(locations.map((l) => l.regionId).filter((r) => locations.every((l) => l.regionId !== r || !inScope || inScope.has(l.id))));
-  const regions = new Map<string, { regionId: number; period: string; sums: RollupSums }>();
-  for (const row of kept) {
-    const regionId = regionOf.get(row.locationId)!;
-    if (!whole.has(regionId)) continue;
-    const key = `${regionId} ${row.period}`;
-    if (!regions.has(key)) regions.set(key, { regionId, period: row.period, sums: noSums() });
-    addInto(regions.get(key)!.sums, row);
-  }
-  const regionLocations = (regionId: number) => locations.filter((l) => l.regionId === regionId).map((l) => l.id);
   const scopeIds = scope === 'all' ? locations.map((l) => l.id) : scope;
-  return {
-    grain,
-    periods,
-    rows: kept.map((row) => figuresOf({ locationId: row.locationId, period: row.period }, row, reads([row.locationId]))),
-    regions: [...regions.values()].map((r) => figuresOf({ regionId: r.regionId, period: r.period }, r.sums, reads(regionLocations(r.regionId)))),
-    network: network
-      .filter((n) => !isEmpty(n.sums))
-      .map((n) => figuresOf({ period: n.period }, n.sums, reads(scopeIds))),
-  };
+  const inScope = new Set(scopeIds);
+  const regionLocations = (regionId: number) => locations.filter((l) => l.regionId === regionId).map((l) => l.id);
+  const whole = [...new Set(locations.map((l) => l.regionId))].filter((r) => regionLocations(r).every((id) => inScope.has(id)));
+  const [locationId, regionId, period] = [sql.ref<number>('f.location_id'), sql.ref<number>('l.region_id'), sql.ref<string>('f.period')];
+  const asked = sql`f.grain = ${grain} and f.period in (${sql.join(keys)})`;
+
+  const rows = await jsonArrayOf(
+    db,
+    byMoneyReads(locationId, scopeIds, (id) => reads([id]), (r) => figuresJson([['locationId', locationId], ['period', period]], own, r)),
+    sql`rollup_figures f where ${asked} ${scope === 'all' ? sql`` : sql`and f.location_id in (${sql.join(scope)})`} and ${holdsAny(own)}`,
+  );
+  const regionSums = byMoneyReads(regionId, whole, (id) => reads(regionLocations(id)), (r) => figuresJson([['regionId', regionId], ['period', period]], summed, r));
+  const regions = await jsonArrayOf(
+    db,
+    sql`json(j)`,
+    sql`(select ${regionSums} as j from rollup_figures f join locations l on l.id = f.location_id
+      where ${asked} and l.region_id in (${sql.join(whole.length > 0 ? whole : [0])}) group by l.region_id, f.period having ${holdsAny(summed)})`,
+  );
+  const network = await jsonArrayOf(
+    db,
+    sql`json(j)`,
+    sql`(select ${figuresJson([['period', period]], summed, reads(scopeIds))} as j from rollup_figures f where ${asked} group by f.period having ${holdsAny(summed)})`,
+  );
+  return utf8Of([`{"grain":${JSON.stringify(grain)},"periods":${JSON.stringify(periods)},"rows":`, rows, ',"regions":', regions, ',"network":', network, '}']);
 }
 
-function sumsByPeriod(rows: (RollupSums & { period: string })[]) {
-  const periods = new Map<string, RollupSums>();
-  for (const row of rows) {
-    if (!periods.has(row.period)) periods.set(row.period, noSums());
-    addInto(periods.get(row.period)!, row);
-  }
-  return [...periods].map(([period, sums]) => ({ period, sums }));
-}
+/** The roll-ups as objects (the weekly e-mail's few rows). */
+export const rollupReport = async (db: Db, query: RollupQuery, scope: LocationScope, money: MoneyScopes): Promise<Rollups> =>
+  JSON.parse(new TextDecoder().decode(await rollupReportJson(db, query, scope, money)));
 
 /** Where a person reads prices and where parts costs, by the role rules. */
 export interface MoneyScopes {

@@ -25,17 +25,9 @@ export function failureAges(db: Db, filter: FailureFilter): Promise<{ days: numb
   return failuresOf(db, filter).select([sql<number>`failed_day - installed_day`.as('days'), sql<number>`count(*)`.as('failures')]).groupBy('days').execute();
 }
 
-/** Claims per location, and how many of them were the shop's workmanship. */
-export function claimsByLocation(db: Db, filter: FailureFilter): Promise<{ locationId: number; claims: number; workmanshipClaims: number }[]> {
-  return failuresOf(db, filter)
-    .select(['locationId', sql<number>`count(*)`.as('claims'), sql<number>`sum(coverage = 'workmanship')`.as('workmanshipClaims')])
-    .groupBy('locationId')
-    .execute();
-}
-
-/** Claims by failure mode and coverage. */
-export function claimShares(db: Db, filter: FailureFilter): Promise<{ failureMode: FailureMode; coverage: Coverage; claims: number }[]> {
-  return failuresOf(db, filter).select(['failureMode', 'coverage', sql<number>`count(*)`.as('claims')]).groupBy(['failureMode', 'coverage']).execute();
+/** Claims by location, failure mode and coverage: one pass that gives the funnel's counts and the shares of modes and coverages. */
+export function claimKinds(db: Db, filter: FailureFilter): Promise<{ locationId: number; failureMode: FailureMode; coverage: Coverage; claims: number }[]> {
+  return failuresOf(db, filter).select(['locationId', 'failureMode', 'coverage', sql<number>`count(*)`.as('claims')]).groupBy(['locationId', 'failureMode', 'coverage']).execute();
 }
 
 /** The catalog items of an item, category or vendor. */

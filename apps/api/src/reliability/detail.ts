@@ -11,7 +11,7 @@ import {
 import type { LocationScope } from '../access/locations.ts';
 import { notFound } from '../errors.ts';
 import { unitSums, type UnitFilter } from '../queries/unit-exposure.ts';
-import { claimsByLocation, claimShares, failureAges, itemsOf } from '../queries/unit-failures.ts';
+import { claimKinds, failureAges, itemsOf } from '../queries/unit-failures.ts';
 import { addSums, figuresOf } from './figures.ts';
 import { funnelOf, type NamedLocation } from './funnel.ts';
 import { catalogNames, labelOf } from './labels.ts';
@@ -41,8 +41,15 @@ export async function reliabilityDetail(
   const byLocation = new Map((await unitSums(db, { ...filter, scope: 'all' }, 'location', today)).map(({ key, ...s }) => [Number(key), s]));
   const failures = { itemIds: await itemsOf(db, params), ...months, scope: selected };
   const observations = observationsOf(await failureAges(db, failures), await unitSums(db, filter, 'month', today), todayDay);
-  const shares = await claimShares(db, failures);
-  const claims = new Map((await claimsByLocation(db, { ...failures, scope: 'all' })).map(({ locationId, ...c }) => [locationId, c]));
+  const kinds = await claimKinds(db, { ...failures, scope: 'all' });
+  const claims = new Map<number, { claims: number; workmanshipClaims: number }>();
+  for (const kind of kinds) {
+    const counts = claims.get(kind.locationId) ?? { claims: 0, workmanshipClaims: 0 };
+    counts.claims += kind.claims;
+    if (kind.coverage === 'workmanship') counts.workmanshipClaims += kind.claims;
+    claims.set(kind.locationId, counts);
+  }
+  const shares = kinds.filter((kind) => inSelection(kind.locationId));
   const claimsOf = <K extends string>(key: 'failureMode' | 'coverage', values: readonly K[]) =>
     values.map((value) => ({ value, claims: shares.filter((s) => s[key] === value).reduce((sum, s) => sum + s.claims, 0) })).filter((v) => v.claims > 0);
 
