@@ -95,6 +95,22 @@ describe('who reads the roll-ups', () => {
     const asLead = await rollupReport(h.db, query, scope, moneyScopes((await loadViewer(h.db, ids.user('lead@demo.busbar.test')))!));
     for (const row of asLead.rows) expect(row.partsCostCents).toEqual(expect.any(Number));
   });
+
+  it('leaves out costs row by row where a person reads them at one shop only', async () => {
+    const [den, avl] = [ids.location('DEN'), ids.location('AVL')];
+    const report = await rollupReport(h.db, { from: '2026-01-01', to: '2026-03-31', grain: 'month' }, 'all', { prices: 'all', costs: [den] });
+    const at = (id: number) => report.rows.filter((row) => row.locationId === id);
+    expect(at(den).length).toBeGreaterThan(0);
+    expect(at(avl).length).toBeGreaterThan(0);
+    for (const row of at(den)) expect(row.grossMarginCents).toBe(row.revenueCents! - row.partsCostCents!);
+    for (const row of report.rows.filter((r) => r.locationId !== den)) expect(row).not.toHaveProperty('partsCostCents');
+    // A region or the network is more than the one shop: its costs are not shown.
+    for (const row of [...report.regions, ...report.network]) {
+      expect(row).toHaveProperty('revenueCents');
+      expect(row).not.toHaveProperty('partsCostCents');
+      expect(row).not.toHaveProperty('grossMarginCents');
+    }
+  });
 });
 
 describe('asking for roll-ups', () => {
