@@ -32,8 +32,12 @@ export function locationScope(viewer: Viewer, action: 'read' | 'create', type: '
   return scope;
 }
 
-/** The scope narrowed to one location the request asks for (none of it when out of scope). */
-export function narrowScope(scope: LocationScope, locationId: number | undefined): LocationScope {
-  if (locationId === undefined) return scope;
-  return scope === 'all' || scope.includes(locationId) ? [locationId] : [];
+/**
+ * The scope narrowed to the location and the region a request asks for (both must hold; none of
+ * it when out of scope): a list filtered to a shop, or to the region chosen in the header.
+ */
+export function narrowScope(viewer: Viewer, scope: LocationScope, { locationId, regionId }: { locationId?: number | undefined; regionId?: number | undefined }): LocationScope {
+  if (locationId === undefined && regionId === undefined) return scope;
+  const ids = scope === 'all' ? viewer.locationIds : scope;
+  return ids.filter((id) => (locationId === undefined || id === locationId) && (regionId === undefined || viewer.regionOf.get(id) === regionId));
 }

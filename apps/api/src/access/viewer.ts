@@ -11,8 +11,9 @@ export interface Viewer {
   assignments: AssignmentView[];
   rules: AppRule[];
   ability: AppAbility;
-  /** Every location of the network when the viewer was loaded. */
+  /** Every location of the network when the viewer was loaded, and the region of each. */
   locationIds: number[];
+  regionOf: Map<number, number>;
   /** Where the person may do what, worked out as first asked (see locationScope). */
   scopes: Map<string, LocationScope>;
 }
@@ -48,5 +49,5 @@ export async function loadViewer(db: Db, userId: number): Promise<Viewer | null>
   ]);
   const views = assignments.map(({ userId: _, ...view }) => view);
   const rules = defineRulesFor({ id: user.id, assignments: toRuleAssignments(views, locations) });
-  return { ...user, assignments: views, rules, ability: createAbility(rules), locationIds: locations.map((l) => l.id), scopes: new Map() };
+  return { ...user, assignments: views, rules, ability: createAbility(rules), locationIds: locations.map((l) => l.id), regionOf: new Map(locations.map((l) => [l.id, l.regionId])), scopes: new Map() };
 }

@@ -76,7 +76,8 @@ export async function compareLocations(db: Db, query: ComparisonQuery, scope: Lo
   const reads = moneyReads(money);
   const inScope = (id: number) => scope === 'all' || scope.includes(id);
   return {
-    ...query,
+    from: query.from,
+    to: query.to,
     comparedLocations: active.length,
     median: moneyShown(medians, reads(scope === 'all' ? rows.map((l) => l.id) : scope)),
     locations: all

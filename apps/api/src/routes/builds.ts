@@ -21,7 +21,7 @@ export function buildsRouter({ db, now }: AppContext): Router {
     '/',
     validate({ query: buildQuery }, async ({ query }, req, res) => {
       const viewer = viewerOf(req);
-      const scope = narrowScope(locationScope(viewer, 'read', 'Build'), query.locationId);
+      const scope = narrowScope(viewer, locationScope(viewer, 'read', 'Build'), query);
       const page = await listBuilds(db, scope, query);
       res.json({ ...page, items: page.items.map((row) => buildView(viewer, row)) });
     }),

@@ -23,7 +23,8 @@ export function claimsRouter({ db, now }: AppContext): Router {
   router.get(
     '/',
     validate({ query: claimQuery }, async ({ query }, req, res) => {
-      const scope = narrowScope(locationScope(viewerOf(req), 'read', 'Claim'), query.locationId);
+      const viewer = viewerOf(req);
+      const scope = narrowScope(viewer, locationScope(viewer, 'read', 'Claim'), query);
       const at = now();
       const page = await listClaims(db, scope, query, at);
       res.json({ ...page, items: page.items.map((row) => claimView(row, at)) });

@@ -28,7 +28,7 @@ export function customersRouter({ db, now }: AppContext): Router {
       const viewer = viewerOf(req);
       const { ability } = viewer;
       if (!ability.can('read', 'Customer')) throw forbidden();
-      const scope = narrowScope(locationScope(viewer, 'read', 'Customer'), query.locationId);
+      const scope = narrowScope(viewer, locationScope(viewer, 'read', 'Customer'), query);
       const page = await listCustomers(db, {
         q: query.q,
         page: query.page,

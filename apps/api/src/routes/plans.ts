@@ -23,7 +23,8 @@ export function plansRouter({ db, now }: AppContext): Router {
   router.get(
     '/',
     validate({ query: quickPlanQuery }, async ({ query }, req, res) => {
-      const scope = narrowScope(locationScope(viewerOf(req), 'read', 'Plan'), query.locationId);
+      const viewer = viewerOf(req);
+      const scope = narrowScope(viewer, locationScope(viewer, 'read', 'Plan'), query);
       const { rows, ...page } = await listQuickPlans(db, scope, query);
       res.json({ ...page, items: await quickPlanSummaries(db, rows) });
     }),

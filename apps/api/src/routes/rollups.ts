@@ -1,6 +1,6 @@
 import { comparisonQuery, rollupQuery } from '@busbar/shared';
 import { Router } from 'express';
-import { locationScope, type LocationScope } from '../access/locations.ts';
+import { locationScope, narrowScope, type LocationScope } from '../access/locations.ts';
 import type { Viewer } from '../access/viewer.ts';
 import type { AppContext } from '../context.ts';
 import { forbidden } from '../errors.ts';
@@ -23,7 +23,7 @@ export function rollupsRouter({ db, config }: AppContext): Router {
     '/',
     validate({ query: rollupQuery }, async ({ query }, req, res) => {
       const viewer = viewerOf(req);
-      const scope = reportScope(viewer);
+      const scope = reportScope(viewer, query);
       res.type('json').send(await background.run('rollupReportOf', config.databaseFile, query, scope, moneyScopes(viewer)));
     }),
   );
@@ -32,16 +32,18 @@ export function rollupsRouter({ db, config }: AppContext): Router {
     '/locations',
     validate({ query: comparisonQuery }, async ({ query }, req, res) => {
       const viewer = viewerOf(req);
-      res.json(await compareLocations(db, query, reportScope(viewer), moneyScopes(viewer)));
+      res.json(await compareLocations(db, query, reportScope(viewer, query), moneyScopes(viewer)));
     }),
   );
 
   return router;
 }
 
-/** The locations whose figures the person reads; none is refused. */
-function reportScope(viewer: Viewer): LocationScope {
-  const scope = locationScope(viewer, 'read', 'Report');
-  if (scope !== 'all' && scope.length === 0) throw forbidden('You cannot read the figures of any location');
+/** The locations whose figures the person reads, within the shop or region asked for; none is refused. */
+function reportScope(viewer: Viewer, within: { locationId?: number | undefined; regionId?: number | undefined }): LocationScope {
+  const readable = locationScope(viewer, 'read', 'Report');
+  if (readable !== 'all' && readable.length === 0) throw forbidden('You cannot read the figures of any location');
+  const scope = narrowScope(viewer, readable, within);
+  if (scope !== 'all' && scope.length === 0) throw forbidden('You cannot read the figures of that shop or region');
   return scope;
 }

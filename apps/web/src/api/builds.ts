@@ -15,6 +15,7 @@ export type BuildSort = 'number' | 'bookedFor' | 'status' | 'totalCents' | 'upda
 export interface BuildFilter {
   status?: BuildStatus[];
   locationId?: number;
+  regionId?: number;
   technicianId?: number;
   from?: string;
   to?: string;

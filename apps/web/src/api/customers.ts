@@ -3,6 +3,7 @@ import { request } from './client.ts';
 
 export interface CustomerFilter {
   locationId?: number;
+  regionId?: number;
   q?: string;
   page?: number;
   pageSize?: number;

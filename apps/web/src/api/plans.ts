@@ -8,7 +8,7 @@ export const saveBuildPlan = (buildId: number, body: PlanSaveBody) =>
 
 export const listPlanRevisions = (buildId: number) => request<PlanRevisionView[]>(`/builds/${buildId}/plan/revisions`);
 
-export const listQuickPlans = (query: { locationId?: number; page?: number; pageSize?: number }) =>
+export const listQuickPlans = (query: { locationId?: number; regionId?: number; page?: number; pageSize?: number }) =>
   request<Page<QuickPlanSummary>>('/plans', { query: { ...query } });
 
 export const getPlan = (id: number) => request<PlanView>(`/plans/${id}`);

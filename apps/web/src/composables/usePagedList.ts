@@ -3,6 +3,7 @@ import type { TablePaginationConfig } from 'ant-design-vue';
 import { computed, ref, shallowRef, watch } from 'vue';
 import { useRoute, useRouter, type LocationQuery, type LocationQueryRaw } from 'vue-router';
 import { messageOf } from '../api/client.ts';
+import { useScopeStore, type ScopeParams } from '../stores/scope.ts';
 
 const DEFAULT_PAGE_SIZE = 50;
 
@@ -25,15 +26,19 @@ interface Paging {
 
 /**
  * One server-paginated list whose filters and page live in the address bar, so a view can be
- * reloaded, bookmarked and shared. Answers that arrive after a newer request are dropped.
+ * reloaded, bookmarked and shared. Answers that arrive after a newer request are dropped. A
+ * `scoped` list keeps to the shop or region chosen in the header (stores/scope.ts) unless its own
+ * filter names a shop (a link from a figure to one shop's builds); a new scope starts at page one.
  */
 export function usePagedList<T, Filters extends object>(
   readFilters: (query: LocationQuery) => Filters,
-  fetchPage: (request: Filters & Paging) => Promise<Page<T>>,
+  fetchPage: (request: Filters & Paging & ScopeParams) => Promise<Page<T>>,
+  { scoped = false } = {},
 ) {
   const route = useRoute();
   const router = useRouter();
   const routeName = route.name;
+  const scope = scoped ? useScopeStore() : null;
 
   const request = computed(() => ({
     ...readFilters(route.query),
@@ -45,12 +50,16 @@ export function usePagedList<T, Filters extends object>(
   const error = ref<string | null>(null);
   let latest = 0;
 
+  /** The request as sent: the address bar's, within the header's scope. */
+  const namesShop = () => (request.value as { locationId?: number }).locationId !== undefined;
+  const sent = computed(() => (scope && !namesShop() ? { ...request.value, ...scope.params } : request.value));
+
   async function load() {
     const ticket = ++latest;
     loading.value = true;
     error.value = null;
     try {
-      const page = await fetchPage(request.value);
+      const page = await fetchPage(sent.value);
       if (ticket === latest) result.value = page;
     } catch (failure) {
       if (ticket === latest) error.value = messageOf(failure);
@@ -60,12 +69,20 @@ export function usePagedList<T, Filters extends object>(
   }
 
   watch(
-    () => JSON.stringify(request.value),
+    () => JSON.stringify(sent.value),
     () => {
       if (route.name === routeName) void load();
     },
     { immediate: true },
   );
+  if (scope) {
+    watch(
+      () => JSON.stringify(scope.params),
+      () => {
+        if (route.name === routeName && route.query.page) replaceQuery({ ...route.query, page: undefined });
+      },
+    );
+  }
 
   function replaceQuery(query: LocationQueryRaw) {
     for (const [key, value] of Object.entries(query)) {

@@ -103,6 +103,8 @@ export const BUILD_SORTS = ['number', 'bookedFor', 'status', 'totalCents', 'upda
 export const buildQuery = z.strictObject({
   status: z.union([z.enum(BUILD_STATUSES), z.array(z.enum(BUILD_STATUSES))]).optional(),
   locationId: idSchema.optional(),
+  /** The shops of one region (the scope chosen in the header); with `locationId`, both must hold. */
+  regionId: idSchema.optional(),
   technicianId: idSchema.optional(),
   /** Booked for a day from and to (inclusive). */
   from: isoDate.optional(),

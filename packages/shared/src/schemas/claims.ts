@@ -130,6 +130,7 @@ export const claimQuery = z
     coverage: z.enum(COVERAGES).optional(),
     failureMode: z.enum(FAILURE_MODES).optional(),
     locationId: idSchema.optional(),
+    regionId: idSchema.optional(),
     buildId: idSchema.optional(),
     /** The vendor and the catalog category of the failed unit. */
     vendorId: idSchema.optional(),

@@ -1,7 +1,8 @@
 import { z } from 'zod';
 
 /** A positive integer id taken from a path or query string. */
-export const idSchema = z.coerce.number().int().positive();
+const ID_WORDS = 'Use an id: a whole number above 0';
+export const idSchema = z.coerce.number({ error: ID_WORDS }).int({ error: ID_WORDS }).positive({ error: ID_WORDS });
 export const idParams = z.strictObject({ id: idSchema });
 
 /** For routes that take no query: any parameter is an unknown field. */

@@ -23,6 +23,7 @@ export type CustomerUpdate = z.infer<typeof customerUpdate>;
 export type CustomerQuery = z.infer<typeof customerQuery>;
 export const customerQuery = z.strictObject({
   locationId: idSchema.optional(),
+  regionId: idSchema.optional(),
   q: z.string().trim().max(100).optional(),
   ...pageQuery,
 });

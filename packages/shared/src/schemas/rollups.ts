@@ -1,11 +1,14 @@
 import { z } from 'zod';
 import { periodCount, ROLLUP_GRAINS } from '../rollup-periods.ts';
 import type { Category } from './catalog.ts';
+import { idSchema } from './common.ts';
 
 /** The most periods one roll-up request covers. */
 export const MAX_ROLLUP_PERIODS = 400;
 
 const day = z.iso.date('Use a date like 2026-03-31');
+/** One shop or the shops of one region of the person's (the scope chosen in the header); both must hold. */
+const within = { locationId: idSchema.optional(), regionId: idSchema.optional() };
 
 /** Every period that holds a day from `from` to `to` (inclusive), each cut in its location's zone. */
 export const rollupQuery = z
@@ -13,6 +16,7 @@ export const rollupQuery = z
     from: day,
     to: day,
     grain: z.enum(ROLLUP_GRAINS, { error: 'Pick day, week, month, quarter or year' }),
+    ...within,
   })
   .refine((q) => q.from <= q.to, { path: ['to'], message: 'Pick an end on or after the start' })
   .refine((q) => q.from > q.to || periodCount(q.grain, q.from, q.to) <= MAX_ROLLUP_PERIODS, {
@@ -79,7 +83,7 @@ const monthsBetween = (from: string, to: string) => (Number(to.slice(0, 4)) - Nu
 
 /** Whole months, from and to (inclusive), each cut in its location's zone. */
 export const comparisonQuery = z
-  .strictObject({ from: month, to: month })
+  .strictObject({ from: month, to: month, ...within })
   .refine((q) => q.from <= q.to, { path: ['to'], message: 'Pick an end on or after the start' })
   .refine((q) => q.from > q.to || monthsBetween(q.from, q.to) <= MAX_COMPARED_MONTHS, {
     path: ['to'],
