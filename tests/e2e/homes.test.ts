@@ -130,9 +130,20 @@ describe('homes: locations compared and my bay', () => {
     await page.context().close();
   });
 
-  it('the accountant compares every shop, without the failure highlights they may not read', async () => {
+  it('the accountant lands on the month close, opens a shop’s delivered builds, and compares every shop without failure highlights', async () => {
     const page = await e2e.newPage();
     await e2e.signIn(page, 'accountant@demo.busbar.test');
+    // The harness's clock stands at June 15, 2026: last month is May.
+    await page.getByRole('heading', { level: 1, name: 'Month close' }).waitFor();
+    await expect.poll(() => page.locator('.ant-table-row').count()).toBe(8);
+    const austin = page.locator('.ant-table-row', { hasText: 'AUS Austin' });
+    const delivered = Number(await austin.locator('td').nth(1).textContent());
+    expect(delivered).toBeGreaterThan(0);
+    expect(await page.locator('.ant-table-summary').textContent()).toMatch(/^All these shops/);
+    await austin.locator('td').nth(1).getByRole('link').click();
+    await page.getByRole('heading', { level: 1, name: 'Builds' }).waitFor();
+    expect(Object.fromEntries(new URL(page.url()).searchParams)).toMatchObject({ status: 'delivered', deliveredFrom: '2026-05-01', deliveredTo: '2026-05-31' });
+    await page.getByText(`1–${Math.min(delivered, 50)} of ${delivered}`).waitFor();
     await page.getByRole('navigation').getByText('Locations compared', { exact: true }).click();
     await expect.poll(() => shopRows(page).count()).toBe(8);
     expect(await page.getByText('Failure highlights').count()).toBe(0);

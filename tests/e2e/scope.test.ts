@@ -11,7 +11,7 @@ afterAll(async () => {
   await e2e?.close();
 });
 
-const EAST = DEMO_LOCATIONS.filter((l) => l.region === 'EAST').map((l) => l.code);
+const EAST: string[] = DEMO_LOCATIONS.filter((l) => l.region === 'EAST').map((l) => l.code);
 const fitsWidth = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth <= document.documentElement.clientWidth);
 /** The shop codes that begin the build numbers listed. */
 const shopsListed = async (page: Page) => new Set((await page.locator('.ant-table-row td:first-child').allTextContents()).map((n) => n.split('-')[0]));

@@ -23,8 +23,8 @@ describe('where a person lands after signing in', () => {
     expect(homeOf(as('technician'))).toBe('my-bay');
   });
 
-  it('lands the accountant, and a person without a role, on the overview', () => {
-    expect(homeOf(as('accountant'))).toBe('overview');
+  it('lands the accountant on the month close, and a person without a role on the overview', () => {
+    expect(homeOf(as('accountant'))).toBe('closes');
     expect(homeOf([])).toBe('overview');
   });
 });

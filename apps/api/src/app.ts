@@ -16,6 +16,7 @@ import { claimEvidenceRouter } from './routes/claim-evidence.ts';
 import { claimReplacementRouter } from './routes/claim-replacement.ts';
 import { claimSendRouter } from './routes/claim-send.ts';
 import { claimsRouter } from './routes/claims.ts';
+import { closesRouter } from './routes/closes.ts';
 import { customersRouter } from './routes/customers.ts';
 import { healthRouter } from './routes/health.ts';
 import { importsRouter } from './routes/imports.ts';
@@ -76,6 +77,7 @@ export function createApp(ctx: AppContext): Express {
   app.use('/api/serials', requireSession(db), serialsRouter(ctx));
   app.use('/api/reliability', requireSession(db), reliabilityRouter(ctx));
   app.use('/api/rollups', requireSession(db), rollupsRouter(ctx));
+  app.use('/api/closes', requireSession(db), closesRouter(ctx));
   app.use('/api/imports', requireSession(db), importsRouter(ctx));
   app.use('/api', requireSession(db), adminRouter(ctx));
   app.use('/api', () => {

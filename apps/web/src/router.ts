@@ -180,6 +180,12 @@ export const router = createRouter({
           meta: { action: 'read', subject: 'Report', title: 'Locations compared' },
         },
         {
+          path: 'month-close',
+          name: 'closes',
+          component: () => import('./views/money/MonthClose.vue'),
+          meta: { action: 'export', subject: 'Report', title: 'Month close' },
+        },
+        {
           path: 'reliability',
           name: 'reliability',
           component: () => import('./views/reliability/ReliabilityList.vue'),

@@ -16,3 +16,4 @@ export * from './schemas/claims.ts';
 export * from './schemas/reliability.ts';
 export * from './rollup-periods.ts';
 export * from './schemas/rollups.ts';
+export * from './schemas/closes.ts';

@@ -21,7 +21,7 @@ export type LocationScope = 'all' | number[];
  * Where the person may do `action` on records of `type` (or on its `field`): 'all' when that is
  * every location. Worked out once per cached viewer (the network's locations come with it).
  */
-export function locationScope(viewer: Viewer, action: 'read' | 'create', type: 'Build' | 'Customer' | 'Plan' | 'Claim' | 'Reliability' | 'Report', field?: string): LocationScope {
+export function locationScope(viewer: Viewer, action: 'read' | 'create' | 'export', type: 'Build' | 'Customer' | 'Plan' | 'Claim' | 'Reliability' | 'Report', field?: string): LocationScope {
   const key = `${action} ${type} ${field ?? ''}`;
   let scope = viewer.scopes.get(key);
   if (!scope) {

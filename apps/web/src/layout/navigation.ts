@@ -3,6 +3,7 @@ import {
   AuditOutlined,
   BarChartOutlined,
   BarcodeOutlined,
+  CalculatorOutlined,
   CalendarOutlined,
   CarOutlined,
   ContactsOutlined,
@@ -20,7 +21,7 @@ import type { Role } from '@busbar/shared';
 import type { Component } from 'vue';
 
 /** The kinds of work the menu is grouped by (DESIGN.md, "Look"); the overview stands above them. */
-export type NavigationGroup = 'Shop floor' | 'Warranty' | 'Network';
+export type NavigationGroup = 'Shop floor' | 'Warranty' | 'Network' | 'Money';
 
 /**
  * The main menu; each entry opens the route of the same name, whose meta says who may use it.
@@ -44,4 +45,5 @@ export const NAVIGATION: { route: string; label: string; icon: Component; group?
   { route: 'staff', label: 'Staff', icon: TeamOutlined, group: 'Network' },
   { route: 'outbox', label: 'Outbox', icon: MailOutlined, group: 'Network' },
   { route: 'audit', label: 'Audit log', icon: AuditOutlined, group: 'Network' },
+  { route: 'closes', label: 'Month close', icon: CalculatorOutlined, group: 'Money' },
 ];

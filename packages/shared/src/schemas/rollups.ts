@@ -78,12 +78,12 @@ export interface Rollups {
 
 /** The most months one comparison of locations covers. */
 export const MAX_COMPARED_MONTHS = 36;
-const month = z.string().regex(/^\d{4}-(0[1-9]|1[0-2])$/, 'Use a month like 2026-03');
+export const monthSchema = z.string().regex(/^\d{4}-(0[1-9]|1[0-2])$/, 'Use a month like 2026-03');
 const monthsBetween = (from: string, to: string) => (Number(to.slice(0, 4)) - Number(from.slice(0, 4))) * 12 + Number(to.slice(5)) - Number(from.slice(5)) + 1;
 
 /** Whole months, from and to (inclusive), each cut in its location's zone. */
 export const comparisonQuery = z
-  .strictObject({ from: month, to: month, ...within })
+  .strictObject({ from: monthSchema, to: monthSchema, ...within })
   .refine((q) => q.from <= q.to, { path: ['to'], message: 'Pick an end on or after the start' })
   .refine((q) => q.from > q.to || monthsBetween(q.from, q.to) <= MAX_COMPARED_MONTHS, {
     path: ['to'],

@@ -1,0 +1,81 @@
+import { isoDay, localDay } from '@busbar/calc';
+import type { Db } from '@busbar/db';
+import type { MonthClose, MonthCloseFigures } from '@busbar/shared';
+import { sql } from 'kysely';
+import type { LocationScope } from '../access/locations.ts';
+
+const FIGURES = [
+  'buildsDelivered', 'partsRevenueCents', 'laborRevenueCents', 'revenueCents', 'partsCostCents', 'grossMarginCents',
+  'claimsLogged', 'creditRequestedCents', 'creditReceivedCents', 'creditOutstandingCents', 'royaltyBaseCents', 'royaltyDueCents',
+] as const satisfies readonly (keyof MonthCloseFigures)[];
+
+/** Royalty in cents of `baseCents` at `basisPoints` (650 = 6.5 %), half a cent and up rounded up. */
+export const royaltyCents = (baseCents: number, basisPoints: number) => Math.round((baseCents * basisPoints) / 10_000);
+
+/**
+ * The month (YYYY-MM) at each location of `scope` (see MonthCloseFigures), from the builds delivered
+ * and the claims logged on the month's days at the location, read by the day columns kept in each
+ * location's zone; with every location's total, and whether the month has ended everywhere by `now`.
+ */
+export async function monthClose(db: Db, month: string, scope: LocationScope, now: Date): Promise<MonthClose> {
+  const [first, last] = [`${month}-01`, `${month}-31`];
+  let query = db
+    .selectFrom('locations as l')
+    .leftJoin(
+      (eb) =>
+        eb
+          .selectFrom('builds')
+          .where('status', '=', 'delivered')
+          .where('deliveredOn', '>=', first)
+          .where('deliveredOn', '<=', last)
+          .groupBy('locationId')
+          .select(['locationId', sql<number>`count(*)`.as('delivered'), sql<number>`sum(parts_price_cents)`.as('parts'), sql<number>`sum(labor_cents)`.as('labor'), sql<number>`sum(total_cents)`.as('revenue'), sql<number>`sum(parts_cost_cents)`.as('cost')])
+          .as('b'),
+      (join) => join.onRef('b.locationId', '=', 'l.id'),
+    )
+    .leftJoin(
+      (eb) =>
+        eb
+          .selectFrom('warrantyClaims')
+          .where('loggedOn', '>=', first)
+          .where('loggedOn', '<=', last)
+          .groupBy('locationId')
+          .select([
+            'locationId',
+            sql<number>`count(*)`.as('claims'),
+            sql<number>`sum(credit_requested_cents)`.as('requested'),
+            sql<number>`sum(coalesce(credit_received_cents, 0))`.as('received'),
+            sql<number>`sum(case when status <> 'denied' and credit_received_cents is null then credit_requested_cents else 0 end)`.as('outstanding'),
+          ])
+          .as('c'),
+      (join) => join.onRef('c.locationId', '=', 'l.id'),
+    )
+    .select(['l.id', 'l.timeZone', 'l.royaltyBasisPoints', 'b.delivered', 'b.parts', 'b.labor', 'b.revenue', 'b.cost', 'c.claims', 'c.requested', 'c.received', 'c.outstanding'])
+    .orderBy('l.code');
+  if (scope !== 'all') query = query.where('l.id', 'in', scope.length > 0 ? scope : [0]);
+  const rows = await query.execute();
+
+  const locations = rows.map((r) => {
+    const revenue = r.revenue ?? 0;
+    return {
+      locationId: r.id,
+      royaltyBasisPoints: r.royaltyBasisPoints,
+      buildsDelivered: r.delivered ?? 0,
+      partsRevenueCents: r.parts ?? 0,
+      laborRevenueCents: r.labor ?? 0,
+      revenueCents: revenue,
+      partsCostCents: r.cost ?? 0,
+      grossMarginCents: revenue - (r.cost ?? 0),
+      claimsLogged: r.claims ?? 0,
+      creditRequestedCents: r.requested ?? 0,
+      creditReceivedCents: r.received ?? 0,
+      creditOutstandingCents: r.outstanding ?? 0,
+      royaltyBaseCents: revenue,
+      royaltyDueCents: royaltyCents(revenue, r.royaltyBasisPoints),
+    };
+  });
+  const total = Object.fromEntries(FIGURES.map((f) => [f, locations.reduce((sum, l) => sum + l[f], 0)])) as unknown as MonthCloseFigures;
+  // A month has ended at a location once its local today lies past the month's last day.
+  const ended = rows.every((r) => isoDay(localDay(r.timeZone, now.getTime())).slice(0, 7) > month);
+  return { month, ended, locations, total };
+}

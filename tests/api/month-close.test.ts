@@ -1,0 +1,120 @@
+import type { Db } from '@busbar/db';
+import type { MonthClose } from '@busbar/shared';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { demoIds, startHarness, type Harness } from '../support/api-harness.ts';
+import { addCustomerWithVehicle } from '../support/build-fixtures.ts';
+import { addDeliveredUnit } from '../support/claim-fixtures.ts';
+import { SIGN_INS } from '../support/staff-fixtures.ts';
+
+/**
+ * January 2019, made by hand (the demo has nothing then): builds delivered at Denver (UTC−7 in
+ * winter, royalty 6 %) and Portland (UTC−8, 6.5 %) either side of local midnight, and claims at
+ * Denver credited, still open and denied. Every figure below was worked out by hand.
+ */
+let h: Harness;
+let ids: Awaited<ReturnType<typeof demoIds>>;
+let sequence = 80_000;
+
+/** A build delivered at `deliveredAt` (UTC), on the shop's local day `deliveredOn` as the app stores it on delivery. */
+async function delivered(db: Db, code: string, deliveredAt: string, deliveredOn: string, money: { parts: number; labor: number; cost: number }) {
+  const locationId = ids.location(code);
+  const { customer, vehicle } = await addCustomerWithVehicle(db, locationId);
+  const n = ++sequence;
+  await db
+    .insertInto('builds')
+    .values({
+      locationId, sequence: n, number: `${code}-${n}`, customerId: customer.id, vehicleId: vehicle.id, status: 'delivered', leadTechnicianId: null,
+      laborHours: 0, laborRateCents: 14500, laborCents: money.labor, partsPriceCents: money.parts, partsCostCents: money.cost, totalCents: money.parts + money.labor,
+      notes: '', createdBy: null, bookedFor: deliveredAt.slice(0, 10), startedAt: deliveredAt, deliveredAt, deliveredOn, createdAt: deliveredAt, updatedAt: deliveredAt,
+    })
+    .execute();
+}
+
+async function claim(at: string, creditRequestedCents: number, after: { status: 'credited' | 'denied'; received?: number } | null) {
+  const unit = await addDeliveredUnit(h.db, ids.location('DEN'), { deliveredAt: '2018-06-01T18:00:00.000Z' });
+  h.clock.now = new Date(at);
+  const lead = await h.signedIn(SIGN_INS.lead);
+  const res = await lead.post('/api/claims').send({ buildItemId: unit.buildItemId, failedOn: at.slice(0, 10), failureMode: 'overheating', coverage: 'vendor_defect', symptoms: 'Lug too hot to touch', creditRequestedCents });
+  expect(res.status).toBe(201);
+  if (after) await h.db.updateTable('warrantyClaims').set({ status: after.status, creditReceivedCents: after.received ?? null }).where('id', '=', res.body.id).execute();
+}
+
+beforeAll(async () => {
+  h = await startHarness();
+  ids = await demoIds(h.db);
+  // Denver: $1,234.56 of parts and $507.50 of labor; then 23:30 on January 31 local (06:30 UTC on February 1).
+  await delivered(h.db, 'DEN', '2019-01-10T18:00:00.000Z', '2019-01-10', { parts: 123_456, labor: 50_750, cost: 61_728 });
+  await delivered(h.db, 'DEN', '2019-02-01T06:30:00.000Z', '2019-01-31', { parts: 10_000, labor: 14_500, cost: 5_000 });
+  // 23:30 on December 31, 2018 local: not January's.
+  await delivered(h.db, 'DEN', '2019-01-01T06:30:00.000Z', '2018-12-31', { parts: 99_999, labor: 0, cost: 1 });
+  await delivered(h.db, 'PDX', '2019-01-15T20:00:00.000Z', '2019-01-15', { parts: 100_010, labor: 0, cost: 40_000 });
+  await claim('2019-01-05T18:00:00.000Z', 20_000, { status: 'credited', received: 20_000 });
+  await claim('2019-01-20T18:00:00.000Z', 15_000, null);
+  await claim('2019-01-25T18:00:00.000Z', 9_000, { status: 'denied' });
+  h.clock.now = new Date('2026-06-15T15:00:00Z');
+}, 60_000);
+afterAll(() => h.close());
+
+const ask = async (email: string, query: string) => (await h.signedIn(email)).get(`/api/closes?${query}`);
+
+describe('the month close', () => {
+  it("sums a shop's delivered builds, claims and royalty for its own month, as worked out by hand", async () => {
+    const close = (await ask(SIGN_INS.accountant, 'month=2019-01')).body as MonthClose;
+    const den = close.locations.find((l) => l.locationId === ids.location('DEN'))!;
+    expect(den).toEqual({
+      locationId: ids.location('DEN'),
+      royaltyBasisPoints: 600,
+      buildsDelivered: 2,
+      partsRevenueCents: 133_456, // 1,234.56 + 100.00
+      laborRevenueCents: 65_250, // 507.50 + 145.00
+      revenueCents: 198_706,
+      partsCostCents: 66_728,
+      grossMarginCents: 131_978, // 1,987.06 − 667.28
+      claimsLogged: 3,
+      creditRequestedCents: 44_000,
+      creditReceivedCents: 20_000,
+      creditOutstandingCents: 15_000, // the denied claim's credit is not owed
+      royaltyBaseCents: 198_706,
+      royaltyDueCents: 11_922, // 6 % of 1,987.06 = 119.2236
+    });
+    const pdx = close.locations.find((l) => l.locationId === ids.location('PDX'))!;
+    // 6.5 % of 1,000.10 = 65.0065: half a cent and more goes up.
+    expect(pdx).toMatchObject({ royaltyBasisPoints: 650, revenueCents: 100_010, royaltyDueCents: 6_501, grossMarginCents: 60_010 });
+    expect(close.total).toMatchObject({ buildsDelivered: 3, revenueCents: 298_716, royaltyDueCents: 18_423, creditOutstandingCents: 15_000 });
+    expect(close.locations).toHaveLength(8);
+    expect(close.ended).toBe(true);
+  });
+
+  it('says a month still running is not ended, and counts December apart from January', async () => {
+    const running = (await ask(SIGN_INS.owner, 'month=2026-06')).body as MonthClose;
+    expect(running.ended).toBe(false);
+    const december = (await ask(SIGN_INS.owner, 'month=2018-12')).body as MonthClose;
+    expect(december.locations.find((l) => l.locationId === ids.location('DEN'))).toMatchObject({ buildsDelivered: 1, revenueCents: 99_999 });
+  });
+
+  it('keeps to a region or a shop asked for', async () => {
+    const den = ids.location('DEN');
+    const region = ids.locations.find((l) => l.id === den)!.regionId;
+    const west = (await ask(SIGN_INS.accountant, `month=2019-01&regionId=${region}`)).body as MonthClose;
+    expect(west.locations.map((l) => l.locationId).sort()).toEqual(ids.locations.filter((l) => l.regionId === region).map((l) => l.id).sort());
+    const one = (await ask(SIGN_INS.accountant, `month=2019-01&locationId=${den}`)).body as MonthClose;
+    expect(one.locations.map((l) => l.locationId)).toEqual([den]);
+    expect(one.total.revenueCents).toBe(198_706);
+  });
+
+  it('is the accountant’s and the owner’s only, and refuses the others in words', async () => {
+    for (const who of [SIGN_INS.regional, SIGN_INS.lead, SIGN_INS.tech, SIGN_INS.warranty]) {
+      const res = await ask(who, 'month=2019-01');
+      expect(res.status, who).toBe(403);
+      expect(res.body.error.message).toBe('Only the accountant and the network owner close months');
+    }
+    expect((await (await h.agent()).get('/api/closes?month=2019-01')).status).toBe(401);
+  });
+
+  it('answers a wrong month in words', async () => {
+    const res = await ask(SIGN_INS.accountant, 'month=2019-13');
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields.month).toBe('Use a month like 2026-03');
+    expect((await ask(SIGN_INS.accountant, 'month=2019-01&extra=1')).status).toBe(400);
+  });
+});
