@@ -23,6 +23,10 @@ export interface NetworkRegion {
   name: string;
 }
 
+/** Every demo shop's royalty terms apply from before its history, with a marketing fund of 1.5 % (invented). */
+const DEMO_TERMS_FROM = '2020-01';
+const DEMO_MARKETING_BASIS_POINTS = 150;
+
 export interface NetworkLocation {
   region: string;
   code: string;
@@ -85,13 +89,17 @@ export async function seedDemoNetwork(db: Db, options: DemoOptions): Promise<voi
       regionIds.set(region.code, row.id);
     }
     const locationIds = new Map<string, number>();
-    for (const { region, ...location } of locations) {
+    for (const { region, royaltyBasisPoints, ...location } of locations) {
       const row = await trx
         .insertInto('locations')
         .values({ ...location, regionId: regionIds.get(region)! })
         .returning('id')
         .executeTakeFirstOrThrow();
       locationIds.set(location.code, row.id);
+      await trx
+        .insertInto('royaltyTerms')
+        .values({ locationId: row.id, appliesFrom: DEMO_TERMS_FROM, royaltyBasisPoints, marketingBasisPoints: DEMO_MARKETING_BASIS_POINTS, createdBy: null, createdAt })
+        .execute();
     }
     for (const person of demoStaff(random, regions, locations)) {
       const user = await trx

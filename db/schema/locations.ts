@@ -8,8 +8,19 @@ export interface LocationsTable {
   /** IANA time zone; periods (day, week, month) are cut in this zone. */
   timeZone: string;
   laborRateCents: number;
-  /** Royalty owed to the network, in basis points of revenue (650 = 6.5 %). */
-  royaltyBasisPoints: number;
   /** Claims whose credit is above this a location lead may not approve alone (the regional manager does). */
   claimApprovalLimitCents: Generated<number>;
+}
+
+/** Royalty and marketing-fund rates of a location from a month on (migration 025), set by the owner. */
+export interface RoyaltyTermsTable {
+  id: Generated<number>;
+  locationId: number;
+  /** The first month (YYYY-MM) these terms apply to; they hold until the next terms' month. */
+  appliesFrom: string;
+  /** Of the royalty base, in basis points (650 = 6.5 %). */
+  royaltyBasisPoints: number;
+  marketingBasisPoints: number;
+  createdBy: number | null;
+  createdAt: string;
 }

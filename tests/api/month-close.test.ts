@@ -7,9 +7,10 @@ import { addDeliveredUnit } from '../support/claim-fixtures.ts';
 import { SIGN_INS } from '../support/staff-fixtures.ts';
 
 /**
- * January 2019, made by hand (the demo has nothing then): builds delivered at Denver (UTC−7 in
- * winter, royalty 6 %) and Portland (UTC−8, 6.5 %) either side of local midnight, and claims at
- * Denver credited, still open and denied. Every figure below was worked out by hand.
+ * January 2019, made by hand (the demo has nothing then, nor royalty terms): builds delivered at
+ * Denver (UTC−7 in winter; royalty 6 % and marketing fund 1.5 % from December 2018, 7 % from
+ * February) and Portland (UTC−8; 6.5 % and 1 % from January) either side of local midnight, and
+ * claims at Denver credited, still open and denied. Every figure below was worked out by hand.
  */
 let h: Harness;
 let ids: Awaited<ReturnType<typeof demoIds>>;
@@ -52,6 +53,11 @@ beforeAll(async () => {
   await claim('2019-01-20T18:00:00.000Z', 15_000, null);
   await claim('2019-01-25T18:00:00.000Z', 9_000, { status: 'denied' });
   h.clock.now = new Date('2026-06-15T15:00:00Z');
+  const owner = await h.signedIn(SIGN_INS.owner);
+  const terms = [['DEN', '2018-12', 600, 150], ['DEN', '2019-02', 700, 150], ['PDX', '2019-01', 650, 100]] as const;
+  for (const [code, appliesFrom, royaltyBasisPoints, marketingBasisPoints] of terms) {
+    await owner.post(`/api/locations/${ids.location(code)}/royalty-terms`).send({ appliesFrom, royaltyBasisPoints, marketingBasisPoints }).expect(201);
+  }
 }, 60_000);
 afterAll(() => h.close());
 
@@ -64,6 +70,7 @@ describe('the month close', () => {
     expect(den).toEqual({
       locationId: ids.location('DEN'),
       royaltyBasisPoints: 600,
+      marketingBasisPoints: 150,
       buildsDelivered: 2,
       partsRevenueCents: 133_456, // 1,234.56 + 100.00
       laborRevenueCents: 65_250, // 507.50 + 145.00
@@ -76,11 +83,14 @@ describe('the month close', () => {
       creditOutstandingCents: 15_000, // the denied claim's credit is not owed
       royaltyBaseCents: 198_706,
       royaltyDueCents: 11_922, // 6 % of 1,987.06 = 119.2236
+      marketingDueCents: 2_981, // 1.5 % of 1,987.06 = 29.8059
     });
     const pdx = close.locations.find((l) => l.locationId === ids.location('PDX'))!;
     // 6.5 % of 1,000.10 = 65.0065: half a cent and more goes up.
-    expect(pdx).toMatchObject({ royaltyBasisPoints: 650, revenueCents: 100_010, royaltyDueCents: 6_501, grossMarginCents: 60_010 });
-    expect(close.total).toMatchObject({ buildsDelivered: 3, revenueCents: 298_716, royaltyDueCents: 18_423, creditOutstandingCents: 15_000 });
+    expect(pdx).toMatchObject({ royaltyBasisPoints: 650, revenueCents: 100_010, royaltyDueCents: 6_501, marketingDueCents: 1_000, grossMarginCents: 60_010 });
+    expect(close.total).toMatchObject({ buildsDelivered: 3, revenueCents: 298_716, royaltyDueCents: 18_423, marketingDueCents: 3_981, creditOutstandingCents: 15_000 });
+    // Boise has no terms that month: nothing is due, and the answer says there are none.
+    expect(close.locations.find((l) => l.locationId === ids.location('BOI'))).toMatchObject({ royaltyBasisPoints: null, marketingBasisPoints: null, royaltyDueCents: 0 });
     expect(close.locations).toHaveLength(8);
     expect(close.ended).toBe(true);
   });
@@ -89,7 +99,10 @@ describe('the month close', () => {
     const running = (await ask(SIGN_INS.owner, 'month=2026-06')).body as MonthClose;
     expect(running.ended).toBe(false);
     const december = (await ask(SIGN_INS.owner, 'month=2018-12')).body as MonthClose;
-    expect(december.locations.find((l) => l.locationId === ids.location('DEN'))).toMatchObject({ buildsDelivered: 1, revenueCents: 99_999 });
+    // 6 % of 999.99 = 59.9994.
+    expect(december.locations.find((l) => l.locationId === ids.location('DEN'))).toMatchObject({ buildsDelivered: 1, revenueCents: 99_999, royaltyDueCents: 6_000 });
+    const february = (await ask(SIGN_INS.owner, 'month=2019-02')).body as MonthClose;
+    expect(february.locations.find((l) => l.locationId === ids.location('DEN'))).toMatchObject({ royaltyBasisPoints: 700, buildsDelivered: 0, royaltyDueCents: 0 });
   });
 
   it('keeps to a region or a shop asked for', async () => {

@@ -60,7 +60,7 @@ describe('abilities kept per signed-in person', () => {
     const { regionId } = await h.db.selectFrom('locations').select('regionId').where('id', '=', ids.location('DEN')).executeTakeFirstOrThrow();
     expect(await seen()).not.toContain('NEW');
     await withOtherConnection((db) =>
-      db.insertInto('locations').values({ regionId, code: 'NEW', name: 'Newtown', timeZone: 'America/Denver', laborRateCents: 12000, royaltyBasisPoints: 600 }).execute(),
+      db.insertInto('locations').values({ regionId, code: 'NEW', name: 'Newtown', timeZone: 'America/Denver', laborRateCents: 12000 }).execute(),
     );
     expect(await seen()).toContain('NEW');
   });

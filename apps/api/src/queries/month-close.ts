@@ -6,10 +6,10 @@ import type { LocationScope } from '../access/locations.ts';
 
 const FIGURES = [
   'buildsDelivered', 'partsRevenueCents', 'laborRevenueCents', 'revenueCents', 'partsCostCents', 'grossMarginCents',
-  'claimsLogged', 'creditRequestedCents', 'creditReceivedCents', 'creditOutstandingCents', 'royaltyBaseCents', 'royaltyDueCents',
+  'claimsLogged', 'creditRequestedCents', 'creditReceivedCents', 'creditOutstandingCents', 'royaltyBaseCents', 'royaltyDueCents', 'marketingDueCents',
 ] as const satisfies readonly (keyof MonthCloseFigures)[];
 
-/** Royalty in cents of `baseCents` at `basisPoints` (650 = 6.5 %), half a cent and up rounded up. */
+/** Royalty (or marketing fund) in cents of `baseCents` at `basisPoints` (650 = 6.5 %), half a cent and up rounded up. */
 export const royaltyCents = (baseCents: number, basisPoints: number) => Math.round((baseCents * basisPoints) / 10_000);
 
 /**
@@ -50,16 +50,23 @@ export async function monthClose(db: Db, month: string, scope: LocationScope, no
           .as('c'),
       (join) => join.onRef('c.locationId', '=', 'l.id'),
     )
-    .select(['l.id', 'l.timeZone', 'l.royaltyBasisPoints', 'b.delivered', 'b.parts', 'b.labor', 'b.revenue', 'b.cost', 'c.claims', 'c.requested', 'c.received', 'c.outstanding'])
+    // The terms in force that month: the latest that apply from it or before.
+    .leftJoin('royaltyTerms as t', (join) =>
+      join.onRef('t.locationId', '=', 'l.id').on(sql.ref('t.appliesFrom'), '=', sql`(select max(u.applies_from) from royalty_terms u where u.location_id = l.id and u.applies_from <= ${month})`),
+    )
+    .select(['l.id', 'l.timeZone', 't.royaltyBasisPoints', 't.marketingBasisPoints', 'b.delivered', 'b.parts', 'b.labor', 'b.revenue', 'b.cost', 'c.claims', 'c.requested', 'c.received', 'c.outstanding'])
     .orderBy('l.code');
   if (scope !== 'all') query = query.where('l.id', 'in', scope.length > 0 ? scope : [0]);
   const rows = await query.execute();
 
   const locations = rows.map((r) => {
     const revenue = r.revenue ?? 0;
+    // A location without terms (none set yet) owes nothing until the owner sets them; the screen says so.
+    const [royaltyBasisPoints, marketingBasisPoints] = [r.royaltyBasisPoints ?? null, r.marketingBasisPoints ?? null];
     return {
       locationId: r.id,
-      royaltyBasisPoints: r.royaltyBasisPoints,
+      royaltyBasisPoints,
+      marketingBasisPoints,
       buildsDelivered: r.delivered ?? 0,
       partsRevenueCents: r.parts ?? 0,
       laborRevenueCents: r.labor ?? 0,
@@ -71,7 +78,8 @@ export async function monthClose(db: Db, month: string, scope: LocationScope, no
       creditReceivedCents: r.received ?? 0,
       creditOutstandingCents: r.outstanding ?? 0,
       royaltyBaseCents: revenue,
-      royaltyDueCents: royaltyCents(revenue, r.royaltyBasisPoints),
+      royaltyDueCents: royaltyCents(revenue, royaltyBasisPoints ?? 0),
+      marketingDueCents: royaltyCents(revenue, marketingBasisPoints ?? 0),
     };
   });
   const total = Object.fromEntries(FIGURES.map((f) => [f, locations.reduce((sum, l) => sum + l[f], 0)])) as unknown as MonthCloseFigures;

@@ -1,5 +1,5 @@
 import { subject } from '@casl/ability';
-import { idParams, locationListQuery, locationUpdate, noQuery, type AppAbility } from '@busbar/shared';
+import { idParams, locationListQuery, locationUpdate, noQuery, royaltyTermsBody, type AppAbility } from '@busbar/shared';
 import { Router } from 'express';
 import type { AppContext } from '../context.ts';
 import { forbidden, notFound } from '../errors.ts';
@@ -8,12 +8,14 @@ import { validate } from '../middleware/validate.ts';
 import { buildLeadsAt } from '../queries/assignments.ts';
 import { writeAudit } from '../queries/audit.ts';
 import { findLocationSettings, listLocations, pageLocations, setApprovalLimit } from '../queries/locations.ts';
+import { listRoyaltyTerms, setRoyaltyTerms } from '../queries/royalty-terms.ts';
 
 const canRead = (ability: AppAbility, id: number) => ability.can('read', subject('Location', { id }));
 
 /**
  * Locations: every one a person may see, whole (for pickers and labels); a page of them with their
- * settings; one location; and the owner's change of its claim approval limit.
+ * settings; one location; the owner's change of its claim approval limit; and its royalty terms,
+ * which the owner sets and the accountant reads.
  */
 export function locationsRouter({ db, now }: AppContext): Router {
   const router = Router();
@@ -58,6 +60,33 @@ export function locationsRouter({ db, now }: AppContext): Router {
         await writeAudit(trx, { at: now().toISOString(), actorId: viewer.id, action: 'location.update', entity: 'location', entityId: location.id, before, after: body });
       });
       res.json(await findLocationSettings(db, location.id));
+    }),
+  );
+
+  router.get(
+    '/:id/royalty-terms',
+    validate({ params: idParams, query: noQuery }, async ({ params }, req, res) => {
+      const { ability } = viewerOf(req);
+      if (!canRead(ability, params.id)) throw notFound('location');
+      if (!ability.can('export', subject('Report', { locationId: params.id })) && !ability.can('update', subject('Location', { id: params.id }))) {
+        throw forbidden('Only the network owner and the accountant read royalty terms');
+      }
+      res.json(await listRoyaltyTerms(db, params.id));
+    }),
+  );
+
+  router.post(
+    '/:id/royalty-terms',
+    validate({ params: idParams, body: royaltyTermsBody }, async ({ params, body }, req, res) => {
+      const viewer = viewerOf(req);
+      if (!canRead(viewer.ability, params.id)) throw notFound('location');
+      if (!viewer.ability.can('update', subject('Location', { id: params.id }))) throw forbidden('Only the network owner sets royalty terms');
+      const at = now().toISOString();
+      await db.transaction().execute(async (trx) => {
+        const before = await setRoyaltyTerms(trx, params.id, body, { id: viewer.id, at });
+        await writeAudit(trx, { at, actorId: viewer.id, action: 'location.royalty_terms', entity: 'location', entityId: params.id, before, after: body });
+      });
+      res.status(201).json(await listRoyaltyTerms(db, params.id));
     }),
   );
 

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { idSchema, pageQuery } from './common.ts';
+import { monthSchema } from './rollups.ts';
 
 /** The largest approval limit the owner may set: a million dollars. */
 export const MAX_APPROVAL_LIMIT_CENTS = 100_000_000;
@@ -31,4 +32,19 @@ export interface LocationSettings {
   timeZone: string;
   /** A lead approves claims with a credit up to this; above it the regional manager does. */
   claimApprovalLimitCents: number;
+}
+
+const rate = z.int('Enter the rate in basis points (650 is 6.5 %)').min(0, 'The rate cannot be negative').max(10_000, 'The rate can be at most 100 %');
+
+/** Royalty terms the owner sets on a location from a month on (a month's terms set again are replaced). */
+export const royaltyTermsBody = z
+  .strictObject({ appliesFrom: monthSchema, royaltyBasisPoints: rate, marketingBasisPoints: rate })
+  .refine((t) => t.royaltyBasisPoints + t.marketingBasisPoints <= 10_000, { path: ['marketingBasisPoints'], message: 'Royalty and marketing fund together can be at most 100 %' });
+export type RoyaltyTermsBody = z.infer<typeof royaltyTermsBody>;
+
+/** Terms as set, with who set them. */
+export interface RoyaltyTermsView extends RoyaltyTermsBody {
+  id: number;
+  createdAt: string;
+  createdByName: string | null;
 }
