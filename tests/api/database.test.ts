@@ -70,6 +70,21 @@ describe('database', () => {
     await db.destroy();
   });
 
+  it("keeps each location's royalty as its terms from 2000-01 when royalty terms arrive, and gives it back going down", async () => {
+    const db = await fresh();
+    const migrator = new Migrator({ db, provider: { getMigrations: async () => migrations } });
+    expect((await migrator.migrateTo('024-add-weekly-digest')).error).toBeUndefined();
+    await sql`insert into regions (code, name) values ('MID', 'Midlands')`.execute(db);
+    await sql`insert into locations (region_id, code, name, time_zone, labor_rate_cents, royalty_basis_points) values (1, 'RVR', 'Riverton', 'America/Denver', 12000, 625)`.execute(db);
+    await migrateToLatest(db);
+    expect(await db.selectFrom('royaltyTerms').select(['appliesFrom', 'royaltyBasisPoints', 'marketingBasisPoints']).execute()).toEqual([{ appliesFrom: '2000-01', royaltyBasisPoints: 625, marketingBasisPoints: 0 }]);
+    await db.insertInto('royaltyTerms').values({ locationId: 1, appliesFrom: '2026-01', royaltyBasisPoints: 700, marketingBasisPoints: 100, createdBy: null, createdAt: '2026-01-01T00:00:00Z' }).execute();
+    expect((await migrator.migrateTo('024-add-weekly-digest')).error).toBeUndefined();
+    // Going down, the location keeps its latest royalty.
+    expect((await sql<{ r: number }>`select royalty_basis_points as r from locations`.execute(db)).rows).toEqual([{ r: 700 }]);
+    await db.destroy();
+  });
+
   it('generates the same demo network for the same seed and clock', async () => {
     const options = { passwordHash: 'scrypt$10$8$1$x$y', now: new Date('2026-01-01T00:00:00Z'), seed: 42 };
     const [a, b] = [await fresh(), await fresh()];

@@ -1,4 +1,4 @@
-import type { LocationSettings, LocationUpdate, Page } from '@busbar/shared';
+import type { LocationSettings, LocationUpdate, Page, RoyaltyTermsBody, RoyaltyTermsView } from '@busbar/shared';
 import { request } from './client.ts';
 
 export interface LocationFilter {
@@ -12,3 +12,9 @@ export interface LocationFilter {
 export const listLocationSettings = (filter: LocationFilter) => request<Page<LocationSettings>>('/locations/settings', { query: { ...filter } });
 
 export const updateLocation = (id: number, body: LocationUpdate) => request<LocationSettings>(`/locations/${id}`, { method: 'PATCH', body });
+
+/** A location's royalty terms, the latest month first (the owner and the accountant). */
+export const listRoyaltyTerms = (id: number) => request<RoyaltyTermsView[]>(`/locations/${id}/royalty-terms`);
+
+/** The owner sets terms from a month on; answers the location's terms after it. */
+export const setRoyaltyTerms = (id: number, body: RoyaltyTermsBody) => request<RoyaltyTermsView[]>(`/locations/${id}/royalty-terms`, { method: 'POST', body });
