@@ -11,7 +11,7 @@ import type { VehiclesTable } from './vehicles.ts';
 import type { VendorsTable } from './vendors.ts';
 import type { WarrantyClaimsTable } from './warranty-claims.ts';
 import type { InvitesTable } from './invites.ts';
-import type { LocationsTable, RoyaltyTermsTable } from './locations.ts';
+import type { LocationsTable, MonthClosesTable, RoyaltyTermsTable } from './locations.ts';
 import type { MailLogTable } from './mail-log.ts';
 import type { PowerPlanRevisionsTable } from './power-plan-revisions.ts';
 import type { PowerPlansTable } from './power-plans.ts';
@@ -53,4 +53,5 @@ export interface Database {
   accessChanges: AccessChangesTable;
   weeklyDigests: WeeklyDigestsTable;
   royaltyTerms: RoyaltyTermsTable;
+  monthCloses: MonthClosesTable;
 }

@@ -24,3 +24,15 @@ export interface RoyaltyTermsTable {
   createdBy: number | null;
   createdAt: string;
 }
+
+/** A location's month marked final (migration 026); `figures` and `carried` are JSON. */
+export interface MonthClosesTable {
+  locationId: number;
+  month: string;
+  finalizedAt: string;
+  finalizedBy: number | null;
+  /** The month's close as marked final (MonthCloseFigures with its rates and the adjustments it carried). */
+  figures: string;
+  /** The month's builds, revenue, parts cost and credits received as accounted for so far (CarriedFigures). */
+  carried: string;
+}

@@ -84,6 +84,11 @@ describe('the month close', () => {
       royaltyBaseCents: 198_706,
       royaltyDueCents: 11_922, // 6 % of 1,987.06 = 119.2236
       marketingDueCents: 2_981, // 1.5 % of 1,987.06 = 29.8059
+      status: 'open',
+      finalizedAt: null,
+      finalizedByName: null,
+      next: true,
+      adjustments: null,
     });
     const pdx = close.locations.find((l) => l.locationId === ids.location('PDX'))!;
     // 6.5 % of 1,000.10 = 65.0065: half a cent and more goes up.
@@ -129,5 +134,57 @@ describe('the month close', () => {
     expect(res.status).toBe(400);
     expect(res.body.error.fields.month).toBe('Use a month like 2026-03');
     expect((await ask(SIGN_INS.accountant, 'month=2019-01&extra=1')).status).toBe(400);
+  });
+});
+
+describe('marking a month final', () => {
+  const final = async (email: string, code: string, month: string) => (await h.signedIn(email)).post(`/api/closes/${ids.location(code)}/${month}/final`);
+  const denIn = async (month: string) => ((await ask(SIGN_INS.accountant, `month=${month}`)).body as MonthClose).locations.find((l) => l.locationId === ids.location('DEN'))!;
+
+  it('keeps the month as closed, and shows a later change to it once, in the next month closed', async () => {
+    const closed = await final(SIGN_INS.accountant, 'DEN', '2019-01');
+    expect(closed.status).toBe(201);
+    expect(closed.body).toMatchObject({ status: 'final', revenueCents: 198_706, royaltyDueCents: 11_922, adjustments: null, finalizedByName: 'Felix Moreau' });
+    expect((await denIn('2019-02')).next).toBe(true);
+
+    // A correction after the close: the January 10 build gains $100.00 of parts.
+    await h.db.updateTable('builds').set((eb) => ({ partsPriceCents: eb('partsPriceCents', '+', 10_000), totalCents: eb('totalCents', '+', 10_000) })).where('deliveredOn', '=', '2019-01-10').where('locationId', '=', ids.location('DEN')).execute();
+    expect(await denIn('2019-01')).toMatchObject({ status: 'final', revenueCents: 198_706, royaltyDueCents: 11_922 });
+    const february = await denIn('2019-02');
+    expect(february).toMatchObject({ status: 'open', next: true, revenueCents: 0 });
+    // 6 % of 2,087.06 = 125.2236 against 119.22 closed; 1.5 % = 31.3059 against 29.81.
+    expect(february.adjustments).toEqual({ months: ['2019-01'], buildsDelivered: 0, revenueCents: 10_000, partsCostCents: 0, grossMarginCents: 10_000, royaltyDueCents: 600, marketingDueCents: 150, creditReceivedCents: 0 });
+
+    const closedFebruary = await final(SIGN_INS.owner, 'DEN', '2019-02');
+    expect(closedFebruary.status).toBe(201);
+    expect(closedFebruary.body.adjustments).toEqual(february.adjustments);
+    // Taken up once: March has nothing more to adjust.
+    expect(await denIn('2019-03')).toMatchObject({ next: true, adjustments: null });
+    const log = await h.db.selectFrom('auditLog').select('after').where('action', '=', 'close.final').execute();
+    expect(log.map((l) => JSON.parse(l.after!).month)).toEqual(['2019-01', '2019-02']);
+  });
+
+  it('refuses a month twice, out of order, or not yet ended, in words', async () => {
+    const refused = async (code: string, month: string, status: number) => {
+      const res = await final(SIGN_INS.accountant, code, month);
+      expect(res.status, `${code} ${month}`).toBe(status);
+      return res.body.error.message as string;
+    };
+    expect(await refused('DEN', '2019-02', 409)).toBe('February 2019 is already final at Denver');
+    expect(await refused('DEN', '2019-05', 400)).toBe('Close March 2019 at Denver first: months close in order');
+    expect(await refused('DEN', '2018-12', 400)).toBe('Months close in order: February 2019 is final at Denver, so December 2018 stays open');
+    // The harness's clock stands at June 15, 2026.
+    expect(await refused('PDX', '2026-06', 400)).toBe('June 2026 has not ended at Portland yet');
+    expect(await refused('PDX', '2019-13', 400)).toBe('Some fields need attention');
+  });
+
+  it('is the accountant’s and the owner’s only; a shop that does not exist is not found', async () => {
+    for (const who of [SIGN_INS.regional, SIGN_INS.lead, SIGN_INS.warranty]) {
+      const res = await final(who, 'DEN', '2019-03');
+      expect(res.status, who).toBe(403);
+      expect(res.body.error.message).toBe('Only the accountant and the network owner close months');
+    }
+    expect((await (await h.signedIn(SIGN_INS.accountant)).post('/api/closes/99999/2019-03/final')).status).toBe(404);
+    expect((await denIn('2019-03')).status).toBe('open');
   });
 });

@@ -13,7 +13,7 @@ afterAll(async () => {
 const fitsWidth = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth <= document.documentElement.clientWidth);
 
 describe('month close', () => {
-  it('the owner sets new royalty terms for Denver from May, and the accountant closes May with them, on a phone too', async () => {
+  it('the owner sets new royalty terms for Denver from May, and the accountant marks May final with them, on a phone too', async () => {
     const owner = await e2e.newPage();
     await e2e.signIn(owner, 'owner@demo.busbar.test');
     await owner.goto('/locations');
@@ -38,6 +38,14 @@ describe('month close', () => {
     await accountant.getByRole('heading', { level: 1, name: 'Month close' }).waitFor();
     const denver = accountant.locator('.ant-table-row', { hasText: 'DEN Denver' });
     await expect.poll(() => denver.textContent()).toMatch(/7 %.*2 %/);
+    // May has ended everywhere: Denver's May is the next to close, and closing it asks first.
+    await denver.getByText('Open · next to close').waitFor();
+    await denver.getByRole('button', { name: 'Mark final' }).click();
+    const asked = accountant.getByRole('dialog', { name: 'Mark May 2026 final at DEN Denver?' });
+    await asked.getByText('Its figures will not change again.', { exact: false }).waitFor();
+    await asked.getByRole('button', { name: 'Mark final' }).click();
+    await denver.getByText('Final', { exact: true }).waitFor();
+    expect(await denver.getByRole('button', { name: 'Mark final' }).count()).toBe(0);
     await accountant.setViewportSize({ width: 390, height: 844 });
     await accountant.getByText('Royalty due (7 %)').waitFor();
     // Once the menu has folded to its icons.

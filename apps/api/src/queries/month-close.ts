@@ -1,89 +1,68 @@
 import { isoDay, localDay } from '@busbar/calc';
 import type { Db } from '@busbar/db';
-import type { MonthClose, MonthCloseFigures } from '@busbar/shared';
-import { sql } from 'kysely';
+import type { LocationClose, MonthClose, MonthCloseFigures } from '@busbar/shared';
 import type { LocationScope } from '../access/locations.ts';
+import { conflict, invalidField } from '../errors.ts';
+import { writeAudit } from './audit.ts';
+import { FIGURES, liveCloses, type LiveClose } from './month-close-figures.ts';
+import { adjustmentsOf, carriedNow, driftsOf, finalsIn, lastFinals, nextMonth } from './month-finals.ts';
 
-const FIGURES = [
-  'buildsDelivered', 'partsRevenueCents', 'laborRevenueCents', 'revenueCents', 'partsCostCents', 'grossMarginCents',
-  'claimsLogged', 'creditRequestedCents', 'creditReceivedCents', 'creditOutstandingCents', 'royaltyBaseCents', 'royaltyDueCents', 'marketingDueCents',
-] as const satisfies readonly (keyof MonthCloseFigures)[];
-
-/** Royalty (or marketing fund) in cents of `baseCents` at `basisPoints` (650 = 6.5 %), half a cent and up rounded up. */
-export const royaltyCents = (baseCents: number, basisPoints: number) => Math.round((baseCents * basisPoints) / 10_000);
+const MONTHS = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'];
+const inWords = (month: string) => `${MONTHS[Number(month.slice(5)) - 1]} ${month.slice(0, 4)}`;
+/** Whether the month has ended at a location by `now`: its local today lies past the month's last day. */
+const endedAt = (timeZone: string, month: string, now: Date) => isoDay(localDay(timeZone, now.getTime())).slice(0, 7) > month;
 
 /**
- * The month (YYYY-MM) at each location of `scope` (see MonthCloseFigures), from the builds delivered
- * and the claims logged on the month's days at the location, read by the day columns kept in each
- * location's zone; with every location's total, and whether the month has ended everywhere by `now`.
+ * The month at each location of `scope`: as closed where it is final, else as it stands now; the
+ * next month to close at a location (the month after its last final one) takes up the changes made
+ * since to its final months, as adjustments.
  */
 export async function monthClose(db: Db, month: string, scope: LocationScope, now: Date): Promise<MonthClose> {
-  const [first, last] = [`${month}-01`, `${month}-31`];
-  let query = db
-    .selectFrom('locations as l')
-    .leftJoin(
-      (eb) =>
-        eb
-          .selectFrom('builds')
-          .where('status', '=', 'delivered')
-          .where('deliveredOn', '>=', first)
-          .where('deliveredOn', '<=', last)
-          .groupBy('locationId')
-          .select(['locationId', sql<number>`count(*)`.as('delivered'), sql<number>`sum(parts_price_cents)`.as('parts'), sql<number>`sum(labor_cents)`.as('labor'), sql<number>`sum(total_cents)`.as('revenue'), sql<number>`sum(parts_cost_cents)`.as('cost')])
-          .as('b'),
-      (join) => join.onRef('b.locationId', '=', 'l.id'),
-    )
-    .leftJoin(
-      (eb) =>
-        eb
-          .selectFrom('warrantyClaims')
-          .where('loggedOn', '>=', first)
-          .where('loggedOn', '<=', last)
-          .groupBy('locationId')
-          .select([
-            'locationId',
-            sql<number>`count(*)`.as('claims'),
-            sql<number>`sum(credit_requested_cents)`.as('requested'),
-            sql<number>`sum(coalesce(credit_received_cents, 0))`.as('received'),
-            sql<number>`sum(case when status <> 'denied' and credit_received_cents is null then credit_requested_cents else 0 end)`.as('outstanding'),
-          ])
-          .as('c'),
-      (join) => join.onRef('c.locationId', '=', 'l.id'),
-    )
-    // The terms in force that month: the latest that apply from it or before.
-    .leftJoin('royaltyTerms as t', (join) =>
-      join.onRef('t.locationId', '=', 'l.id').on(sql.ref('t.appliesFrom'), '=', sql`(select max(u.applies_from) from royalty_terms u where u.location_id = l.id and u.applies_from <= ${month})`),
-    )
-    .select(['l.id', 'l.timeZone', 't.royaltyBasisPoints', 't.marketingBasisPoints', 'b.delivered', 'b.parts', 'b.labor', 'b.revenue', 'b.cost', 'c.claims', 'c.requested', 'c.received', 'c.outstanding'])
-    .orderBy('l.code');
-  if (scope !== 'all') query = query.where('l.id', 'in', scope.length > 0 ? scope : [0]);
-  const rows = await query.execute();
-
-  const locations = rows.map((r) => {
-    const revenue = r.revenue ?? 0;
-    // A location without terms (none set yet) owes nothing until the owner sets them; the screen says so.
-    const [royaltyBasisPoints, marketingBasisPoints] = [r.royaltyBasisPoints ?? null, r.marketingBasisPoints ?? null];
-    return {
-      locationId: r.id,
-      royaltyBasisPoints,
-      marketingBasisPoints,
-      buildsDelivered: r.delivered ?? 0,
-      partsRevenueCents: r.parts ?? 0,
-      laborRevenueCents: r.labor ?? 0,
-      revenueCents: revenue,
-      partsCostCents: r.cost ?? 0,
-      grossMarginCents: revenue - (r.cost ?? 0),
-      claimsLogged: r.claims ?? 0,
-      creditRequestedCents: r.requested ?? 0,
-      creditReceivedCents: r.received ?? 0,
-      creditOutstandingCents: r.outstanding ?? 0,
-      royaltyBaseCents: revenue,
-      royaltyDueCents: royaltyCents(revenue, royaltyBasisPoints ?? 0),
-      marketingDueCents: royaltyCents(revenue, marketingBasisPoints ?? 0),
-    };
-  });
+  const [live, finals, last] = [await liveCloses(db, month, scope), await finalsIn(db, month, scope), await lastFinals(db, scope)];
+  const isNext = (id: number) => !last.has(id) || nextMonth(last.get(id)!) === month;
+  const adjusting = live.filter((l) => !finals.has(l.locationId) && last.has(l.locationId) && isNext(l.locationId)).map((l) => l.locationId);
+  const drifts = await driftsOf(db, adjusting);
+  const locations = live.map(({ timeZone: _, ...open }): LocationClose =>
+    finals.get(open.locationId) ?? {
+      ...open,
+      status: 'open',
+      finalizedAt: null,
+      finalizedByName: null,
+      next: isNext(open.locationId),
+      adjustments: adjustmentsOf(drifts.filter((d) => d.locationId === open.locationId)),
+    },
+  );
   const total = Object.fromEntries(FIGURES.map((f) => [f, locations.reduce((sum, l) => sum + l[f], 0)])) as unknown as MonthCloseFigures;
-  // A month has ended at a location once its local today lies past the month's last day.
-  const ended = rows.every((r) => isoDay(localDay(r.timeZone, now.getTime())).slice(0, 7) > month);
-  return { month, ended, locations, total };
+  return { month, ended: live.every((l) => endedAt(l.timeZone, month, now)), locations, total };
+}
+
+/**
+ * Marks a location's month final, as it stands with the adjustments it takes up: once the month
+ * has ended there, in order (the month after the last final one; any month for the first). Its
+ * figures are kept as closed, the final months whose changes it took up count as accounted for,
+ * and the audit log has it, all in one transaction.
+ */
+export async function finalizeMonth(db: Db, location: { id: number; name: string }, month: string, by: { id: number; at: Date }): Promise<LocationClose> {
+  return db.transaction().execute(async (trx) => {
+    const [live] = (await liveCloses(trx, month, [location.id])) as [LiveClose];
+    if (!endedAt(live.timeZone, month, by.at)) throw invalidField('month', `${inWords(month)} has not ended at ${location.name} yet`);
+    if ((await finalsIn(trx, month, [location.id])).size > 0) throw conflict(`${inWords(month)} is already final at ${location.name}`);
+    const last = (await lastFinals(trx, [location.id])).get(location.id);
+    if (last && nextMonth(last) !== month) {
+      const next = nextMonth(last);
+      throw invalidField('month', next > month ? `Months close in order: ${inWords(last)} is final at ${location.name}, so ${inWords(month)} stays open` : `Close ${inWords(next)} at ${location.name} first: months close in order`);
+    }
+    const drifts = await driftsOf(trx, last ? [location.id] : []);
+    const { timeZone: _, ...figures } = live;
+    const closed = { ...figures, adjustments: adjustmentsOf(drifts) };
+    await trx
+      .insertInto('monthCloses')
+      .values({ locationId: location.id, month, finalizedAt: by.at.toISOString(), finalizedBy: by.id, figures: JSON.stringify(closed), carried: JSON.stringify(await carriedNow(trx, location.id, month)) })
+      .execute();
+    for (const d of drifts) {
+      await trx.updateTable('monthCloses').set({ carried: JSON.stringify(d.live) }).where('locationId', '=', location.id).where('month', '=', d.month).execute();
+    }
+    await writeAudit(trx, { at: by.at.toISOString(), actorId: by.id, action: 'close.final', entity: 'location', entityId: location.id, before: null, after: { month, ...closed } });
+    return (await finalsIn(trx, month, [location.id])).get(location.id)!;
+  });
 }

@@ -1,15 +1,17 @@
-import { closeQuery } from '@busbar/shared';
+import { subject } from '@casl/ability';
+import { closeParams, closeQuery } from '@busbar/shared';
 import { Router } from 'express';
 import { locationScope, narrowScope } from '../access/locations.ts';
 import type { AppContext } from '../context.ts';
-import { forbidden } from '../errors.ts';
+import { forbidden, notFound } from '../errors.ts';
 import { viewerOf } from '../middleware/session.ts';
 import { validate } from '../middleware/validate.ts';
-import { monthClose } from '../queries/month-close.ts';
+import { finalizeMonth, monthClose } from '../queries/month-close.ts';
 
 /**
  * The month close of the person's locations (the accountant's and the owner's: people who export
- * reports, and who read every money figure), within the shop or region asked for.
+ * reports, and who read every money figure), within the shop or region asked for; and marking a
+ * location's month final.
  */
 export function closesRouter({ db, now }: AppContext): Router {
   const router = Router();
@@ -23,6 +25,17 @@ export function closesRouter({ db, now }: AppContext): Router {
       const scope = narrowScope(viewer, readable, query);
       if (scope !== 'all' && scope.length === 0) throw forbidden('You cannot close the months of that shop or region');
       res.json(await monthClose(db, query.month, scope, now()));
+    }),
+  );
+
+  router.post(
+    '/:locationId/:month/final',
+    validate({ params: closeParams }, async ({ params }, req, res) => {
+      const viewer = viewerOf(req);
+      const location = await db.selectFrom('locations').select(['id', 'name']).where('id', '=', params.locationId).executeTakeFirst();
+      if (!location || !viewer.ability.can('read', subject('Location', { id: location.id }))) throw notFound('location');
+      if (!viewer.ability.can('export', subject('Report', { locationId: location.id }))) throw forbidden('Only the accountant and the network owner close months');
+      res.status(201).json(await finalizeMonth(db, location, params.month, { id: viewer.id, at: now() }));
     }),
   );
 

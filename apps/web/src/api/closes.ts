@@ -1,6 +1,9 @@
-import type { MonthClose } from '@busbar/shared';
+import type { LocationClose, MonthClose } from '@busbar/shared';
 import type { ScopeParams } from '../stores/scope.ts';
 import { request } from './client.ts';
 
 /** A month (YYYY-MM) of the person's shops as it is closed, or of the shop or region in `within`. */
 export const getMonthClose = (month: string, within: ScopeParams = {}) => request<MonthClose>('/closes', { query: { month, ...within } });
+
+/** Marks a location's month final; answers its close as closed. */
+export const markFinal = (locationId: number, month: string) => request<LocationClose>(`/closes/${locationId}/${month}/final`, { method: 'POST' });

@@ -30,11 +30,45 @@ export interface MonthCloseFigures {
   marketingDueCents: number;
 }
 
+/**
+ * Changes to months already final at a location, shown once, in the next month to close there:
+ * what those months' delivered builds and credits received add up to now, less what was closed
+ * (royalty and marketing fund at each month's own rates).
+ */
+export interface CloseAdjustments {
+  /** The final months whose figures changed since they were last accounted for. */
+  months: string[];
+  buildsDelivered: number;
+  revenueCents: number;
+  partsCostCents: number;
+  grossMarginCents: number;
+  royaltyDueCents: number;
+  marketingDueCents: number;
+  creditReceivedCents: number;
+}
+
+/** A location's month: open (its figures follow every change), or final (as it was closed, never changed again). */
+export interface LocationClose extends MonthCloseFigures {
+  locationId: number;
+  /** The rates of the terms in force that month; null where the owner has set none (nothing is due then). */
+  royaltyBasisPoints: number | null;
+  marketingBasisPoints: number | null;
+  status: 'open' | 'final';
+  finalizedAt: string | null;
+  finalizedByName: string | null;
+  /** Whether this is the next month to close there: the month after its last final one (any month while none is final). */
+  next: boolean;
+  /** Changes to earlier final months this month takes up (on the next month to close, or as it was closed); null when none. */
+  adjustments: CloseAdjustments | null;
+}
+
 export interface MonthClose {
   month: string;
   /** Whether the month has ended at every listed location (a month still running is a preview). */
   ended: boolean;
-  /** The rates of the terms in force that month; null where the owner has set none (nothing is due then). */
-  locations: (MonthCloseFigures & { locationId: number; royaltyBasisPoints: number | null; marketingBasisPoints: number | null })[];
+  locations: LocationClose[];
+  /** The listed locations' own figures added up (adjustments apart). */
   total: MonthCloseFigures;
 }
+
+export const closeParams = z.strictObject({ locationId: idSchema, month: monthSchema });

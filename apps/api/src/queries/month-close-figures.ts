@@ -1,0 +1,88 @@
+import type { Db } from '@busbar/db';
+import type { LocationClose, MonthCloseFigures } from '@busbar/shared';
+import { sql } from 'kysely';
+import type { LocationScope } from '../access/locations.ts';
+
+export const FIGURES = [
+  'buildsDelivered', 'partsRevenueCents', 'laborRevenueCents', 'revenueCents', 'partsCostCents', 'grossMarginCents',
+  'claimsLogged', 'creditRequestedCents', 'creditReceivedCents', 'creditOutstandingCents', 'royaltyBaseCents', 'royaltyDueCents', 'marketingDueCents',
+] as const satisfies readonly (keyof MonthCloseFigures)[];
+
+/** Royalty (or marketing fund) in cents of `baseCents` at `basisPoints` (650 = 6.5 %), half a cent and up rounded up. */
+export const royaltyCents = (baseCents: number, basisPoints: number) => Math.round((baseCents * basisPoints) / 10_000);
+
+/** A location's month as its builds and claims add up now, with the rates of its terms, and its time zone. */
+export type LiveClose = Omit<LocationClose, 'status' | 'finalizedAt' | 'finalizedByName' | 'next' | 'adjustments'> & { timeZone: string };
+
+/**
+ * The month (YYYY-MM) at each location of `scope` (see MonthCloseFigures) as it stands now, from
+ * the builds delivered and the claims logged on the month's days at the location, read by the day
+ * columns kept in each location's zone.
+ */
+export async function liveCloses(db: Db, month: string, scope: LocationScope): Promise<LiveClose[]> {
+  const [first, last] = [`${month}-01`, `${month}-31`];
+  let query = db
+    .selectFrom('locations as l')
+    .leftJoin(
+      (eb) =>
+        eb
+          .selectFrom('builds')
+          .where('status', '=', 'delivered')
+          .where('deliveredOn', '>=', first)
+          .where('deliveredOn', '<=', last)
+          .groupBy('locationId')
+          .select(['locationId', sql<number>`count(*)`.as('delivered'), sql<number>`sum(parts_price_cents)`.as('parts'), sql<number>`sum(labor_cents)`.as('labor'), sql<number>`sum(total_cents)`.as('revenue'), sql<number>`sum(parts_cost_cents)`.as('cost')])
+          .as('b'),
+      (join) => join.onRef('b.locationId', '=', 'l.id'),
+    )
+    .leftJoin(
+      (eb) =>
+        eb
+          .selectFrom('warrantyClaims')
+          .where('loggedOn', '>=', first)
+          .where('loggedOn', '<=', last)
+          .groupBy('locationId')
+          .select([
+            'locationId',
+            sql<number>`count(*)`.as('claims'),
+            sql<number>`sum(credit_requested_cents)`.as('requested'),
+            sql<number>`sum(coalesce(credit_received_cents, 0))`.as('received'),
+            sql<number>`sum(case when status <> 'denied' and credit_received_cents is null then credit_requested_cents else 0 end)`.as('outstanding'),
+          ])
+          .as('c'),
+      (join) => join.onRef('c.locationId', '=', 'l.id'),
+    )
+    // The terms in force that month: the latest that apply from it or before.
+    .leftJoin('royaltyTerms as t', (join) =>
+      join.onRef('t.locationId', '=', 'l.id').on(sql.ref('t.appliesFrom'), '=', sql`(select max(u.applies_from) from royalty_terms u where u.location_id = l.id and u.applies_from <= ${month})`),
+    )
+    .select(['l.id', 'l.timeZone', 't.royaltyBasisPoints', 't.marketingBasisPoints', 'b.delivered', 'b.parts', 'b.labor', 'b.revenue', 'b.cost', 'c.claims', 'c.requested', 'c.received', 'c.outstanding'])
+    .orderBy('l.code');
+  if (scope !== 'all') query = query.where('l.id', 'in', scope.length > 0 ? scope : [0]);
+  const rows = await query.execute();
+
+  return rows.map((r) => {
+    const revenue = r.revenue ?? 0;
+    // A location without terms (none set yet) owes nothing until the owner sets them; the screen says so.
+    const [royaltyBasisPoints, marketingBasisPoints] = [r.royaltyBasisPoints ?? null, r.marketingBasisPoints ?? null];
+    return {
+      locationId: r.id,
+      timeZone: r.timeZone,
+      royaltyBasisPoints,
+      marketingBasisPoints,
+      buildsDelivered: r.delivered ?? 0,
+      partsRevenueCents: r.parts ?? 0,
+      laborRevenueCents: r.labor ?? 0,
+      revenueCents: revenue,
+      partsCostCents: r.cost ?? 0,
+      grossMarginCents: revenue - (r.cost ?? 0),
+      claimsLogged: r.claims ?? 0,
+      creditRequestedCents: r.requested ?? 0,
+      creditReceivedCents: r.received ?? 0,
+      creditOutstandingCents: r.outstanding ?? 0,
+      royaltyBaseCents: revenue,
+      royaltyDueCents: royaltyCents(revenue, royaltyBasisPoints ?? 0),
+      marketingDueCents: royaltyCents(revenue, marketingBasisPoints ?? 0),
+    };
+  });
+}

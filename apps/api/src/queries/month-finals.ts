@@ -1,0 +1,102 @@
+import type { Db } from '@busbar/db';
+import type { CloseAdjustments, LocationClose } from '@busbar/shared';
+import { sql } from 'kysely';
+import type { LocationScope } from '../access/locations.ts';
+import { royaltyCents } from './month-close-figures.ts';
+
+/** What of a final month has been accounted for: its delivered builds, revenue, parts cost and credits received. */
+export interface Carried {
+  buildsDelivered: number;
+  revenueCents: number;
+  partsCostCents: number;
+  creditReceivedCents: number;
+}
+
+/** The month after `month` (YYYY-MM). */
+export function nextMonth(month: string): string {
+  const [year, m] = month.split('-').map(Number) as [number, number];
+  return m === 12 ? `${year + 1}-01` : `${year}-${String(m + 1).padStart(2, '0')}`;
+}
+
+const inScope = (column: string, scope: LocationScope) => (scope === 'all' ? sql`` : sql`and ${sql.ref(column)} in (${sql.join(scope.length > 0 ? scope : [0])})`);
+
+/** The closes of `month` marked final at the locations of `scope`, as they were closed. */
+export async function finalsIn(db: Db, month: string, scope: LocationScope): Promise<Map<number, LocationClose>> {
+  const { rows } = await sql<{ locationId: number; figures: string; finalizedAt: string; name: string | null }>`
+    select c.location_id, c.figures, c.finalized_at, u.name from month_closes c left join users u on u.id = c.finalized_by
+    where c.month = ${month} ${inScope('c.location_id', scope)}`.execute(db);
+  return new Map(rows.map((r) => [r.locationId, { ...(JSON.parse(r.figures) as LocationClose), status: 'final', finalizedAt: r.finalizedAt, finalizedByName: r.name, next: false }]));
+}
+
+/** Each location's last month marked final (locations with none are left out). */
+export async function lastFinals(db: Db, scope: LocationScope): Promise<Map<number, string>> {
+  const { rows } = await sql<{ locationId: number; month: string }>`
+    select location_id, max(month) as month from month_closes where 1 = 1 ${inScope('location_id', scope)} group by location_id`.execute(db);
+  return new Map(rows.map((r) => [r.locationId, r.month]));
+}
+
+/** A final month whose builds or credits changed since last accounted for: what it is now, and its rates. */
+export interface Drift {
+  locationId: number;
+  month: string;
+  live: Carried;
+  carried: Carried;
+  royaltyBasisPoints: number;
+  marketingBasisPoints: number;
+}
+
+/**
+ * The final months of these locations whose figures in the monthly roll-ups (kept current by every
+ * change to builds and claims) differ from what was carried: one seek per final month.
+ */
+export async function driftsOf(db: Db, locationIds: number[]): Promise<Drift[]> {
+  if (locationIds.length === 0) return [];
+  const { rows } = await sql<{ locationId: number; month: string; carried: string; figures: string; delivered: number; revenue: number; cost: number; credits: number }>`
+    select c.location_id, c.month, c.carried, c.figures,
+      coalesce(r.builds_delivered, 0) as delivered, coalesce(r.revenue_cents, 0) as revenue, coalesce(r.parts_cost_cents, 0) as cost, coalesce(r.credits_received_cents, 0) as credits
+    from month_closes c left join rollup_figures r on r.grain = 'month' and r.period = c.month and r.location_id = c.location_id
+    where c.location_id in (${sql.join(locationIds)})
+      and (delivered <> json_extract(c.carried, '$.buildsDelivered') or revenue <> json_extract(c.carried, '$.revenueCents')
+        or cost <> json_extract(c.carried, '$.partsCostCents') or credits <> json_extract(c.carried, '$.creditReceivedCents'))`.execute(db);
+  return rows.map((r) => {
+    const rates = JSON.parse(r.figures) as Pick<LocationClose, 'royaltyBasisPoints' | 'marketingBasisPoints'>;
+    return {
+      locationId: r.locationId,
+      month: r.month,
+      live: { buildsDelivered: r.delivered, revenueCents: r.revenue, partsCostCents: r.cost, creditReceivedCents: r.credits },
+      carried: JSON.parse(r.carried) as Carried,
+      royaltyBasisPoints: rates.royaltyBasisPoints ?? 0,
+      marketingBasisPoints: rates.marketingBasisPoints ?? 0,
+    };
+  });
+}
+
+/** The drifts of one location added up as adjustments (each month's royalty and marketing fund at its own rates); null when none. */
+export function adjustmentsOf(drifts: Drift[]): CloseAdjustments | null {
+  if (drifts.length === 0) return null;
+  const sum = (f: (d: Drift) => number) => drifts.reduce((n, d) => n + f(d), 0);
+  const revenue = sum((d) => d.live.revenueCents - d.carried.revenueCents);
+  const cost = sum((d) => d.live.partsCostCents - d.carried.partsCostCents);
+  return {
+    months: drifts.map((d) => d.month).sort(),
+    buildsDelivered: sum((d) => d.live.buildsDelivered - d.carried.buildsDelivered),
+    revenueCents: revenue,
+    partsCostCents: cost,
+    grossMarginCents: revenue - cost,
+    royaltyDueCents: sum((d) => royaltyCents(d.live.revenueCents, d.royaltyBasisPoints) - royaltyCents(d.carried.revenueCents, d.royaltyBasisPoints)),
+    marketingDueCents: sum((d) => royaltyCents(d.live.revenueCents, d.marketingBasisPoints) - royaltyCents(d.carried.revenueCents, d.marketingBasisPoints)),
+    creditReceivedCents: sum((d) => d.live.creditReceivedCents - d.carried.creditReceivedCents),
+  };
+}
+
+/** A month as the roll-ups have it now, to carry when it is marked final. */
+export async function carriedNow(db: Db, locationId: number, month: string): Promise<Carried> {
+  const row = await db
+    .selectFrom('rollupFigures')
+    .select(['buildsDelivered', 'revenueCents', 'partsCostCents', 'creditsReceivedCents'])
+    .where('grain', '=', 'month')
+    .where('period', '=', month)
+    .where('locationId', '=', locationId)
+    .executeTakeFirst();
+  return { buildsDelivered: row?.buildsDelivered ?? 0, revenueCents: row?.revenueCents ?? 0, partsCostCents: row?.partsCostCents ?? 0, creditReceivedCents: row?.creditsReceivedCents ?? 0 };
+}
