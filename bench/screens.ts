@@ -36,6 +36,8 @@ export const SCREENS: readonly (readonly [label: string, path: (ids: Ids) => str
   ['reliability, one category', () => '/api/reliability/category/house_battery'],
   ['roll-ups, a year by month', () => rollupPath(YEAR_BY_MONTH)],
   ['roll-ups, a quarter by week', () => rollupPath(QUARTER_BY_WEEK)],
+  ['month close, last month', () => `/api/closes?month=${YEAR_BY_MONTH.to.slice(0, 7)}`],
+  ['month close, a region', (ids) => `/api/closes?month=2025-03&regionId=${ids.regionId}`],
 ];
 
 export interface Ids {
@@ -44,6 +46,8 @@ export interface Ids {
   claimId: number;
   /** The item with the most failures the person sees: the largest single-item view. */
   reliabilityItemId: string;
+  /** The region of the first location the person sees. */
+  regionId: number;
 }
 
 /** Figures of one screen for one person: latencies, or the refusal they get (a lead reads no audit log). */
@@ -57,11 +61,12 @@ async function firstOf(person: Person, list: string): Promise<number> {
   return first.id;
 }
 
-/** A build, a customer and a claim the person can open (the first of their lists), and their most failed item. */
+/** A build, a customer and a claim the person can open (the first of their lists), their most failed item and a region. */
 export async function idsFor(person: Person): Promise<Ids> {
   const { rows } = JSON.parse((await call(person, 'GET', '/api/reliability')).body) as { rows: { key: string; failures: number }[] };
   const reliabilityItemId = rows.reduce((most, row) => (row.failures > most.failures ? row : most)).key;
-  return { buildId: await firstOf(person, 'builds'), customerId: await firstOf(person, 'customers'), claimId: await firstOf(person, 'claims'), reliabilityItemId };
+  const [location] = JSON.parse((await call(person, 'GET', '/api/locations')).body) as { regionId: number }[];
+  return { buildId: await firstOf(person, 'builds'), customerId: await firstOf(person, 'customers'), claimId: await firstOf(person, 'claims'), reliabilityItemId, regionId: location!.regionId };
 }
 
 /** Each screen's request, a few times untimed to warm up, then `samples` times one after another. */
