@@ -88,6 +88,7 @@ describe('the month close', () => {
       finalizedAt: null,
       finalizedByName: null,
       next: true,
+      nextToClose: null,
       adjustments: null,
     });
     const pdx = close.locations.find((l) => l.locationId === ids.location('PDX'))!;
@@ -145,7 +146,8 @@ describe('marking a month final', () => {
     const closed = await final(SIGN_INS.accountant, 'DEN', '2019-01');
     expect(closed.status).toBe(201);
     expect(closed.body).toMatchObject({ status: 'final', revenueCents: 198_706, royaltyDueCents: 11_922, adjustments: null, finalizedByName: 'Felix Moreau' });
-    expect((await denIn('2019-02')).next).toBe(true);
+    expect(await denIn('2019-02')).toMatchObject({ next: true, nextToClose: '2019-02' });
+    expect(closed.body.nextToClose).toBe('2019-02');
 
     // A correction after the close: the January 10 build gains $100.00 of parts.
     await h.db.updateTable('builds').set((eb) => ({ partsPriceCents: eb('partsPriceCents', '+', 10_000), totalCents: eb('totalCents', '+', 10_000) })).where('deliveredOn', '=', '2019-01-10').where('locationId', '=', ids.location('DEN')).execute();

@@ -122,7 +122,8 @@ describe('asking for roll-ups', () => {
     expect((await ask('from=2026-02-30&to=2026-03-01&grain=day')).fields.from).toBe('Use a date like 2026-03-31');
     expect((await ask('to=2026-03-01&grain=day')).fields.from).toBe('Use a date like 2026-03-31');
     expect((await ask('from=2026-03-01&to=2026-02-01&grain=day')).fields.to).toBe('Pick an end on or after the start');
-    expect((await ask('from=2026-01-01&to=2026-02-01&grain=day&locationId=3')).fields.locationId).toBe('Unknown field');
+    expect((await ask('from=2026-01-01&to=2026-02-01&grain=day&shop=3')).fields.shop).toBe('Unknown field');
+    expect((await ask('from=2026-01-01&to=2026-02-01&grain=day&regionId=east')).fields.regionId).toBe('Use an id: a whole number above 0');
   });
 
   it('caps a request at 400 periods', async () => {

@@ -46,6 +46,8 @@ describe('month close', () => {
     await asked.getByRole('button', { name: 'Mark final' }).click();
     await denver.getByText('Final', { exact: true }).waitFor();
     expect(await denver.getByRole('button', { name: 'Mark final' }).count()).toBe(0);
+    // The months to close: June at Denver now, any ended month at the seven others.
+    await expect.poll(() => accountant.locator('.to-close').textContent()).toMatch(/Months to close: Jun 2026 at DEN · 7 shops have no month final yet/);
     await accountant.setViewportSize({ width: 390, height: 844 });
     await accountant.getByText('Royalty due (7 %)').waitFor();
     // Once the menu has folded to its icons.

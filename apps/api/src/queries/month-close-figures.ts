@@ -12,7 +12,7 @@ export const FIGURES = [
 export const royaltyCents = (baseCents: number, basisPoints: number) => Math.round((baseCents * basisPoints) / 10_000);
 
 /** A location's month as its builds and claims add up now, with the rates of its terms, and its time zone. */
-export type LiveClose = Omit<LocationClose, 'status' | 'finalizedAt' | 'finalizedByName' | 'next' | 'adjustments'> & { timeZone: string };
+export type LiveClose = Omit<LocationClose, 'status' | 'finalizedAt' | 'finalizedByName' | 'next' | 'nextToClose' | 'adjustments'> & { timeZone: string };
 
 /**
  * The month (YYYY-MM) at each location of `scope` (see MonthCloseFigures) as it stands now, from

@@ -22,16 +22,20 @@ export async function monthClose(db: Db, month: string, scope: LocationScope, no
   const isNext = (id: number) => !last.has(id) || nextMonth(last.get(id)!) === month;
   const adjusting = live.filter((l) => !finals.has(l.locationId) && last.has(l.locationId) && isNext(l.locationId)).map((l) => l.locationId);
   const drifts = await driftsOf(db, adjusting);
-  const locations = live.map(({ timeZone: _, ...open }): LocationClose =>
-    finals.get(open.locationId) ?? {
+  const nextToClose = (id: number) => (last.has(id) ? nextMonth(last.get(id)!) : null);
+  const locations = live.map(({ timeZone: _, ...open }): LocationClose => {
+    const final = finals.get(open.locationId);
+    if (final) return { ...final, nextToClose: nextToClose(open.locationId) };
+    return {
       ...open,
       status: 'open',
       finalizedAt: null,
       finalizedByName: null,
       next: isNext(open.locationId),
+      nextToClose: nextToClose(open.locationId),
       adjustments: adjustmentsOf(drifts.filter((d) => d.locationId === open.locationId)),
-    },
-  );
+    };
+  });
   const total = Object.fromEntries(FIGURES.map((f) => [f, locations.reduce((sum, l) => sum + l[f], 0)])) as unknown as MonthCloseFigures;
   return { month, ended: live.every((l) => endedAt(l.timeZone, month, now)), locations, total };
 }
@@ -63,6 +67,6 @@ export async function finalizeMonth(db: Db, location: { id: number; name: string
       await trx.updateTable('monthCloses').set({ carried: JSON.stringify(d.live) }).where('locationId', '=', location.id).where('month', '=', d.month).execute();
     }
     await writeAudit(trx, { at: by.at.toISOString(), actorId: by.id, action: 'close.final', entity: 'location', entityId: location.id, before: null, after: { month, ...closed } });
-    return (await finalsIn(trx, month, [location.id])).get(location.id)!;
+    return { ...(await finalsIn(trx, month, [location.id])).get(location.id)!, nextToClose: nextMonth(month) };
   });
 }

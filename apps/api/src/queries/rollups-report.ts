@@ -1,11 +1,11 @@
 import type { Db } from '@busbar/db';
-import { sql } from 'kysely';
 import { PERIODS_A_YEAR, periodEnd, periodKey, periodNumber, periodStart, type RollupQuery, type Rollups } from '@busbar/shared';
+import { sql } from 'kysely';
 import { locationScope, type LocationScope } from '../access/locations.ts';
 import type { Viewer } from '../access/viewer.ts';
 import { invalidField } from '../errors.ts';
-import { byMoneyReads, figuresJson, holdsAny, jsonArrayOf, own, summed, type MoneyReads } from './rollups-json.ts';
 import { utf8Of } from '../utf8.ts';
+import { byMoneyReads, figuresJson, holdsAny, jsonArrayOf, own, summed, type MoneyReads } from './rollups-json.ts';
 import { locationRegions } from './rollups.ts';
 
 /** The asked periods with the keys of the period before each and of the same period a year before. */

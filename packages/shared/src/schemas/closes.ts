@@ -58,6 +58,8 @@ export interface LocationClose extends MonthCloseFigures {
   finalizedByName: string | null;
   /** Whether this is the next month to close there: the month after its last final one (any month while none is final). */
   next: boolean;
+  /** The next month to close there; null while none is final. */
+  nextToClose: string | null;
   /** Changes to earlier final months this month takes up (on the next month to close, or as it was closed); null when none. */
   adjustments: CloseAdjustments | null;
 }
