@@ -40,6 +40,12 @@ describe('the scope in the header', () => {
 
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Locations compared' }).click();
     await expect.poll(() => page.locator('.comparison .ant-table-row').count()).toBe(4);
+    // A key figure opens the builds behind it, within the same scope: May's deliveries in the region.
+    await page.getByRole('link', { name: /^Builds delivered: .*, open the delivered builds of May 2026$/ }).click();
+    await page.getByRole('heading', { level: 1, name: 'Builds' }).waitFor();
+    expect(Object.fromEntries(new URL(page.url()).searchParams)).toEqual({ status: 'delivered', deliveredFrom: '2026-05-01', deliveredTo: '2026-05-31' });
+    await expect.poll(async () => [...(await shopsListed(page))].every((code) => EAST.includes(code!))).toBe(true);
+    await page.goBack();
 
     await look(page, 'Austin', 'Austin (AUS)');
     await page.getByRole('heading', { level: 1, name: 'Your shop against the network' }).waitFor();

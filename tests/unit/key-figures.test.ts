@@ -15,12 +15,12 @@ const rollups = (rows: ReturnType<typeof row>[]): Rollups => ({
 describe("the last month's key figures", () => {
   it('add up the shops and say each change against the month before and a year before', () => {
     const key = keyFigures(rollups([row(1, '2026-05', 6, 1, 600_00), row(2, '2026-05', 4, 1, 400_00), row(1, '2026-04', 8, 1, 1200_00), row(2, '2025-05', 10, 0, 1000_00)]))!;
-    expect(key.month).toBe('2026-05');
+    expect(key).toMatchObject({ month: '2026-05', start: '2026-05-01', end: '2026-05-31' });
     expect(key.figures).toEqual([
-      { label: 'Builds delivered', value: '10', changes: ['▲ 25 % on Apr 2026', '= May 2025'] },
-      { label: 'Revenue', value: '$1,000', changes: ['▼ 17 % on Apr 2026', '= May 2025'] },
+      { label: 'Builds delivered', value: '10', records: 'builds', changes: ['▲ 25 % on Apr 2026', '= May 2025'] },
+      { label: 'Revenue', value: '$1,000', records: 'builds', changes: ['▼ 17 % on Apr 2026', '= May 2025'] },
       // 2 claims over 10 builds against 1 over 8 (12.5) and none over 10.
-      { label: 'Claims per 100 builds', value: '20.0', changes: ['▲ 7.5 points on Apr 2026', '▲ 20.0 points on May 2025'] },
+      { label: 'Claims per 100 builds', value: '20.0', records: 'claims', changes: ['▲ 7.5 points on Apr 2026', '▲ 20.0 points on May 2025'] },
     ]);
   });
 

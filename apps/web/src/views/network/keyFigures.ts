@@ -12,6 +12,8 @@ interface MonthSums {
 export interface KeyFigure {
   label: string;
   value: string;
+  /** The records behind the figure: the month's delivered builds, or its logged claims. */
+  records: 'builds' | 'claims';
   /** Against the month before and the same month a year before, in words with a shape (▲ ▼ =). */
   changes: string[];
 }
@@ -49,7 +51,7 @@ function pointChange(now: number | null, then: number | null, month: string): st
  * (when the person reads it), claims per 100 builds, each against the month before and the same
  * month a year before.
  */
-export function keyFigures(rollups: Rollups): { month: string; figures: KeyFigure[] } | null {
+export function keyFigures(rollups: Rollups): { month: string; start: string; end: string; figures: KeyFigure[] } | null {
   const last = rollups.periods.at(-1);
   if (!last) return null;
   const [now, before, yearBefore] = [last.period, last.previous, last.lastYear].map((p) => sumsOf(rollups, p)) as [MonthSums, MonthSums, MonthSums];
@@ -57,6 +59,7 @@ export function keyFigures(rollups: Rollups): { month: string; figures: KeyFigur
     {
       label: 'Builds delivered',
       value: whole.format(now.delivered),
+      records: 'builds',
       changes: [percentChange(now.delivered, before.delivered, last.previous), percentChange(now.delivered, yearBefore.delivered, last.lastYear)],
     },
   ];
@@ -64,6 +67,7 @@ export function keyFigures(rollups: Rollups): { month: string; figures: KeyFigur
     figures.push({
       label: 'Revenue',
       value: dollars.format(now.revenueCents / 100),
+      records: 'builds',
       changes: [percentChange(now.revenueCents, before.revenueCents, last.previous), percentChange(now.revenueCents, yearBefore.revenueCents, last.lastYear)],
     });
   }
@@ -71,7 +75,8 @@ export function keyFigures(rollups: Rollups): { month: string; figures: KeyFigur
   figures.push({
     label: 'Claims per 100 builds',
     value: rate === null ? '—' : tenth.format(rate),
+    records: 'claims',
     changes: [pointChange(rate, per100(before), last.previous), pointChange(rate, per100(yearBefore), last.lastYear)],
   });
-  return { month: last.period, figures };
+  return { month: last.period, start: last.start, end: last.end, figures };
 }
