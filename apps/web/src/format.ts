@@ -25,6 +25,11 @@ export function formatMoney(cents: number): string {
   return dollars.format(cents / 100);
 }
 
+/** A rate in basis points as a percentage, e.g. 650 → "6.5 %". */
+export function formatBasisPoints(basisPoints: number): string {
+  return `${(basisPoints / 100).toLocaleString('en-US', { maximumFractionDigits: 2 })} %`;
+}
+
 /** A calendar date (YYYY-MM-DD), or the viewer's day of a moment, in words, e.g. "Jun 20, 2026". */
 export function formatDate(isoDate: string | null, empty = '—'): string {
   return isoDate ? dayjs(isoDate).format('MMM D, YYYY') : empty;

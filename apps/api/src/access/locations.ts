@@ -41,3 +41,14 @@ export function narrowScope(viewer: Viewer, scope: LocationScope, { locationId, 
   const ids = scope === 'all' ? viewer.locationIds : scope;
   return ids.filter((id) => (locationId === undefined || id === locationId) && (regionId === undefined || viewer.regionOf.get(id) === regionId));
 }
+
+/**
+ * A report's locations: those in `readable` within the shop or region asked for. Refused with
+ * `refusals.none` when the person reads none at all, `refusals.outside` when none lies within.
+ */
+export function reportWithin(viewer: Viewer, readable: LocationScope, within: { locationId?: number | undefined; regionId?: number | undefined }, refusals: { none: string; outside: string }): LocationScope {
+  if (readable !== 'all' && readable.length === 0) throw forbidden(refusals.none);
+  const scope = narrowScope(viewer, readable, within);
+  if (scope !== 'all' && scope.length === 0) throw forbidden(refusals.outside);
+  return scope;
+}

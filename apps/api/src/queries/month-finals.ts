@@ -1,3 +1,4 @@
+import { addMonthsIso } from '@busbar/calc';
 import type { Db } from '@busbar/db';
 import type { CloseAdjustments, LocationClose } from '@busbar/shared';
 import { sql } from 'kysely';
@@ -13,10 +14,7 @@ export interface Carried {
 }
 
 /** The month after `month` (YYYY-MM). */
-export function nextMonth(month: string): string {
-  const [year, m] = month.split('-').map(Number) as [number, number];
-  return m === 12 ? `${year + 1}-01` : `${year}-${String(m + 1).padStart(2, '0')}`;
-}
+export const nextMonth = (month: string) => addMonthsIso(`${month}-01`, 1).slice(0, 7);
 
 const inScope = (column: string, scope: LocationScope) => (scope === 'all' ? sql`` : sql`and ${sql.ref(column)} in (${sql.join(scope.length > 0 ? scope : [0])})`);
 

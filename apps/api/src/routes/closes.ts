@@ -1,12 +1,14 @@
 import { subject } from '@casl/ability';
 import { closeParams, closeQuery } from '@busbar/shared';
 import { Router } from 'express';
-import { locationScope, narrowScope } from '../access/locations.ts';
+import { locationScope, reportWithin } from '../access/locations.ts';
 import type { AppContext } from '../context.ts';
 import { forbidden, notFound } from '../errors.ts';
 import { viewerOf } from '../middleware/session.ts';
 import { validate } from '../middleware/validate.ts';
 import { finalizeMonth, monthClose } from '../queries/month-close.ts';
+
+const CLOSERS_ONLY = 'Only the accountant and the network owner close months';
 
 /**
  * The month close of the person's locations (the accountant's and the owner's: people who export
@@ -20,10 +22,10 @@ export function closesRouter({ db, now }: AppContext): Router {
     '/',
     validate({ query: closeQuery }, async ({ query }, req, res) => {
       const viewer = viewerOf(req);
-      const readable = locationScope(viewer, 'export', 'Report');
-      if (readable !== 'all' && readable.length === 0) throw forbidden('Only the accountant and the network owner close months');
-      const scope = narrowScope(viewer, readable, query);
-      if (scope !== 'all' && scope.length === 0) throw forbidden('You cannot close the months of that shop or region');
+      const scope = reportWithin(viewer, locationScope(viewer, 'export', 'Report'), query, {
+        none: CLOSERS_ONLY,
+        outside: 'You cannot close the months of that shop or region',
+      });
       res.json(await monthClose(db, query.month, scope, now()));
     }),
   );
@@ -34,7 +36,7 @@ export function closesRouter({ db, now }: AppContext): Router {
       const viewer = viewerOf(req);
       const location = await db.selectFrom('locations').select(['id', 'name']).where('id', '=', params.locationId).executeTakeFirst();
       if (!location || !viewer.ability.can('read', subject('Location', { id: location.id }))) throw notFound('location');
-      if (!viewer.ability.can('export', subject('Report', { locationId: location.id }))) throw forbidden('Only the accountant and the network owner close months');
+      if (!viewer.ability.can('export', subject('Report', { locationId: location.id }))) throw forbidden(CLOSERS_ONLY);
       res.status(201).json(await finalizeMonth(db, location, params.month, { id: viewer.id, at: now() }));
     }),
   );

@@ -1,9 +1,8 @@
 import { comparisonQuery, rollupQuery } from '@busbar/shared';
 import { Router } from 'express';
-import { locationScope, narrowScope, type LocationScope } from '../access/locations.ts';
+import { locationScope, reportWithin } from '../access/locations.ts';
 import type { Viewer } from '../access/viewer.ts';
 import type { AppContext } from '../context.ts';
-import { forbidden } from '../errors.ts';
 import { viewerOf } from '../middleware/session.ts';
 import { validate } from '../middleware/validate.ts';
 import { compareLocations } from '../queries/rollups-compare.ts';
@@ -40,10 +39,8 @@ export function rollupsRouter({ db, config }: AppContext): Router {
 }
 
 /** The locations whose figures the person reads, within the shop or region asked for; none is refused. */
-function reportScope(viewer: Viewer, within: { locationId?: number | undefined; regionId?: number | undefined }): LocationScope {
-  const readable = locationScope(viewer, 'read', 'Report');
-  if (readable !== 'all' && readable.length === 0) throw forbidden('You cannot read the figures of any location');
-  const scope = narrowScope(viewer, readable, within);
-  if (scope !== 'all' && scope.length === 0) throw forbidden('You cannot read the figures of that shop or region');
-  return scope;
-}
+const reportScope = (viewer: Viewer, within: { locationId?: number | undefined; regionId?: number | undefined }) =>
+  reportWithin(viewer, locationScope(viewer, 'read', 'Report'), within, {
+    none: 'You cannot read the figures of any location',
+    outside: 'You cannot read the figures of that shop or region',
+  });
