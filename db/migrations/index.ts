@@ -26,6 +26,7 @@ import * as addWeeklyDigest from './024-add-weekly-digest.ts';
 import * as createRoyaltyTerms from './025-create-royalty-terms.ts';
 import * as createMonthCloses from './026-create-month-closes.ts';
 import * as indexClaimsLoggedOn from './027-index-claims-logged-on.ts';
+import * as createExports from './028-create-exports.ts';
 
 /** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
 export const migrations: Record<string, Migration> = {
@@ -56,4 +57,5 @@ export const migrations: Record<string, Migration> = {
   '025-create-royalty-terms': createRoyaltyTerms,
   '026-create-month-closes': createMonthCloses,
   '027-index-claims-logged-on': indexClaimsLoggedOn,
+  '028-create-exports': createExports,
 };

@@ -7,6 +7,7 @@ import type { ClaimEventsTable } from './claim-events.ts';
 import type { ClaimEvidenceTable } from './claim-evidence.ts';
 import type { CatalogItemsTable } from './catalog-items.ts';
 import type { CustomersTable } from './customers.ts';
+import type { ExportsTable } from './exports.ts';
 import type { VehiclesTable } from './vehicles.ts';
 import type { VendorsTable } from './vendors.ts';
 import type { WarrantyClaimsTable } from './warranty-claims.ts';
@@ -54,4 +55,5 @@ export interface Database {
   weeklyDigests: WeeklyDigestsTable;
   royaltyTerms: RoyaltyTermsTable;
   monthCloses: MonthClosesTable;
+  exports: ExportsTable;
 }

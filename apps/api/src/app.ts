@@ -18,6 +18,7 @@ import { claimSendRouter } from './routes/claim-send.ts';
 import { claimsRouter } from './routes/claims.ts';
 import { closesRouter } from './routes/closes.ts';
 import { customersRouter } from './routes/customers.ts';
+import { exportsRouter } from './routes/exports.ts';
 import { healthRouter } from './routes/health.ts';
 import { importsRouter } from './routes/imports.ts';
 import { invitesRouter } from './routes/invites.ts';
@@ -78,6 +79,7 @@ export function createApp(ctx: AppContext): Express {
   app.use('/api/reliability', requireSession(db), reliabilityRouter(ctx));
   app.use('/api/rollups', requireSession(db), rollupsRouter(ctx));
   app.use('/api/closes', requireSession(db), closesRouter(ctx));
+  app.use('/api/exports', requireSession(db), exportsRouter(ctx));
   app.use('/api/imports', requireSession(db), importsRouter(ctx));
   app.use('/api', requireSession(db), adminRouter(ctx));
   app.use('/api', () => {

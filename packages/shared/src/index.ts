@@ -17,3 +17,4 @@ export * from './schemas/reliability.ts';
 export * from './rollup-periods.ts';
 export * from './schemas/rollups.ts';
 export * from './schemas/closes.ts';
+export * from './schemas/exports.ts';

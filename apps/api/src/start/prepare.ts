@@ -5,6 +5,7 @@ import { ensureDemoData } from '../demo.ts';
 import { sendWeeklyDigests } from '../digest/weekly-digest.ts';
 import { startMailCapture } from '../mail/capture.ts';
 import { createMailer } from '../mail/mailer.ts';
+import { failUnfinishedExports } from '../queries/exports.ts';
 import { keepPlannerStatistics } from '../queries/statistics.ts';
 
 /** Where the app's mail goes: the configured server, or the local capture this start-up runs. */
@@ -15,9 +16,9 @@ export interface MailRoute {
 
 /**
  * What runs once for the whole app, before any process answers requests: migrations, the demo
- * network for an empty database, the planner's statistics and session pruning (both kept up on a
- * schedule), the local mail capture when no SMTP server is set, and the weekly e-mail (looked
- * for every hour).
+ * network for an empty database, exports a stopped app left unfinished marked failed, the
+ * planner's statistics and session pruning (both kept up on a schedule), the local mail capture
+ * when no SMTP server is set, and the weekly e-mail (looked for every hour).
  */
 export async function prepare(config: Config, now: () => Date): Promise<MailRoute> {
   const db = openDatabase(config.databaseFile);
@@ -27,6 +28,7 @@ export async function prepare(config: Config, now: () => Date): Promise<MailRout
   }
   await keepPlannerStatistics(db);
   await pruneSessions(db, now());
+  await failUnfinishedExports(db, now());
   setInterval(() => void pruneSessions(db, now()), 3_600_000).unref();
   const mail = await mailRoute(config);
   const mailer = createMailer(db, mail.smtpUrl, config.mailFrom, now, mail.captured);

@@ -32,3 +32,4 @@ const asJson = (answer: unknown) => utf8Of([JSON.stringify(answer)]);
 export const reliabilityListOf = onFile(reliabilityList, asJson);
 export const reliabilityDetailOf = onFile(reliabilityDetail, asJson);
 export const rollupReportOf = onFile(rollupReportJson, (bytes) => bytes);
+export { runExport } from '../exports/export-job.ts';

@@ -79,7 +79,8 @@ export interface Rollups {
 /** The most months one comparison of locations covers. */
 export const MAX_COMPARED_MONTHS = 36;
 export const monthSchema = z.string().regex(/^\d{4}-(0[1-9]|1[0-2])$/, 'Use a month like 2026-03');
-const monthsBetween = (from: string, to: string) => (Number(to.slice(0, 4)) - Number(from.slice(0, 4))) * 12 + Number(to.slice(5)) - Number(from.slice(5)) + 1;
+/** How many months from `from` to `to`, both counted (2026-01 to 2026-03: 3). */
+export const monthsBetween = (from: string, to: string) => (Number(to.slice(0, 4)) - Number(from.slice(0, 4))) * 12 + Number(to.slice(5)) - Number(from.slice(5)) + 1;
 
 /** Whole months, from and to (inclusive), each cut in its location's zone. */
 export const comparisonQuery = z
