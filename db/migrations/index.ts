@@ -27,6 +27,7 @@ import * as createRoyaltyTerms from './025-create-royalty-terms.ts';
 import * as createMonthCloses from './026-create-month-closes.ts';
 import * as indexClaimsLoggedOn from './027-index-claims-logged-on.ts';
 import * as createExports from './028-create-exports.ts';
+import * as createSalesTaxRates from './029-create-sales-tax-rates.ts';
 
 /** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
 export const migrations: Record<string, Migration> = {
@@ -58,4 +59,5 @@ export const migrations: Record<string, Migration> = {
   '026-create-month-closes': createMonthCloses,
   '027-index-claims-logged-on': indexClaimsLoggedOn,
   '028-create-exports': createExports,
+  '029-create-sales-tax-rates': createSalesTaxRates,
 };

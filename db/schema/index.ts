@@ -12,7 +12,7 @@ import type { VehiclesTable } from './vehicles.ts';
 import type { VendorsTable } from './vendors.ts';
 import type { WarrantyClaimsTable } from './warranty-claims.ts';
 import type { InvitesTable } from './invites.ts';
-import type { LocationsTable, MonthClosesTable, RoyaltyTermsTable } from './locations.ts';
+import type { LocationsTable, MonthClosesTable, RoyaltyTermsTable, SalesTaxRatesTable } from './locations.ts';
 import type { MailLogTable } from './mail-log.ts';
 import type { PowerPlanRevisionsTable } from './power-plan-revisions.ts';
 import type { PowerPlansTable } from './power-plans.ts';
@@ -55,5 +55,6 @@ export interface Database {
   weeklyDigests: WeeklyDigestsTable;
   royaltyTerms: RoyaltyTermsTable;
   monthCloses: MonthClosesTable;
+  salesTaxRates: SalesTaxRatesTable;
   exports: ExportsTable;
 }

@@ -25,6 +25,20 @@ export interface RoyaltyTermsTable {
   createdAt: string;
 }
 
+/** A location's sales tax rate from a month on (migration 029), set by the owner; none set: no sales tax. */
+export interface SalesTaxRatesTable {
+  id: Generated<number>;
+  locationId: number;
+  /** The first month (YYYY-MM) the rate applies to; it holds until the next rate's month. */
+  appliesFrom: string;
+  /** Of the taxable sales, in basis points (825 = 8.25 %). */
+  basisPoints: number;
+  /** 1 where labor is taxed as well as parts, else 0. */
+  laborTaxed: number;
+  createdBy: number | null;
+  createdAt: string;
+}
+
 /** A location's month marked final (migration 026); `figures` and `carried` are JSON. */
 export interface MonthClosesTable {
   locationId: number;

@@ -85,6 +85,28 @@ describe('database', () => {
     await db.destroy();
   });
 
+  it('keeps one sales tax rate a month per location, within 0 to 100 %, and drops them going down', async () => {
+    const db = await fresh();
+    const migrator = new Migrator({ db, provider: { getMigrations: async () => migrations } });
+    await sql`insert into regions (code, name) values ('MID', 'Midlands')`.execute(db);
+    await sql`insert into locations (region_id, code, name, time_zone, labor_rate_cents) values (1, 'RVR', 'Riverton', 'America/Denver', 12000)`.execute(db);
+    const rate = (appliesFrom: string, basisPoints: number, laborTaxed: number) =>
+      db.insertInto('salesTaxRates').values({ locationId: 1, appliesFrom, basisPoints, laborTaxed, createdBy: null, createdAt: '2026-01-01T00:00:00Z' }).execute();
+    await rate('2026-01', 825, 0);
+    await rate('2026-02', 10_000, 1);
+    await expect(rate('2026-01', 900, 1)).rejects.toThrow(/UNIQUE/);
+    await expect(rate('2026-03', 10_001, 0)).rejects.toThrow(/CHECK/);
+    await expect(rate('2026-03', 825, 2)).rejects.toThrow(/CHECK/);
+    await expect(rate('2026-3', 825, 0)).rejects.toThrow(/CHECK/);
+    expect(await db.selectFrom('salesTaxRates').select(['appliesFrom', 'basisPoints', 'laborTaxed']).orderBy('appliesFrom').execute()).toEqual([
+      { appliesFrom: '2026-01', basisPoints: 825, laborTaxed: 0 },
+      { appliesFrom: '2026-02', basisPoints: 10_000, laborTaxed: 1 },
+    ]);
+    expect((await migrator.migrateTo('028-create-exports')).error).toBeUndefined();
+    expect((await db.introspection.getTables()).map((t) => t.name)).not.toContain('sales_tax_rates');
+    await db.destroy();
+  });
+
   it('generates the same demo network for the same seed and clock', async () => {
     const options = { passwordHash: 'scrypt$10$8$1$x$y', now: new Date('2026-01-01T00:00:00Z'), seed: 42 };
     const [a, b] = [await fresh(), await fresh()];

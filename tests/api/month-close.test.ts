@@ -7,10 +7,13 @@ import { addDeliveredUnit } from '../support/claim-fixtures.ts';
 import { SIGN_INS } from '../support/staff-fixtures.ts';
 
 /**
- * January 2019, made by hand (the demo has nothing then, nor royalty terms): builds delivered at
- * Denver (UTC−7 in winter; royalty 6 % and marketing fund 1.5 % from December 2018, 7 % from
- * February) and Portland (UTC−8; 6.5 % and 1 % from January) either side of local midnight, and
- * claims at Denver credited, still open and denied. Every figure below was worked out by hand.
+ * January 2019, made by hand (the demo has nothing then, nor royalty terms, nor sales tax): builds
+ * delivered at Denver (UTC−7 in winter; royalty 6 % and marketing fund 1.5 % from December 2018,
+ * 7 % from February; sales tax on parts only, 7.5 % from December and 8.25 % from January, then
+ * 8.5 % on parts and labor from February), Portland (UTC−8; 6.5 % and 1 % from January; no sales
+ * tax) either side of local midnight, and Phoenix (UTC−7; no royalty terms; 8.25 % sales tax on
+ * parts and labor from January), and claims at Denver credited, still open and denied. Every
+ * figure below was worked out by hand.
  */
 let h: Harness;
 let ids: Awaited<ReturnType<typeof demoIds>>;
@@ -49,6 +52,7 @@ beforeAll(async () => {
   // 23:30 on December 31, 2018 local: not January's.
   await delivered(h.db, 'DEN', '2019-01-01T06:30:00.000Z', '2018-12-31', { parts: 99_999, labor: 0, cost: 1 });
   await delivered(h.db, 'PDX', '2019-01-15T20:00:00.000Z', '2019-01-15', { parts: 100_010, labor: 0, cost: 40_000 });
+  await delivered(h.db, 'PHX', '2019-01-20T19:00:00.000Z', '2019-01-20', { parts: 40_000, labor: 20_200, cost: 25_000 });
   await claim('2019-01-05T18:00:00.000Z', 20_000, { status: 'credited', received: 20_000 });
   await claim('2019-01-20T18:00:00.000Z', 15_000, null);
   await claim('2019-01-25T18:00:00.000Z', 9_000, { status: 'denied' });
@@ -57,6 +61,10 @@ beforeAll(async () => {
   const terms = [['DEN', '2018-12', 600, 150], ['DEN', '2019-02', 700, 150], ['PDX', '2019-01', 650, 100]] as const;
   for (const [code, appliesFrom, royaltyBasisPoints, marketingBasisPoints] of terms) {
     await owner.post(`/api/locations/${ids.location(code)}/royalty-terms`).send({ appliesFrom, royaltyBasisPoints, marketingBasisPoints }).expect(201);
+  }
+  const salesTax = [['DEN', '2018-12', 750, false], ['DEN', '2019-01', 825, false], ['DEN', '2019-02', 850, true], ['PHX', '2019-01', 825, true]] as const;
+  for (const [code, appliesFrom, basisPoints, laborTaxed] of salesTax) {
+    await owner.post(`/api/locations/${ids.location(code)}/sales-tax`).send({ appliesFrom, basisPoints, laborTaxed }).expect(201);
   }
 }, 60_000);
 afterAll(() => h.close());
@@ -71,6 +79,8 @@ describe('the month close', () => {
       locationId: ids.location('DEN'),
       royaltyBasisPoints: 600,
       marketingBasisPoints: 150,
+      salesTaxBasisPoints: 825,
+      laborTaxed: false,
       buildsDelivered: 2,
       partsRevenueCents: 133_456, // 1,234.56 + 100.00
       laborRevenueCents: 65_250, // 507.50 + 145.00
@@ -84,6 +94,7 @@ describe('the month close', () => {
       royaltyBaseCents: 198_706,
       royaltyDueCents: 11_922, // 6 % of 1,987.06 = 119.2236
       marketingDueCents: 2_981, // 1.5 % of 1,987.06 = 29.8059
+      salesTaxCents: 11_010, // 8.25 % of the parts' 1,334.56 = 110.1012; the labor is not taxed there
       status: 'open',
       finalizedAt: null,
       finalizedByName: null,
@@ -94,7 +105,12 @@ describe('the month close', () => {
     const pdx = close.locations.find((l) => l.locationId === ids.location('PDX'))!;
     // 6.5 % of 1,000.10 = 65.0065: half a cent and more goes up.
     expect(pdx).toMatchObject({ royaltyBasisPoints: 650, revenueCents: 100_010, royaltyDueCents: 6_501, marketingDueCents: 1_000, grossMarginCents: 60_010 });
-    expect(close.total).toMatchObject({ buildsDelivered: 3, revenueCents: 298_716, royaltyDueCents: 18_423, marketingDueCents: 3_981, creditOutstandingCents: 15_000 });
+    // Portland has no sales tax rate: it charges none on its 1,000.10.
+    expect(pdx).toMatchObject({ salesTaxBasisPoints: null, laborTaxed: null, salesTaxCents: 0 });
+    // Phoenix taxes parts and labor: 8.25 % of 400.00 + 202.00 = 49.665, half a cent up; no royalty terms, no royalty.
+    const phx = close.locations.find((l) => l.locationId === ids.location('PHX'))!;
+    expect(phx).toMatchObject({ salesTaxBasisPoints: 825, laborTaxed: true, revenueCents: 60_200, salesTaxCents: 4_967, royaltyBaseCents: 60_200, royaltyDueCents: 0 });
+    expect(close.total).toMatchObject({ buildsDelivered: 4, revenueCents: 358_916, royaltyDueCents: 18_423, marketingDueCents: 3_981, creditOutstandingCents: 15_000, salesTaxCents: 15_977 });
     // Boise has no terms that month: nothing is due, and the answer says there are none.
     expect(close.locations.find((l) => l.locationId === ids.location('BOI'))).toMatchObject({ royaltyBasisPoints: null, marketingBasisPoints: null, royaltyDueCents: 0 });
     expect(close.locations).toHaveLength(8);
@@ -105,10 +121,10 @@ describe('the month close', () => {
     const running = (await ask(SIGN_INS.owner, 'month=2026-06')).body as MonthClose;
     expect(running.ended).toBe(false);
     const december = (await ask(SIGN_INS.owner, 'month=2018-12')).body as MonthClose;
-    // 6 % of 999.99 = 59.9994.
-    expect(december.locations.find((l) => l.locationId === ids.location('DEN'))).toMatchObject({ buildsDelivered: 1, revenueCents: 99_999, royaltyDueCents: 6_000 });
+    // 6 % of 999.99 = 59.9994; December's sales tax rate, 7.5 % of 999.99 = 74.99925.
+    expect(december.locations.find((l) => l.locationId === ids.location('DEN'))).toMatchObject({ buildsDelivered: 1, revenueCents: 99_999, royaltyDueCents: 6_000, salesTaxBasisPoints: 750, salesTaxCents: 7_500 });
     const february = (await ask(SIGN_INS.owner, 'month=2019-02')).body as MonthClose;
-    expect(february.locations.find((l) => l.locationId === ids.location('DEN'))).toMatchObject({ royaltyBasisPoints: 700, buildsDelivered: 0, royaltyDueCents: 0 });
+    expect(february.locations.find((l) => l.locationId === ids.location('DEN'))).toMatchObject({ royaltyBasisPoints: 700, buildsDelivered: 0, royaltyDueCents: 0, salesTaxBasisPoints: 850, laborTaxed: true, salesTaxCents: 0 });
   });
 
   it('keeps to a region or a shop asked for', async () => {
@@ -145,13 +161,13 @@ describe('marking a month final', () => {
   it('keeps the month as closed, and shows a later change to it once, in the next month closed', async () => {
     const closed = await final(SIGN_INS.accountant, 'DEN', '2019-01');
     expect(closed.status).toBe(201);
-    expect(closed.body).toMatchObject({ status: 'final', revenueCents: 198_706, royaltyDueCents: 11_922, adjustments: null, finalizedByName: 'Felix Moreau' });
+    expect(closed.body).toMatchObject({ status: 'final', revenueCents: 198_706, royaltyDueCents: 11_922, salesTaxCents: 11_010, adjustments: null, finalizedByName: 'Felix Moreau' });
     expect(await denIn('2019-02')).toMatchObject({ next: true, nextToClose: '2019-02' });
     expect(closed.body.nextToClose).toBe('2019-02');
 
     // A correction after the close: the January 10 build gains $100.00 of parts.
     await h.db.updateTable('builds').set((eb) => ({ partsPriceCents: eb('partsPriceCents', '+', 10_000), totalCents: eb('totalCents', '+', 10_000) })).where('deliveredOn', '=', '2019-01-10').where('locationId', '=', ids.location('DEN')).execute();
-    expect(await denIn('2019-01')).toMatchObject({ status: 'final', revenueCents: 198_706, royaltyDueCents: 11_922 });
+    expect(await denIn('2019-01')).toMatchObject({ status: 'final', revenueCents: 198_706, royaltyDueCents: 11_922, salesTaxCents: 11_010 });
     const february = await denIn('2019-02');
     expect(february).toMatchObject({ status: 'open', next: true, revenueCents: 0 });
     // 6 % of 2,087.06 = 125.2236 against 119.22 closed; 1.5 % = 31.3059 against 29.81.
@@ -188,5 +204,27 @@ describe('marking a month final', () => {
     }
     expect((await (await h.signedIn(SIGN_INS.accountant)).post('/api/closes/99999/2019-03/final')).status).toBe(404);
     expect((await denIn('2019-03')).status).toBe('open');
+  });
+});
+
+describe('a month closed before sales tax was kept', () => {
+  it('reads as closed with no sales tax, even where a rate is in force now', async () => {
+    const aus = ids.location('AUS');
+    await delivered(h.db, 'AUS', '2018-03-14T18:00:00.000Z', '2018-03-14', { parts: 10_000, labor: 5_000, cost: 4_000 });
+    const owner = await h.signedIn(SIGN_INS.owner);
+    await owner.post(`/api/locations/${aus}/sales-tax`).send({ appliesFrom: '2018-01', basisPoints: 825, laborTaxed: true }).expect(201);
+    // As a close marked final then kept it: no sales tax figure, rate or labor answer at all.
+    const figures = {
+      locationId: aus, royaltyBasisPoints: null, marketingBasisPoints: null, buildsDelivered: 1, partsRevenueCents: 10_000, laborRevenueCents: 5_000, revenueCents: 15_000,
+      partsCostCents: 4_000, grossMarginCents: 11_000, claimsLogged: 0, creditRequestedCents: 0, creditReceivedCents: 0, creditOutstandingCents: 0,
+      royaltyBaseCents: 15_000, royaltyDueCents: 0, marketingDueCents: 0, adjustments: null,
+    };
+    const carried = { buildsDelivered: 1, revenueCents: 15_000, partsCostCents: 4_000, creditReceivedCents: 0 };
+    await h.db.insertInto('monthCloses').values({ locationId: aus, month: '2018-03', finalizedAt: '2018-04-02T15:00:00.000Z', finalizedBy: null, figures: JSON.stringify(figures), carried: JSON.stringify(carried) }).execute();
+
+    const close = (await ask(SIGN_INS.accountant, 'month=2018-03')).body as MonthClose;
+    // Open, the month would owe 8.25 % of 150.00 = 12.375; closed, it owes what it was closed with.
+    expect(close.locations.find((l) => l.locationId === aus)).toMatchObject({ status: 'final', revenueCents: 15_000, salesTaxCents: 0, salesTaxBasisPoints: null, laborTaxed: null });
+    expect(close.total).toMatchObject({ buildsDelivered: 1, revenueCents: 15_000, salesTaxCents: 0 });
   });
 });

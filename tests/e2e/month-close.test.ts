@@ -50,6 +50,8 @@ describe('month close', () => {
     await expect.poll(() => accountant.locator('.to-close').textContent()).toMatch(/Months to close: Jun 2026 at DEN · 7 shops have no month final yet/);
     await accountant.setViewportSize({ width: 390, height: 844 });
     await accountant.getByText('Royalty due (7 %)').waitFor();
+    // The demo's shops have no sales tax rate: each card says so.
+    expect(await accountant.getByText('Sales tax (No sales tax)').count()).toBe(8);
     // Once the menu has folded to its icons.
     await expect.poll(() => fitsWidth(accountant)).toBe(true);
     await accountant.context().close();

@@ -186,6 +186,18 @@ export const router = createRouter({
           meta: { action: 'export', subject: 'Report', title: 'Month close' },
         },
         {
+          path: 'month-close/status',
+          name: 'close-status',
+          component: () => import('./views/money/CloseStatus.vue'),
+          meta: { action: 'export', subject: 'Report', title: 'Close status' },
+        },
+        {
+          path: 'exports',
+          name: 'exports',
+          component: () => import('./views/money/Exports.vue'),
+          meta: { action: 'export', subject: 'Report', title: 'Exports' },
+        },
+        {
           path: 'reliability',
           name: 'reliability',
           component: () => import('./views/reliability/ReliabilityList.vue'),

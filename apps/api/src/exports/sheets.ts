@@ -20,6 +20,7 @@ const SUMMARY: Column<ClosedMonth>[] = [
   money('revenue', 'Revenue', (c) => c.revenueCents),
   money('cost', 'Parts cost', (c) => c.partsCostCents),
   money('margin', 'Gross margin', (c) => c.grossMarginCents),
+  money('salesTax', 'Sales tax', (c) => c.salesTaxCents),
   { key: 'claims', header: 'Claims logged', kind: 'count', width: 10, value: (c) => c.claimsLogged, summed: true },
   money('requested', 'Credit asked', (c) => c.creditRequestedCents),
   money('received', 'Credit received', (c) => c.creditReceivedCents),

@@ -5,10 +5,10 @@ import type { LocationScope } from '../access/locations.ts';
 
 export const FIGURES = [
   'buildsDelivered', 'partsRevenueCents', 'laborRevenueCents', 'revenueCents', 'partsCostCents', 'grossMarginCents',
-  'claimsLogged', 'creditRequestedCents', 'creditReceivedCents', 'creditOutstandingCents', 'royaltyBaseCents', 'royaltyDueCents', 'marketingDueCents',
+  'claimsLogged', 'creditRequestedCents', 'creditReceivedCents', 'creditOutstandingCents', 'royaltyBaseCents', 'royaltyDueCents', 'marketingDueCents', 'salesTaxCents',
 ] as const satisfies readonly (keyof MonthCloseFigures)[];
 
-/** Royalty (or marketing fund) in cents of `baseCents` at `basisPoints` (650 = 6.5 %), half a cent and up rounded up. */
+/** Royalty (marketing fund, sales tax) in cents of `baseCents` at `basisPoints` (650 = 6.5 %), half a cent and up rounded up. */
 export const royaltyCents = (baseCents: number, basisPoints: number) => Math.round((baseCents * basisPoints) / 10_000);
 
 /** A location's month as its builds and claims add up now, with the rates of its terms, and its time zone. */
@@ -57,7 +57,11 @@ export async function liveCloses(db: Db, month: string, scope: LocationScope): P
     .leftJoin('royaltyTerms as t', (join) =>
       join.onRef('t.locationId', '=', 'l.id').on(sql.ref('t.appliesFrom'), '=', sql`(select max(u.applies_from) from royalty_terms u where u.location_id = l.id and u.applies_from <= ${month})`),
     )
-    .select(['l.id', 'l.timeZone', 't.royaltyBasisPoints', 't.marketingBasisPoints', 'b.delivered', 'b.parts', 'b.labor', 'b.revenue', 'b.cost', 'c.claims', 'c.requested', 'c.received', 'c.outstanding'])
+    // Likewise the sales tax rate in force that month.
+    .leftJoin('salesTaxRates as s', (join) =>
+      join.onRef('s.locationId', '=', 'l.id').on(sql.ref('s.appliesFrom'), '=', sql`(select max(v.applies_from) from sales_tax_rates v where v.location_id = l.id and v.applies_from <= ${month})`),
+    )
+    .select(['l.id', 'l.timeZone', 't.royaltyBasisPoints', 't.marketingBasisPoints', 's.basisPoints as taxBasisPoints', 's.laborTaxed', 'b.delivered', 'b.parts', 'b.labor', 'b.revenue', 'b.cost', 'c.claims', 'c.requested', 'c.received', 'c.outstanding'])
     .orderBy('l.code');
   if (scope !== 'all') query = query.where('l.id', 'in', scope.length > 0 ? scope : [0]);
   const rows = await query.execute();
@@ -66,11 +70,16 @@ export async function liveCloses(db: Db, month: string, scope: LocationScope): P
     const revenue = r.revenue ?? 0;
     // A location without terms (none set yet) owes nothing until the owner sets them; the screen says so.
     const [royaltyBasisPoints, marketingBasisPoints] = [r.royaltyBasisPoints ?? null, r.marketingBasisPoints ?? null];
+    // Likewise a location without a sales tax rate charges none.
+    const laborTaxed = r.laborTaxed === null ? null : r.laborTaxed === 1;
+    const taxable = (r.parts ?? 0) + (laborTaxed ? (r.labor ?? 0) : 0);
     return {
       locationId: r.id,
       timeZone: r.timeZone,
       royaltyBasisPoints,
       marketingBasisPoints,
+      salesTaxBasisPoints: r.taxBasisPoints,
+      laborTaxed,
       buildsDelivered: r.delivered ?? 0,
       partsRevenueCents: r.parts ?? 0,
       laborRevenueCents: r.labor ?? 0,
@@ -84,6 +93,7 @@ export async function liveCloses(db: Db, month: string, scope: LocationScope): P
       royaltyBaseCents: revenue,
       royaltyDueCents: royaltyCents(revenue, royaltyBasisPoints ?? 0),
       marketingDueCents: royaltyCents(revenue, marketingBasisPoints ?? 0),
+      salesTaxCents: royaltyCents(taxable, r.taxBasisPoints ?? 0),
     };
   });
 }

@@ -8,9 +8,10 @@ import { FIGURES, liveCloses, type LiveClose } from './month-close-figures.ts';
 import { adjustmentsOf, carriedNow, driftsOf, finalsIn, lastFinals, nextMonth } from './month-finals.ts';
 
 const MONTHS = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'];
-const inWords = (month: string) => `${MONTHS[Number(month.slice(5)) - 1]} ${month.slice(0, 4)}`;
+/** A month (YYYY-MM) in words: "March 2026". */
+export const inWords = (month: string) => `${MONTHS[Number(month.slice(5)) - 1]} ${month.slice(0, 4)}`;
 /** Whether the month has ended at a location by `now`: its local today lies past the month's last day. */
-const endedAt = (timeZone: string, month: string, now: Date) => isoDay(localDay(timeZone, now.getTime())).slice(0, 7) > month;
+export const endedAt = (timeZone: string, month: string, now: Date) => isoDay(localDay(timeZone, now.getTime())).slice(0, 7) > month;
 
 /**
  * The month at each location of `scope`: as closed where it is final, else as it stands now; the

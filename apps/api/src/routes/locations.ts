@@ -1,21 +1,27 @@
 import { subject } from '@casl/ability';
-import { idParams, locationListQuery, locationUpdate, noQuery, royaltyTermsBody, type AppAbility } from '@busbar/shared';
+import { idParams, locationListQuery, locationUpdate, noQuery, royaltyTermsBody, salesTaxBody, type AppAbility } from '@busbar/shared';
 import { Router } from 'express';
 import type { AppContext } from '../context.ts';
-import { forbidden, notFound } from '../errors.ts';
+import { conflict, forbidden, notFound } from '../errors.ts';
 import { viewerOf } from '../middleware/session.ts';
 import { validate } from '../middleware/validate.ts';
 import { buildLeadsAt } from '../queries/assignments.ts';
 import { writeAudit } from '../queries/audit.ts';
 import { findLocationSettings, listLocations, pageLocations, setApprovalLimit } from '../queries/locations.ts';
+import { inWords } from '../queries/month-close.ts';
 import { listRoyaltyTerms, setRoyaltyTerms } from '../queries/royalty-terms.ts';
+import { addSalesTax, listSalesTax } from '../queries/sales-tax.ts';
 
 const canRead = (ability: AppAbility, id: number) => ability.can('read', subject('Location', { id }));
+/** Whoever reads the shop's reports with its revenue: the sales tax collected follows from both. */
+const readsMoneyAt = (ability: AppAbility, locationId: number) =>
+  ability.can('read', subject('Report', { locationId })) && ability.can('read', subject('Build', { locationId }), 'totalCents');
 
 /**
  * Locations: every one a person may see, whole (for pickers and labels); a page of them with their
- * settings; one location; the owner's change of its claim approval limit; and its royalty terms,
- * which the owner sets and the accountant reads.
+ * settings; one location; the owner's change of its claim approval limit; its royalty terms,
+ * which the owner sets and the accountant reads; and its sales tax rates, which the owner sets and
+ * whoever reads the shop's revenue reads.
  */
 export function locationsRouter({ db, now }: AppContext): Router {
   const router = Router();
@@ -87,6 +93,37 @@ export function locationsRouter({ db, now }: AppContext): Router {
         await writeAudit(trx, { at, actorId: viewer.id, action: 'location.royalty_terms', entity: 'location', entityId: params.id, before, after: body });
       });
       res.status(201).json(await listRoyaltyTerms(db, params.id));
+    }),
+  );
+
+  router.get(
+    '/:id/sales-tax',
+    validate({ params: idParams, query: noQuery }, async ({ params }, req, res) => {
+      const { ability } = viewerOf(req);
+      const location = await findLocationSettings(db, params.id);
+      if (!location || !canRead(ability, location.id)) throw notFound('location');
+      if (!readsMoneyAt(ability, location.id)) throw forbidden('Only people who read the shop’s revenue read its sales tax');
+      res.json(await listSalesTax(db, location.id));
+    }),
+  );
+
+  router.post(
+    '/:id/sales-tax',
+    validate({ params: idParams, body: salesTaxBody }, async ({ params, body }, req, res) => {
+      const viewer = viewerOf(req);
+      const location = await findLocationSettings(db, params.id);
+      if (!location || !canRead(viewer.ability, location.id)) throw notFound('location');
+      if (!viewer.ability.can('update', subject('Location', { id: location.id }))) throw forbidden('Only the network owner sets sales tax');
+      const at = now().toISOString();
+      await db.transaction().execute(async (trx) => {
+        // A month's rate is never rewritten, so the audit log shows each as it was used; a change takes a later month.
+        if (!(await addSalesTax(trx, location.id, body, { id: viewer.id, at }))) {
+          const message = `${location.name} already has a sales tax rate from ${inWords(body.appliesFrom)}: set the new rate from a later month`;
+          throw conflict(message, { appliesFrom: message });
+        }
+        await writeAudit(trx, { at, actorId: viewer.id, action: 'location.sales_tax', entity: 'location', entityId: location.id, before: null, after: body });
+      });
+      res.status(201).json(await listSalesTax(db, location.id));
     }),
   );
 

@@ -1,4 +1,4 @@
-import type { LocationSettings, LocationUpdate, Page, RoyaltyTermsBody, RoyaltyTermsView } from '@busbar/shared';
+import type { LocationSettings, LocationUpdate, Page, RoyaltyTermsBody, RoyaltyTermsView, SalesTaxBody, SalesTaxView } from '@busbar/shared';
 import { request } from './client.ts';
 
 export interface LocationFilter {
@@ -18,3 +18,9 @@ export const listRoyaltyTerms = (id: number) => request<RoyaltyTermsView[]>(`/lo
 
 /** The owner sets terms from a month on; answers the location's terms after it. */
 export const setRoyaltyTerms = (id: number, body: RoyaltyTermsBody) => request<RoyaltyTermsView[]>(`/locations/${id}/royalty-terms`, { method: 'POST', body });
+
+/** A location's sales tax rates, the latest month first (whoever reads the shop's revenue). */
+export const listSalesTax = (id: number) => request<SalesTaxView[]>(`/locations/${id}/sales-tax`);
+
+/** The owner sets a rate from a month on; answers the location's rates after it. */
+export const addSalesTax = (id: number, body: SalesTaxBody) => request<SalesTaxView[]>(`/locations/${id}/sales-tax`, { method: 'POST', body });

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { idSchema } from './common.ts';
-import { monthSchema } from './rollups.ts';
+import { monthSchema, monthsBetween } from './rollups.ts';
 
 /** One month (YYYY-MM) of the person's locations, or of one shop or region of them. */
 export const closeQuery = z.strictObject({ month: monthSchema, locationId: idSchema.optional(), regionId: idSchema.optional() });
@@ -11,8 +11,9 @@ export type CloseQuery = z.infer<typeof closeQuery>;
  * delivered in the month: revenue split into parts and labor, parts cost, gross margin. Warranty
  * claims logged in the month: credit asked of vendors, received, and still outstanding (asked, not
  * received, not denied). Royalty and marketing fund: the royalty base (the revenue of the delivered
- * builds: parts and labor; Busbar charges no sales tax) × the rates of the location's royalty terms
- * in force that month, each rounded to the cent.
+ * builds: parts and labor, sales tax apart) × the rates of the location's royalty terms in force
+ * that month, each rounded to the cent. Sales tax collected: the location's rate in force that month
+ * × the delivered builds' parts, and their labor where the rate taxes labor, rounded to the cent.
  */
 export interface MonthCloseFigures {
   buildsDelivered: number;
@@ -28,6 +29,7 @@ export interface MonthCloseFigures {
   royaltyBaseCents: number;
   royaltyDueCents: number;
   marketingDueCents: number;
+  salesTaxCents: number;
 }
 
 /**
@@ -53,6 +55,9 @@ export interface LocationClose extends MonthCloseFigures {
   /** The rates of the terms in force that month; null where the owner has set none (nothing is due then). */
   royaltyBasisPoints: number | null;
   marketingBasisPoints: number | null;
+  /** The sales tax rate in force that month and whether it taxes labor; null where the owner has set none (no sales tax). */
+  salesTaxBasisPoints: number | null;
+  laborTaxed: boolean | null;
   status: 'open' | 'final';
   finalizedAt: string | null;
   finalizedByName: string | null;
@@ -74,3 +79,27 @@ export interface MonthClose {
 }
 
 export const closeParams = z.strictObject({ locationId: idSchema, month: monthSchema });
+
+/** The most months one close status grid covers. */
+export const MAX_STATUS_MONTHS = 24;
+
+/** The close status of months from `from` to `to` (inclusive) at the person's locations, or at one shop or region of them. */
+export const closeStatusQuery = z
+  .strictObject({ from: monthSchema, to: monthSchema, locationId: idSchema.optional(), regionId: idSchema.optional() })
+  // Only two well-formed months are compared: a malformed one is answered on its own field alone.
+  .refine((q) => q.from <= q.to, { path: ['to'], message: 'Pick a last month on or after the first', when: (p) => p.issues.length === 0 })
+  .refine((q) => monthsBetween(q.from, q.to) <= MAX_STATUS_MONTHS, { path: ['to'], message: `Pick at most ${MAX_STATUS_MONTHS} months`, when: (p) => p.issues.length === 0 });
+export type CloseStatusQuery = z.infer<typeof closeStatusQuery>;
+
+/**
+ * A location's month: final (marked so), running (not yet ended in the location's time zone), next
+ * (the next to close there: the month after its last final one, or any ended month while none is
+ * final), or open (ended, and not the next).
+ */
+export type CloseCellStatus = 'final' | 'next' | 'open' | 'running';
+
+/** Each location's months, in the order of `months`. */
+export interface CloseStatus {
+  months: string[];
+  locations: { locationId: number; cells: CloseCellStatus[] }[];
+}

@@ -48,3 +48,18 @@ export interface RoyaltyTermsView extends RoyaltyTermsBody {
   createdAt: string;
   createdByName: string | null;
 }
+
+/** A sales tax rate the owner sets on a location from a month on: on parts, and on labor where it is taxed. */
+export const salesTaxBody = z.strictObject({
+  appliesFrom: monthSchema,
+  basisPoints: z.int('Enter the rate in basis points (825 is 8.25 %)').min(0, 'The rate cannot be negative').max(10_000, 'The rate can be at most 100 %'),
+  laborTaxed: z.boolean('Say whether labor is taxed'),
+});
+export type SalesTaxBody = z.infer<typeof salesTaxBody>;
+
+/** A rate as set, with who set it. */
+export interface SalesTaxView extends SalesTaxBody {
+  id: number;
+  createdAt: string;
+  createdByName: string | null;
+}
