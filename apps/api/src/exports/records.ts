@@ -17,6 +17,14 @@ const CLAIMS_PER_BATCH = 1_000;
 
 const inScope = (scope: LocationScope, column: string) => (scope === 'all' ? sql<boolean>`1` : sql<boolean>`${sql.ref(column)} in (${sql.join(scope.length > 0 ? scope : [0])})`);
 
+/** The builds delivered in the range; `+` keeps SQLite on the day index rather than the status index (see month-close-figures.ts). */
+const deliveredIn = ({ db, first, last, scope }: ExportRange) =>
+  db.selectFrom('builds as b').where(sql`+b.status`, '=', 'delivered').where('b.deliveredOn', '>=', first).where('b.deliveredOn', '<=', last).where(inScope(scope, 'b.locationId'));
+
+/** The warranty claims logged in the range. */
+const loggedIn = ({ db, first, last, scope }: ExportRange) =>
+  db.selectFrom('warrantyClaims as w').where('w.loggedOn', '>=', first).where('w.loggedOn', '<=', last).where(inScope(scope, 'w.locationId'));
+
 export interface DeliveredBuild {
   id: number;
   number: string;
@@ -31,18 +39,12 @@ export interface DeliveredBuild {
 }
 
 /** The builds delivered in the range, by day delivered, a batch at a time (read by where the last batch ended, not by offset). */
-export async function* deliveredBuilds({ db, first, last, scope }: ExportRange): AsyncIterable<DeliveredBuild[]> {
+export async function* deliveredBuilds(range: ExportRange): AsyncIterable<DeliveredBuild[]> {
   let after = { on: '', id: 0 };
   for (;;) {
-    const batch = await db
-      .selectFrom('builds as b')
+    const batch = await deliveredIn(range)
       .innerJoin('locations as l', 'l.id', 'b.locationId')
       .innerJoin('customers as c', 'c.id', 'b.customerId')
-      // `+` keeps SQLite on the day index rather than the status index (see month-close-figures.ts).
-      .where(sql`+b.status`, '=', 'delivered')
-      .where('b.deliveredOn', '>=', first)
-      .where('b.deliveredOn', '<=', last)
-      .where(inScope(scope, 'b.locationId'))
       .where(sql<boolean>`(b.delivered_on, b.id) > (${after.on}, ${after.id})`)
       .orderBy('b.deliveredOn')
       .orderBy('b.id')
@@ -91,32 +93,13 @@ export async function* buildLines(range: ExportRange): AsyncIterable<BuildLine[]
   }
 }
 
+const count = sql<number>`count(*)`.as('n');
+
 /** How many lines the builds delivered in the range have. */
-export async function countBuildLines({ db, first, last, scope }: ExportRange): Promise<number> {
-  const row = await db
-    .selectFrom('builds as b')
-    .innerJoin('buildItems as i', 'i.buildId', 'b.id')
-    .where(sql`+b.status`, '=', 'delivered')
-    .where('b.deliveredOn', '>=', first)
-    .where('b.deliveredOn', '<=', last)
-    .where(inScope(scope, 'b.locationId'))
-    .select(sql<number>`count(*)`.as('n'))
-    .executeTakeFirstOrThrow();
-  return row.n;
-}
+export const countBuildLines = async (range: ExportRange) => (await deliveredIn(range).innerJoin('buildItems as i', 'i.buildId', 'b.id').select(count).executeTakeFirstOrThrow()).n;
 
 /** How many builds were delivered in the range. */
-export async function countDeliveredBuilds({ db, first, last, scope }: ExportRange): Promise<number> {
-  const row = await db
-    .selectFrom('builds as b')
-    .where(sql`+b.status`, '=', 'delivered')
-    .where('b.deliveredOn', '>=', first)
-    .where('b.deliveredOn', '<=', last)
-    .where(inScope(scope, 'b.locationId'))
-    .select(sql<number>`count(*)`.as('n'))
-    .executeTakeFirstOrThrow();
-  return row.n;
-}
+export const countDeliveredBuilds = async (range: ExportRange) => (await deliveredIn(range).select(count).executeTakeFirstOrThrow()).n;
 
 export interface LoggedClaim {
   id: number;
@@ -133,10 +116,15 @@ export interface LoggedClaim {
 }
 
 /** The warranty claims logged in the range, by day logged, a batch at a time. */
-export async function* loggedClaims({ db, first, last, scope }: ExportRange): AsyncIterable<LoggedClaim[]> {
+export async function* loggedClaims(range: ExportRange): AsyncIterable<LoggedClaim[]> {
   let after = { on: '', id: 0 };
   for (;;) {
-    const batch = await claimsFrom(db, first, last, scope)
+    const batch = await loggedIn(range)
+      .innerJoin('locations as l', 'l.id', 'w.locationId')
+      .innerJoin('builds as b', 'b.id', 'w.buildId')
+      .innerJoin('buildItems as i', 'i.id', 'w.buildItemId')
+      .innerJoin('catalogItems as ci', 'ci.id', 'w.catalogItemId')
+      .innerJoin('vendors as v', 'v.id', 'ci.vendorId')
       .where(sql<boolean>`(w.logged_on, w.id) > (${after.on}, ${after.id})`)
       .orderBy('w.loggedOn')
       .orderBy('w.id')
@@ -151,25 +139,4 @@ export async function* loggedClaims({ db, first, last, scope }: ExportRange): As
   }
 }
 
-export async function countLoggedClaims({ db, first, last, scope }: ExportRange): Promise<number> {
-  const row = await db
-    .selectFrom('warrantyClaims as w')
-    .where('w.loggedOn', '>=', first)
-    .where('w.loggedOn', '<=', last)
-    .where(inScope(scope, 'w.locationId'))
-    .select(sql<number>`count(*)`.as('n'))
-    .executeTakeFirstOrThrow();
-  return row.n;
-}
-
-const claimsFrom = (db: Db, first: string, last: string, scope: LocationScope) =>
-  db
-    .selectFrom('warrantyClaims as w')
-    .innerJoin('locations as l', 'l.id', 'w.locationId')
-    .innerJoin('builds as b', 'b.id', 'w.buildId')
-    .innerJoin('buildItems as i', 'i.id', 'w.buildItemId')
-    .innerJoin('catalogItems as ci', 'ci.id', 'w.catalogItemId')
-    .innerJoin('vendors as v', 'v.id', 'ci.vendorId')
-    .where('w.loggedOn', '>=', first)
-    .where('w.loggedOn', '<=', last)
-    .where(inScope(scope, 'w.locationId'));
+export const countLoggedClaims = async (range: ExportRange) => (await loggedIn(range).select(count).executeTakeFirstOrThrow()).n;
