@@ -167,6 +167,9 @@ describe('a month-close workbook', () => {
   it('downloads again byte for byte, matching the checksum kept in the history', async () => {
     const accountant = await h.signedIn(SIGN_INS.accountant);
     const again = await download(accountant, job.id);
+    const answer = await accountant.get(`/api/exports/${job.id}/file`).buffer(true).parse(binary);
+    expect(answer.headers['cache-control']).toBe('no-store');
+    expect(answer.headers['content-disposition']).toBe('attachment; filename=busbar-month-close-2026-05.xlsx');
     expect(createHash('sha256').update(again).digest('hex')).toBe(job.checksum);
     expect(again.length).toBe(job.fileBytes);
     const history = (await accountant.get('/api/exports').expect(200)).body;

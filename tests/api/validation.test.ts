@@ -92,6 +92,19 @@ describe('validation of staff requests', () => {
     await expectInvalid(await lead.get('/api/staff/everyone'), { id: any });
   });
 
+  it('takes an id written in decimal digits only, in paths, queries and bodies alike', async () => {
+    const words = 'Use an id: a whole number above 0';
+    // Each of these a plain number coercion reads as an id of a record (16, 7, 2713, 2713, 7).
+    for (const id of ['0x10', '0o7', '+2713', '2.713e3', '007', ' 7', '7.0', '99999999999999999']) {
+      await expectInvalid(await owner.get(`/api/staff/${encodeURIComponent(id)}`), { id: words });
+      await expectInvalid(await owner.get('/api/staff').query({ locationId: id }), { locationId: words });
+    }
+    await expectInvalid(await owner.post('/api/staff/invites').send({ ...valid(), locationId: '0x1' }), { locationId: words });
+    await expectInvalid(await owner.post('/api/staff/invites').send({ ...valid(), locationId: 1.5 }), { locationId: words });
+    expect((await owner.get(`/api/staff/${techId}`)).status).toBe(200);
+    expect((await owner.get('/api/staff').query({ locationId: String(den) })).status).toBe(200);
+  });
+
   it.each([
     [{ pageSize: 0 }, 'pageSize'],
     [{ pageSize: 201 }, 'pageSize'],

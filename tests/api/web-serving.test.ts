@@ -98,6 +98,9 @@ describe('API answers', () => {
     expect(staff.status).toBe(200);
     expect(staff.headers['content-encoding']).toBe('br');
     expect(staff.headers['content-type']).toMatch(/application\/json/);
+    // People's records are kept by no cache, nor is a refusal.
+    expect(staff.headers['cache-control']).toBe('no-store');
+    expect((await raw('/api/staff')).headers['cache-control']).toBe('no-store');
     const people = JSON.parse(brotliDecompressSync(staff.body).toString());
     expect(people.items.length).toBeGreaterThan(10);
 

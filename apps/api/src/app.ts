@@ -46,6 +46,11 @@ export function createApp(ctx: AppContext): Express {
 
   app.use(helmet({ contentSecurityPolicy: { directives: { upgradeInsecureRequests: null } } }));
   app.use(compressResponses());
+  // API answers hold people's records: no browser or proxy cache keeps them (a shared computer, a back button after sign-out).
+  app.use('/api', (_req, res, next) => {
+    res.setHeader('Cache-Control', 'no-store');
+    next();
+  });
   // An import carries a whole CSV file; every other request stays small.
   app.use('/api/imports', express.json({ limit: '6mb' }));
   app.use('/api', express.json({ limit: '100kb' }));

@@ -121,7 +121,7 @@ export function exportsRouter({ db, config, now }: AppContext): Router {
       if (job.status === 'failed') throw conflict(`This export failed, so it has no file: ${job.error ?? 'no reason was kept'}`);
       if (job.status !== 'done') throw conflict('This export is still being made: download it once it is done');
       if (!mayStillExport(viewer, job.locationIds)) throw forbidden('You can no longer export some of the shops this export covers');
-      res.download(exportFile(folder, job.id, job.format), job.fileName!, { headers: { 'Cache-Control': 'no-store' } });
+      res.download(exportFile(folder, job.id, job.format), job.fileName!);
     }),
   );
 

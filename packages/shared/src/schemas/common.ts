@@ -2,7 +2,12 @@ import { z } from 'zod';
 
 /** A positive integer id taken from a path or query string. */
 const ID_WORDS = 'Use an id: a whole number above 0';
-export const idSchema = z.coerce.number({ error: ID_WORDS }).int({ error: ID_WORDS }).positive({ error: ID_WORDS });
+/** Decimal digits only: a plain number coercion would also take `0x10`, `0o7`, `+2713` and `2.713e3` to a record. */
+const ID_DIGITS = /^[1-9][0-9]{0,14}$/;
+export const idSchema = z
+  .union([z.number(), z.string()], { error: ID_WORDS })
+  .refine((v) => (typeof v === 'number' ? Number.isSafeInteger(v) && v > 0 : ID_DIGITS.test(v)), { error: ID_WORDS })
+  .transform(Number);
 export const idParams = z.strictObject({ id: idSchema });
 
 /** For routes that take no query: any parameter is an unknown field. */
