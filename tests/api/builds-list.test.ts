@@ -37,6 +37,17 @@ const numbers = async (agent: Agent, query: string) => {
 };
 
 describe('the build list', () => {
+  it("refuses to rank builds by a price the person's role does not show, and ranks them for a lead", async () => {
+    const clerk = await h.signedIn(SIGN_INS.warranty);
+    const refused = await clerk.get('/api/builds?sort=totalCents&order=desc');
+    expect(refused.status).toBe(400);
+    expect(refused.body.error.fields).toEqual({ sort: 'Prices are not shown to your role, so builds cannot be sorted by them' });
+    expect((await clerk.get('/api/builds?sort=number')).status).toBe(200);
+    const ranked = (await lead.get('/api/builds?sort=totalCents&order=desc').expect(200)).body.items as { totalCents: number }[];
+    expect(ranked.length).toBeGreaterThan(1);
+    expect(ranked.map((b) => b.totalCents)).toEqual([...ranked.map((b) => b.totalCents)].sort((a, b) => b - a));
+  });
+
   it('filters by status, one or several', async () => {
     expect(await numbers(lead, 'status=quoted')).toEqual(['DEN-00002']);
     expect(await numbers(lead, 'status=quoted&status=draft&sort=number&order=asc')).toEqual(['DEN-00001', 'DEN-00002', 'DEN-00003']);

@@ -22,6 +22,13 @@ export function buildsRouter({ db, now }: AppContext): Router {
     validate({ query: buildQuery }, async ({ query }, req, res) => {
       const viewer = viewerOf(req);
       const scope = narrowScope(viewer, locationScope(viewer, 'read', 'Build'), query);
+      // A ranking by price would tell what the price hides: refused unless every listed shop shows prices to the person.
+      if (query.sort === 'totalCents') {
+        const priced = locationScope(viewer, 'read', 'Build', 'totalCents');
+        if (priced !== 'all' && (scope === 'all' ? viewer.locationIds : scope).some((id) => !priced.includes(id))) {
+          throw invalidField('sort', 'Prices are not shown to your role, so builds cannot be sorted by them');
+        }
+      }
       const page = await listBuilds(db, scope, query);
       res.json({ ...page, items: page.items.map((row) => buildView(viewer, row)) });
     }),
