@@ -24,13 +24,14 @@ function freePort(): Promise<number> {
 }
 
 /**
- * The built web app (`vite build` → dist/web) served by the real API, driven in Debian's Chromium.
+ * The built web app (`vite build` → dist/web, or the folder in BUSBAR_E2E_WEB when one build is
+ * tried while another is being made) served by the real API, driven in Debian's Chromium.
  * `demo.history` adds the demo's two years of builds and claims (slower; ask only when needed).
  */
 export async function startE2e(demo: { history?: boolean } = {}): Promise<E2e> {
   const port = await freePort();
   const baseUrl = `http://127.0.0.1:${port}`;
-  const harness = await startHarness({ webDist: resolve('dist/web'), publicUrl: baseUrl }, true, demo);
+  const harness = await startHarness({ webDist: resolve(process.env.BUSBAR_E2E_WEB ?? 'dist/web'), publicUrl: baseUrl }, true, demo);
   const server: Server = await new Promise((done) => {
     const s = harness.app.listen(port, '127.0.0.1', () => done(s));
   });
