@@ -28,6 +28,7 @@ import * as createMonthCloses from './026-create-month-closes.ts';
 import * as indexClaimsLoggedOn from './027-index-claims-logged-on.ts';
 import * as createExports from './028-create-exports.ts';
 import * as createSalesTaxRates from './029-create-sales-tax-rates.ts';
+import * as indexUnfinishedExports from './035-index-unfinished-exports.ts';
 
 /** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
 export const migrations: Record<string, Migration> = {
@@ -60,4 +61,5 @@ export const migrations: Record<string, Migration> = {
   '027-index-claims-logged-on': indexClaimsLoggedOn,
   '028-create-exports': createExports,
   '029-create-sales-tax-rates': createSalesTaxRates,
+  '035-index-unfinished-exports': indexUnfinishedExports,
 };

@@ -41,10 +41,6 @@ export async function listExports(db: Db, by: number | null, { page, pageSize }:
   return { items: items.map(asJob), ...count, page, pageSize };
 }
 
-/** The person's export still queued or running, if any. */
-export const unfinishedExportOf = (db: Db, userId: number) =>
-  db.selectFrom('exports').select(['id', 'month']).where('createdBy', '=', userId).where('status', 'in', ['queued', 'running']).executeTakeFirst();
-
 /** Exports a stopped app left unfinished (their jobs died with it) are failed, saying so; at start-up, before any process runs jobs. */
 export async function failUnfinishedExports(db: Db, at: Date): Promise<void> {
   await db

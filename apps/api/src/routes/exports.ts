@@ -11,7 +11,7 @@ import { EXPORTED_FIELDS } from '../exports/sheets.ts';
 import { viewerOf } from '../middleware/session.ts';
 import { validate } from '../middleware/validate.ts';
 import { writeAudit } from '../queries/audit.ts';
-import { exportById, insertExport, listExports, unfinishedExportOf } from '../queries/exports.ts';
+import { exportById, insertExport, listExports } from '../queries/exports.ts';
 import { background } from '../threads/background.ts';
 
 const EXPORTERS_ONLY = 'Only the accountant and the network owner export the month close';
@@ -50,8 +50,6 @@ export function exportsRouter({ db, config, now }: AppContext): Router {
     validate({ body: exportBody }, async ({ body }, req, res) => {
       const viewer = viewerOf(req);
       const scope = exportScope(viewer, body);
-      const unfinished = await unfinishedExportOf(db, viewer.id);
-      if (unfinished) throw conflict('Your last export is still being made: wait for it to finish, then ask for the next');
       const throughMonth = body.throughMonth ?? body.month;
       const sheet = body.format === 'csv' ? (body.sheet ?? 'summary') : null;
       const at = now().toISOString();
@@ -74,6 +72,9 @@ export function exportsRouter({ db, config, now }: AppContext): Router {
         createdBy: viewer.id,
         createdAt: at,
         finishedAt: null,
+      }).catch((error: { code?: string }) => {
+        // One unfinished export per person, held by a unique index (migration 035).
+        throw error.code === 'SQLITE_CONSTRAINT_UNIQUE' ? conflict('Your last export is still being made: wait for it to finish, then ask for the next') : error;
       });
       await writeAudit(db, { at, actorId: viewer.id, action: 'export.create', entity: 'export', entityId: id, before: null, after: { ...body, throughMonth, locations: scope } });
       const hidden = EXPORTED_FIELDS.filter((f) => {
