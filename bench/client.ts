@@ -34,6 +34,9 @@ export function call(person: Pick<Person, 'baseUrl'> & Partial<Person>, method: 
       res.on('end', () => {
         const cookies = res.headers['set-cookie'];
         if (cookies && person.cookie !== undefined) person.cookie = mergeCookies(person.cookie, cookies);
+        // The forgery-protection token changes with the session (sign-in, sign-out): echo the newest.
+        const token = /busbar\.csrf=([^;]+)/.exec(person.cookie ?? '')?.[1];
+        if (token) person.csrf = decodeURIComponent(token);
         const ms = performance.now() - started;
         const raw = Buffer.concat(chunks);
         const encoding = res.headers['content-encoding'];
@@ -61,9 +64,7 @@ function mergeCookies(current: string, set: string[]): string {
 export async function signIn(baseUrl: string, email: string, password: string, connections?: Agent): Promise<Person> {
   const person: Person = { baseUrl, cookie: '', csrf: '', agent: connections };
   await call(person, 'GET', '/api/health');
-  const token = /busbar\.csrf=([^;]+)/.exec(person.cookie)?.[1];
-  if (!token) throw new Error('no forgery-protection cookie from /api/health');
-  person.csrf = decodeURIComponent(token);
+  if (!person.csrf) throw new Error('no forgery-protection cookie from /api/health');
   const answer = await call(person, 'POST', '/api/session', { email, password });
   if (answer.status !== 200) throw new Error(`sign-in of ${email} answered ${answer.status}: ${answer.body}`);
   return person;

@@ -7,6 +7,7 @@ import { atTheTime, serialNumbers } from './serials.ts';
 import { auditRows } from './history-audit.ts';
 import type { SimBuild, SimCustomer, SimVehicle } from './shop-history.ts';
 import type { StatusEvent } from './timeline.ts';
+import { vehicleIdentity } from './vehicles.ts';
 
 export interface CatalogEntry {
   id: number;
@@ -46,11 +47,13 @@ export function historyRowMaker(
 
   return (batch) => {
     const rows: HistoryRows = { customers: [], vehicles: [], builds: [], buildItems: [], buildEvents: [], auditLog: [] };
-    const addVehicle = (vehicle: SimVehicle, customerId: number) => {
+    /** A vehicle as first seen, `atMs`: its odometer is read then. */
+    const addVehicle = (vehicle: SimVehicle, customerId: number, atMs: number) => {
       const vehicleId = firstId.vehicle + vehicleIds.size;
       vehicleIds.set(vehicle, vehicleId);
       const { year, bodyStyle, make, model } = vehicle;
-      rows.vehicles.push({ id: vehicleId, customerId, locationId: vehicle.customer.shop.id, year, bodyStyle, make, model, notes: '' });
+      const identity = vehicleIdentity(vehicleId, vehicle, isoDay(localDay(vehicle.customer.shop.timeZone, atMs)));
+      rows.vehicles.push({ id: vehicleId, customerId, locationId: vehicle.customer.shop.id, year, bodyStyle, make, model, notes: '', ...identity });
     };
     const builds = byCreation(batch);
     // Customers in the order they came in, each with the vehicles known by then; a later vehicle comes with its first build.
@@ -60,11 +63,11 @@ export function historyRowMaker(
       const id = firstId.customer + customerIds.size;
       customerIds.set(customer, id);
       rows.customers.push({ id, locationId: shop.id, ...fields, createdAt: iso(createdAt) });
-      for (const vehicle of vehicles) addVehicle(vehicle, id);
+      for (const vehicle of vehicles) addVehicle(vehicle, id, createdAt);
     }
     for (const build of builds) {
       const { shop, events, customer } = build;
-      if (!vehicleIds.has(build.vehicle)) addVehicle(build.vehicle, customerIds.get(customer)!);
+      if (!vehicleIds.has(build.vehicle)) addVehicle(build.vehicle, customerIds.get(customer)!, build.createdAt);
       const buildId = nextBuildId++;
       const sequence = (sequences.get(shop.id) ?? 0) + 1;
       sequences.set(shop.id, sequence);

@@ -28,6 +28,11 @@ import * as createMonthCloses from './026-create-month-closes.ts';
 import * as indexClaimsLoggedOn from './027-index-claims-logged-on.ts';
 import * as createExports from './028-create-exports.ts';
 import * as createSalesTaxRates from './029-create-sales-tax-rates.ts';
+import * as createSignInAttempts from './030-create-sign-in-attempts.ts';
+import * as createPasswordResets from './031-create-password-resets.ts';
+import * as createMailSends from './032-create-mail-sends.ts';
+import * as indexAuditFilters from './033-index-audit-filters.ts';
+import * as addVehicleIdentity from './034-add-vehicle-identity.ts';
 import * as indexUnfinishedExports from './035-index-unfinished-exports.ts';
 
 /** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
@@ -61,5 +66,10 @@ export const migrations: Record<string, Migration> = {
   '027-index-claims-logged-on': indexClaimsLoggedOn,
   '028-create-exports': createExports,
   '029-create-sales-tax-rates': createSalesTaxRates,
+  '030-create-sign-in-attempts': createSignInAttempts,
+  '031-create-password-resets': createPasswordResets,
+  '032-create-mail-sends': createMailSends,
+  '033-index-audit-filters': indexAuditFilters,
+  '034-add-vehicle-identity': addVehicleIdentity,
   '035-index-unfinished-exports': indexUnfinishedExports,
 };

@@ -14,12 +14,15 @@ import type { WarrantyClaimsTable } from './warranty-claims.ts';
 import type { InvitesTable } from './invites.ts';
 import type { LocationsTable, MonthClosesTable, RoyaltyTermsTable, SalesTaxRatesTable } from './locations.ts';
 import type { MailLogTable } from './mail-log.ts';
+import type { MailSendsTable } from './mail-sends.ts';
+import type { PasswordResetsTable } from './password-resets.ts';
 import type { PowerPlanRevisionsTable } from './power-plan-revisions.ts';
 import type { PowerPlansTable } from './power-plans.ts';
 import type { RegionsTable } from './regions.ts';
 import type { RoleAssignmentsTable } from './role-assignments.ts';
 import type { RollupFiguresTable } from './rollups.ts';
 import type { SessionsTable } from './sessions.ts';
+import type { SignInAttemptsTable } from './sign-in-attempts.ts';
 import type { PlanMarginsTable, UnitExposureBandsNetworkTable, UnitExposureBandsTable, UnitExposureNetworkTable, UnitExposureTable, UnitFailuresTable } from './unit-exposure.ts';
 import type { UsersTable, WeeklyDigestsTable } from './users.ts';
 
@@ -32,6 +35,7 @@ export interface Database {
   auditLog: AuditLogTable;
   invites: InvitesTable;
   mailLog: MailLogTable;
+  mailSends: MailSendsTable;
   vendors: VendorsTable;
   catalogItems: CatalogItemsTable;
   customers: CustomersTable;
@@ -57,4 +61,6 @@ export interface Database {
   monthCloses: MonthClosesTable;
   salesTaxRates: SalesTaxRatesTable;
   exports: ExportsTable;
+  signInAttempts: SignInAttemptsTable;
+  passwordResets: PasswordResetsTable;
 }

@@ -113,9 +113,9 @@ describe('a build from booking to delivery', () => {
     expect(fixed.body.laborCents).toBe(29000);
     expect(fixed.body.events.at(-1)).toMatchObject({ kind: 'correction', note: 'Labor was logged short', actorName: 'Priya Halvorsen' });
     expect((await auditOf(h.db, 'build', build.id)).at(-1)).toMatchObject({ action: 'build.correct', before: { laborHours: 0 }, after: { laborHours: 2 } });
-    const added = await lead.post(`/api/builds/${build.id}/items`).send({ version: fixed.body.version, catalogItemId: parts.fuse.id, quantity: 1 });
+    const added = await lead.post(`/api/builds/${build.id}/items`).send({ version: fixed.body.version, catalogItemId: parts.fuse.id, quantity: 1, correctionNote: 'Fuse fitted at pickup' });
     expect(added.status).toBe(201);
-    expect(added.body.events.at(-1)).toMatchObject({ kind: 'correction', note: `Added ${parts.fuse.sku} × 1 after delivery` });
+    expect(added.body.events.at(-1)).toMatchObject({ kind: 'correction', note: 'Fuse fitted at pickup' });
   });
 
   it('closes a cancelled build to every change', async () => {

@@ -17,7 +17,10 @@ async function browserOf(h: Harness, email: string): Promise<{ cookie: string; t
   const token = decodeURIComponent(csrf.split('=')[1]!);
   const res = await request(h.app).post('/api/session').set('Cookie', csrf).set('x-csrf-token', token).send({ email, password: DEMO_PASSWORD });
   expect(res.status).toBe(200);
-  return { cookie: `${csrf}; ${cookiePair(res, 'busbar.sid')}`, token };
+  // Signing in hands out a new token, bound to the new session.
+  const signedInCsrf = cookiePair(res, 'busbar.csrf');
+  expect(signedInCsrf).not.toBe(csrf);
+  return { cookie: `${signedInCsrf}; ${cookiePair(res, 'busbar.sid')}`, token: decodeURIComponent(signedInCsrf.split('=')[1]!) };
 }
 
 describe('forged cross-site requests', () => {
@@ -67,6 +70,41 @@ describe('forged cross-site requests', () => {
     expect(res.body).toEqual(FORGED);
     const tech = await h.db.selectFrom('users').select('status').where('email', '=', SIGN_INS.tech).executeTakeFirstOrThrow();
     expect(tech.status).toBe('active');
+  });
+
+  it("rejects another session's token even sent in both cookie and header, so a planted pair cannot be used against someone", async () => {
+    const sid = lead.cookie.split('; ')[1]!;
+    const ownerPair = owner.cookie.split('; ')[0]!;
+    const res = await request(h.app).post('/api/staff/invites').set('Cookie', `${ownerPair}; ${sid}`).set('x-csrf-token', owner.token).send(invite);
+    expect(res.status).toBe(403);
+    expect(res.body).toEqual(FORGED);
+    expect(await h.db.selectFrom('users').select('id').where('email', '=', invite.email).execute()).toEqual([]);
+    // The refusal hands the browser a token of its own session, which then works.
+    const fresh = cookiePair(res, 'busbar.csrf');
+    const retried = await request(h.app).patch('/api/session').set('Cookie', `${fresh}; ${sid}`).set('x-csrf-token', decodeURIComponent(fresh.split('=')[1]!)).send({ weeklyDigest: true });
+    expect(retried.status).toBe(200);
+  });
+
+  it('rejects a token made before sign-in once someone is signed in', async () => {
+    const anonymous = cookiePair(await request(h.app).get('/api/health'), 'busbar.csrf');
+    const token = decodeURIComponent(anonymous.split('=')[1]!);
+    const sid = lead.cookie.split('; ')[1]!;
+    const res = await request(h.app).post('/api/staff/invites').set('Cookie', `${anonymous}; ${sid}`).set('x-csrf-token', token).send(invite);
+    expect(res.status).toBe(403);
+    expect(res.body).toEqual(FORGED);
+  });
+
+  it("hands out a new token at sign-out, and refuses the ended session's token afterwards", async () => {
+    const browser = await browserOf(h, SIGN_INS.tech);
+    const out = await request(h.app).delete('/api/session').set('Cookie', browser.cookie).set('x-csrf-token', browser.token);
+    expect(out.status).toBe(204);
+    const after = cookiePair(out, 'busbar.csrf');
+    expect(after).not.toBe(browser.cookie.split('; ')[0]);
+    const stale = browser.cookie.split('; ')[0]!;
+    const refused = await request(h.app).post('/api/session').set('Cookie', stale).set('x-csrf-token', browser.token).send({ email: SIGN_INS.tech, password: DEMO_PASSWORD });
+    expect(refused.status).toBe(403);
+    const again = await request(h.app).post('/api/session').set('Cookie', after).set('x-csrf-token', decodeURIComponent(after.split('=')[1]!)).send({ email: SIGN_INS.tech, password: DEMO_PASSWORD });
+    expect(again.status).toBe(200);
   });
 
   it('rejects a forged sign-out: the session keeps working', async () => {

@@ -41,8 +41,8 @@ describe('reading customers', () => {
       const { createdAt: _, ...row } = await addCustomer(h.db, ids.location(code), { name, email: `${place}.harbor@mail.busbar.test`, phone });
       customers[place] = { ...row, version: 1 };
     }
-    const older = await addVehicle(h.db, customers.den, { year: 2016, bodyStyle: 'van', make: 'Fixture Motors', model: 'Transit 250' });
-    const newer = await addVehicle(h.db, customers.den, { year: 2023, bodyStyle: 'pickup', make: 'Fixture Motors', model: 'Hauler 2500' });
+    const older = await addVehicle(h.db, customers.den, { year: 2016, bodyStyle: 'van', make: 'Fixture Motors', model: 'Longbay Wren' });
+    const newer = await addVehicle(h.db, customers.den, { year: 2023, bodyStyle: 'pickup', make: 'Fixture Motors', model: 'Tallgrass Fieldline' });
     denVehicles = [newer, older].map((v) => ({ ...v, version: 1 }));
   });
   afterAll(() => h.close());

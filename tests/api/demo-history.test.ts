@@ -9,8 +9,8 @@ import { sql } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ensureDemoData } from '../../apps/api/src/demo.ts';
 import { startHarness, type Harness } from '../support/api-harness.ts';
+import { realNamesIn } from '../support/real-vehicle-names.ts';
 
-const REAL_MAKES = ['ford', 'chevrolet', 'toyota', 'ram', 'gmc', 'jeep', 'nissan', 'mercedes', 'dodge', 'honda', 'subaru'];
 const SERIALIZED: Category[] = ['house_battery', 'starter_battery', 'dc_dc_charger', 'solar_panel', 'solar_controller', 'inverter', 'battery_monitor', 'air_compressor'];
 const HISTORY_TABLES = ['vendors', 'catalog_items', 'customers', 'vehicles', 'builds', 'build_items', 'build_events'];
 
@@ -93,7 +93,7 @@ describe('demo history', () => {
     }
   });
 
-  it('gives every shop customers and vehicles the API would accept, with invented makes', async () => {
+  it('gives every shop customers and vehicles the API would accept, with invented makes, models and trims', async () => {
     const customers = await harness.db.selectFrom('customers').selectAll().execute();
     for (const { id, version, createdAt, ...c } of customers) expect(customerBody.safeParse(c).success, c.name).toBe(true);
     expect(new Set(customers.map((c) => c.locationId)).size).toBe(8);
@@ -103,9 +103,12 @@ describe('demo history', () => {
       expect(share, field).toBeLessThan(0.95);
     }
     const vehicles = await harness.db.selectFrom('vehicles').selectAll().execute();
-    for (const { id, version, locationId, ...v } of vehicles) expect(vehicleBody.safeParse(v).success, v.model).toBe(true);
-    const words = new Set(vehicles.flatMap((v) => `${v.make} ${v.model}`.toLowerCase().split(/[^a-z]+/)));
-    expect(REAL_MAKES.filter((make) => words.has(make))).toEqual([]);
+    for (const { id, version, locationId, mileageReadOn, ...v } of vehicles) {
+      expect(vehicleBody.safeParse(v).success, v.model).toBe(true);
+      expect(v.vin && mileageReadOn && v.plate && v.mileage !== null, v.model).toBeTruthy();
+    }
+    const names = [...new Set(vehicles.map((v) => `${v.make} ${v.model}`))];
+    expect(names.flatMap(realNamesIn)).toEqual([]);
   });
 
   it('numbers each shop\'s builds in order, staffs them from the shop and prices them with buildTotals', async () => {

@@ -308,7 +308,7 @@ describe('asking for an export', () => {
 
   it('holds at most one unfinished export per person in the database itself, so two app processes cannot both start one', async () => {
     const { person } = await signedInNew({ role: 'accountant' });
-    const row = (status: 'queued' | 'running' | 'done') => ({ kind: 'month-close', month: MONTH, throughMonth: MONTH, locationIds: null, scopeLabel: 'Whole network', locationCount: 8, format: 'csv', sheet: 'summary', status, rowsTotal: null, error: null, fileName: 'x.csv', fileBytes: null, checksum: null, createdBy: person.id, createdAt: '2026-06-15T14:00:00.000Z', finishedAt: null });
+    const row = (status: 'queued' | 'running' | 'done') => ({ kind: 'month-close' as const, month: MONTH, throughMonth: MONTH, locationIds: null, scopeLabel: 'Whole network', locationCount: 8, format: 'csv' as const, sheet: 'summary', status, rowsTotal: null, error: null, fileName: 'x.csv', fileBytes: null, checksum: null, createdBy: person.id, createdAt: '2026-06-15T14:00:00.000Z', finishedAt: null });
     await h.db.insertInto('exports').values([row('done'), row('done'), row('queued')]).execute();
     await expect(h.db.insertInto('exports').values(row('running')).execute()).rejects.toMatchObject({ code: 'SQLITE_CONSTRAINT_UNIQUE' });
   });

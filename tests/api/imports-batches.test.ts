@@ -38,7 +38,7 @@ afterAll(() => h.close());
 describe('an import written in batches', () => {
   it('writes every row of a file longer than a batch, in file order, with its events and audit entries', async () => {
     const before = await counts();
-    const { rows } = await checkImport(h.db, location.id, file('A', 250));
+    const { rows } = await checkImport(h.db, location, file('A', 250), '2026-06-15T12:00:00.000Z');
     expect(rows).toHaveLength(250);
     expect(await writeImport(h.db, location, rows, actorId, '2026-06-15T12:00:00.000Z')).toBe(250);
     const after = await counts();
@@ -48,7 +48,7 @@ describe('an import written in batches', () => {
   });
 
   it('takes back the batches already written when a later one fails, leaving the database as it was', async () => {
-    const { rows } = await checkImport(h.db, location.id, file('B', 250));
+    const { rows } = await checkImport(h.db, location, file('B', 250), '2026-06-15T12:00:00.000Z');
     expect(rows).toHaveLength(250);
     // Someone records row 231's serial number on another build after the file was checked.
     const other = await h.db.selectFrom('builds').select('id').where('locationId', '=', location.id).orderBy('id').limit(1).executeTakeFirstOrThrow();

@@ -80,11 +80,11 @@ describe('attaching a quick plan to its build', () => {
   });
 
   it('moves the plan onto the build as its next version, with a revision saying so', async () => {
-    const plan = await quickPlan('Sprinter weekend');
+    const plan = await quickPlan('Longbay weekend');
     h.clock.now = new Date('2026-06-15T15:30:00Z');
     const res = await attach('tech', plan, mine.id);
     expect(res.status).toBe(200);
-    expect(res.body).toMatchObject({ id: plan.id, buildId: mine.id, name: 'Sprinter weekend', version: 2, input: weekend, result: { caution: SAFETY_CAUTION } });
+    expect(res.body).toMatchObject({ id: plan.id, buildId: mine.id, name: 'Longbay weekend', version: 2, input: weekend, result: { caution: SAFETY_CAUTION } });
     expect((await agents.lead.get(`/api/builds/${mine.id}/plan`)).body.plan).toMatchObject({ id: plan.id, version: 2 });
     expect((await agents.lead.get(`/api/builds/${mine.id}/plan/revisions`)).body).toEqual([
       { version: 2, savedAt: '2026-06-15T15:30:00.000Z', savedByName: 'Dmitri Castellanos', note: `Attached to ${mine.number}` },

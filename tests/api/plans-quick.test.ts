@@ -27,8 +27,8 @@ beforeAll(async () => {
   ids = await demoIds(h.db);
   const names = Object.keys(SIGN_INS) as SignIn[];
   agents = Object.fromEntries(await Promise.all(names.map(async (n) => [n, await h.signedIn(SIGN_INS[n])]))) as Record<SignIn, Agent>;
-  den = (await agents.tech.post('/api/plans').send({ locationId: ids.location('DEN'), name: 'Sprinter weekend', input: weekend })).body;
-  avl = (await agents.lead2.post('/api/plans').send({ locationId: ids.location('AVL'), name: 'Tacoma camper', input: weekend })).body;
+  den = (await agents.tech.post('/api/plans').send({ locationId: ids.location('DEN'), name: 'Longbay weekend', input: weekend })).body;
+  avl = (await agents.lead2.post('/api/plans').send({ locationId: ids.location('AVL'), name: 'Scarp camper', input: weekend })).body;
 });
 afterAll(() => h.close());
 
@@ -103,7 +103,7 @@ describe('reading quick plans', () => {
   ] as [SignIn, number, number][])('answers %s %i for the Denver plan and %i for the Asheville one', async (who, denStatus, avlStatus) => {
     const [d, a] = [await agents[who].get(`/api/plans/${den.id}`), await agents[who].get(`/api/plans/${avl.id}`)];
     expect([d.status, a.status]).toEqual([denStatus, avlStatus]);
-    if (denStatus === 200) expect(d.body).toMatchObject({ id: den.id, name: 'Sprinter weekend', updatedByName: 'Dmitri Castellanos', result: { caution: SAFETY_CAUTION } });
+    if (denStatus === 200) expect(d.body).toMatchObject({ id: den.id, name: 'Longbay weekend', updatedByName: 'Dmitri Castellanos', result: { caution: SAFETY_CAUTION } });
   });
 });
 
@@ -118,10 +118,10 @@ describe('changing a quick plan', () => {
     ['lead2', 404],
   ] as [SignIn, number][])('lets %s change the Denver plan: %i', async (who, status) => {
     const current = await h.db.selectFrom('powerPlans').select(['version', 'name']).where('id', '=', den.id).executeTakeFirstOrThrow();
-    const res = await agents[who].put(`/api/plans/${den.id}`).send({ version: current.version, name: `Sprinter, by ${who}`, input: withFan });
+    const res = await agents[who].put(`/api/plans/${den.id}`).send({ version: current.version, name: `Longbay, by ${who}`, input: withFan });
     expect(res.status).toBe(status);
     const after = await h.db.selectFrom('powerPlans').select(['version', 'name']).where('id', '=', den.id).executeTakeFirstOrThrow();
-    expect(after).toEqual(status === 200 ? { version: current.version + 1, name: `Sprinter, by ${who}` } : current);
+    expect(after).toEqual(status === 200 ? { version: current.version + 1, name: `Longbay, by ${who}` } : current);
     if (status === 200) expect(res.body.result.dailyWattHours).toBeCloseTo(160, 9);
   });
 

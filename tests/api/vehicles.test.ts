@@ -17,7 +17,9 @@ const WRITES: Record<SignIn, { DEN: 'ok' | 403 | 404; AVL: 'ok' | 403 | 404 }> =
   lead2: { DEN: 404, AVL: 'ok' },
 };
 
-const van = { year: 2022, bodyStyle: 'van', make: 'Fixture Motors', model: 'Camper 3500 high roof', notes: 'Roof rack fitted' };
+const van = { year: 2022, bodyStyle: 'van', make: 'Fixture Motors', model: 'Camper Tallback', notes: 'Roof rack fitted', vin: '0CV7WZN81NG275411', plate: 'BBR 4821', mileage: 48_210 };
+/** The fixture clock's day at Denver and Asheville: a new odometer reading is dated then. */
+const READ_ON = { mileageReadOn: '2026-06-15' };
 
 describe('vehicles', () => {
   let h: Harness;
@@ -50,7 +52,7 @@ describe('vehicles', () => {
         expect(await catalogRows(h.db)).toEqual(before);
         continue;
       }
-      const vehicle = { id: res.body.id, customerId: customer.id, locationId: ids.location(code), ...van, version: 1 };
+      const vehicle = { id: res.body.id, customerId: customer.id, locationId: ids.location(code), ...van, ...READ_ON, version: 1 };
       expect([res.status, res.body]).toStrictEqual([201, vehicle]);
       expect(await vehicleRow(vehicle.id)).toEqual(vehicle);
     }
@@ -66,7 +68,7 @@ describe('vehicles', () => {
         expect(await vehicleRow(vehicle.id)).toEqual({ ...vehicle, version: 1 });
         continue;
       }
-      const after = { ...vehicle, ...van, version: 2 };
+      const after = { ...vehicle, ...van, ...READ_ON, version: 2 };
       expect([res.status, res.body]).toStrictEqual([200, after]);
       expect(await vehicleRow(vehicle.id)).toEqual(after);
     }
@@ -102,7 +104,7 @@ describe('vehicles', () => {
     const customer = await addCustomer(h.db, ids.location('DEN'));
     h.clock.now = new Date('2026-06-15T18:00:00Z');
     const created = await agents.lead.post('/api/vehicles').send({ customerId: customer.id, ...van });
-    const first = { id: created.body.id, customerId: customer.id, locationId: customer.locationId, ...van, version: 1 };
+    const first = { id: created.body.id, customerId: customer.id, locationId: customer.locationId, ...van, ...READ_ON, version: 1 };
     h.clock.now = new Date('2026-06-15T18:30:00Z');
     const changed = await agents.lead.put(`/api/vehicles/${first.id}`).send({ ...van, year: 2021, version: 1 });
     const second = { ...first, year: 2021, version: 2 };
@@ -114,5 +116,59 @@ describe('vehicles', () => {
       { at: '2026-06-15T18:00:00.000Z', actorId: leadId, action: 'vehicle.create', before: null, after: first },
       { at: '2026-06-15T18:30:00.000Z', actorId: leadId, action: 'vehicle.update', before: first, after: second },
     ]);
+  });
+
+  it('keeps the VIN and plate in capitals without spaces around them, and refuses what cannot be one', async () => {
+    const customer = await addCustomer(h.db, ids.location('DEN'));
+    const typed = await agents.lead.post('/api/vehicles').send({ customerId: customer.id, ...van, vin: ' 0cv7wzn8 1ng275411 ', plate: '  bbr   4821 ' });
+    expect([typed.status, typed.body.vin, typed.body.plate]).toEqual([201, '0CV7WZN81NG275411', 'BBR 4821']);
+    const before = await catalogRows(h.db);
+    const cases: [Record<string, unknown>, Record<string, string>][] = [
+      [{ vin: '0CV7WZN82NG275411' }, { vin: 'This VIN does not add up: check each character against the vehicle (the 9th is a check digit)' }],
+      [{ vin: '0CV7WZN81NG27541' }, { vin: 'A VIN has 17 characters' }],
+      [{ vin: '0CV7WZN81NG27541O' }, { vin: 'A VIN has only digits and letters, never I, O or Q' }],
+      [{ plate: 'ABC\u00071234' }, { plate: 'Use letters, digits and the marks on the plate only' }],
+      [{ plate: 'ABCDEFGHJKLMN' }, { plate: 'A plate has at most 12 characters' }],
+      [{ mileage: -1 }, { mileage: 'Miles cannot be below 0' }],
+      [{ mileage: 1200.5 }, { mileage: 'Enter the miles as a whole number' }],
+      [{ mileage: 2_000_001 }, { mileage: 'At most 2,000,000 miles' }],
+    ];
+    for (const [fields, errors] of cases) {
+      const res = await agents.lead.post('/api/vehicles').send({ customerId: customer.id, ...van, ...fields });
+      expect([res.status, res.body.error?.fields]).toEqual([400, errors]);
+    }
+    expect(await catalogRows(h.db)).toEqual(before);
+  });
+
+  it('takes a vehicle without VIN, plate or miles, and keeps them as they are when a change leaves them out', async () => {
+    const customer = await addCustomer(h.db, ids.location('DEN'));
+    const { vin, plate, mileage, ...bare } = van;
+    const created = await agents.lead.post('/api/vehicles').send({ customerId: customer.id, ...bare, vin: '', plate: '' });
+    expect(created.body).toMatchObject({ vin: null, plate: null, mileage: null, mileageReadOn: null });
+    const filled = await agents.lead.put(`/api/vehicles/${created.body.id}`).send({ ...van, version: 1 });
+    const kept = await agents.lead.put(`/api/vehicles/${created.body.id}`).send({ ...bare, notes: 'Second battery tray', version: 2 });
+    expect([kept.status, kept.body]).toStrictEqual([200, { ...filled.body, notes: 'Second battery tray', version: 3 }]);
+  });
+
+  it('asks before the miles go down, and dates each new reading at the location', async () => {
+    const customer = await addCustomer(h.db, ids.location('DEN'));
+    h.clock.now = new Date('2026-06-15T20:00:00Z');
+    const created = (await agents.lead.post('/api/vehicles').send({ customerId: customer.id, ...van })).body;
+    h.clock.now = new Date('2026-06-16T02:30:00Z'); // still 15 June in Denver
+    const lower = await agents.lead.put(`/api/vehicles/${created.id}`).send({ ...van, mileage: 4_821, version: 1 });
+    expect([lower.status, lower.body.error]).toEqual([
+      409,
+      { code: 'mileage_lower', message: 'The odometer read 48,210 miles on 2026-06-15. Save again to confirm the lower reading.', fields: { mileage: 'Lower than the miles on file' } },
+    ]);
+    expect(await vehicleRow(created.id)).toEqual(created);
+    const same = await agents.lead.put(`/api/vehicles/${created.id}`).send({ ...van, version: 1 });
+    expect(same.body).toMatchObject({ mileage: 48_210, mileageReadOn: '2026-06-15', version: 2 });
+    const confirmed = await agents.lead.put(`/api/vehicles/${created.id}`).send({ ...van, mileage: 4_821, confirmLowerMileage: true, version: 2 });
+    expect([confirmed.status, confirmed.body.mileage, confirmed.body.mileageReadOn]).toEqual([200, 4_821, '2026-06-15']);
+    const higher = await agents.lead.put(`/api/vehicles/${created.id}`).send({ ...van, mileage: 5_000, version: 3 });
+    expect([higher.status, higher.body.mileage]).toEqual([200, 5_000]);
+    const refused = await agents.lead.put(`/api/vehicles/${created.id}`).send({ ...van, mileage: 5_000, confirmLowerMileage: false, version: 4 });
+    expect([refused.status, refused.body.error.fields]).toEqual([400, { confirmLowerMileage: expect.any(String) }]);
+    h.clock.now = new Date('2026-06-15T15:00:00Z');
   });
 });

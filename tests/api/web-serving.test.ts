@@ -1,4 +1,4 @@
-import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { cpSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { brotliDecompressSync, gunzipSync } from 'node:zlib';
@@ -22,6 +22,7 @@ beforeAll(async () => {
   writeFileSync(join(dist, 'index.html'), PAGE);
   writeFileSync(join(dist, 'assets', 'index-Bq3x9Z1a.js'), SCRIPT);
   writeFileSync(join(dist, 'assets', 'small-C4d5E6f7.css'), 'body{margin:0}');
+  cpSync('apps/web/public', dist, { recursive: true });
   precompressDir(dist);
   h = await startHarness({ webDist: dist });
   server = h.app.listen(0, '127.0.0.1');
@@ -86,6 +87,37 @@ describe('the built web app', () => {
     }
     expect((await raw('/builds/42', 'br')).headers['content-encoding']).toBe('br');
     expect((await raw('/builds/42', 'gzip;q=1, br;q=0')).headers['content-encoding']).toBe('gzip');
+  });
+});
+
+describe('the icon', () => {
+  it('is linked from the page as an ICO and an SVG, both shipped with the app', () => {
+    const page = readFileSync('index.html', 'utf8');
+    expect(page).toContain('<link rel="icon" href="/favicon.ico" sizes="32x32" />');
+    expect(page).toContain('<link rel="icon" type="image/svg+xml" href="/favicon.svg" />');
+  });
+
+  it('answers /favicon.ico with an icon of PNG images, and a build without one with 404, never the page', async () => {
+    const icon = await raw('/favicon.ico');
+    expect(icon.status).toBe(200);
+    expect(icon.headers['content-type']).toMatch(/^image\/(x-icon|vnd\.microsoft\.icon)/);
+    expect(icon.body.equals(readFileSync('apps/web/public/favicon.ico'))).toBe(true);
+    // ICO header: reserved 0, type 1 (icon), then one 16-byte entry per image, each pointing at a PNG.
+    expect([icon.body.readUInt16LE(0), icon.body.readUInt16LE(2)]).toEqual([0, 1]);
+    const count = icon.body.readUInt16LE(4);
+    expect(count).toBeGreaterThan(0);
+    for (let i = 0; i < count; i++) {
+      const at = icon.body.readUInt32LE(6 + 16 * i + 12);
+      expect(icon.body.subarray(at + 1, at + 4).toString()).toBe('PNG');
+    }
+    const svg = await raw('/favicon.svg');
+    expect(svg.status).toBe(200);
+    expect(svg.headers['content-type']).toMatch(/^image\/svg\+xml/);
+
+    rmSync(join(dist, 'favicon.ico'));
+    const missing = await raw('/favicon.ico');
+    expect(missing.status).toBe(404);
+    expect(missing.body.toString()).not.toContain('<html');
   });
 });
 

@@ -96,7 +96,8 @@ describe('money and contact details only where the person reads them', () => {
     await column(page, 'Unit price').waitFor();
     expect(await page.getByText('$899.00').count()).toBeGreaterThan(0);
     expect(await column(page, 'Unit cost').count()).toBe(0);
-    expect(await page.getByText('Margin').count()).toBe(0);
+    // Cost and margin say they are not shown to the role, not a blank that reads as nothing.
+    expect(await page.locator('.line', { hasText: 'Margin' }).getByText('Not shown to your role').count()).toBe(1);
     await page.context().close();
   });
 

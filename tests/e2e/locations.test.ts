@@ -29,7 +29,7 @@ describe("a location's claim approval limit", () => {
     expect(await owner.locator('.ant-table-row').count()).toBe(8);
     expect(await fitsWidth(owner)).toBe(true);
 
-    await denRow.getByRole('button', { name: 'Change the approval limit of DEN' }).click();
+    await denRow.getByRole('button', { name: 'Change limit: the approval limit of DEN' }).click();
     const dialog = owner.getByRole('dialog');
     const amount = dialog.getByLabel('Lead approves claims up to ($)');
     await expect.poll(() => amount.inputValue()).toBe('500.00');

@@ -54,6 +54,7 @@ export async function startHarness(
     dataDir,
     databaseFile: join(dataDir, 'busbar.sqlite'),
     publicUrl: 'http://localhost:3000',
+    publicOrigin: null,
     sessionSecret: 'test-secret-test-secret-test-secret-0123',
     smtpUrl: null,
     smtpCapturePort: 0,
@@ -62,7 +63,9 @@ export async function startHarness(
     demoData: true,
     scryptLogN: TEST_SCRYPT_LOG_N,
     inviteTtlHours: 72,
-    signInLimit: { windowMs: 15 * 60 * 1000, perAccount: 10, perAddress: 1000 },
+    // No waiting after failed sign-ins unless a test asks for it (sign-in-lockout.test.ts).
+    signInLimit: { windowMs: 15 * 60 * 1000, perAccountAddress: 10, perAddress: 1000, slowAfter: 5, delayMs: 0, maxDelayMs: 0 },
+    passwordReset: { ttlMs: 3_600_000, windowMs: 3_600_000, perAccount: 3, perAddress: 20 },
     webDist: null,
     processes: 1,
     ...overrides,
@@ -71,10 +74,13 @@ export async function startHarness(
 
   async function agent(): Promise<Agent> {
     const a = request.agent(app) as Agent;
-    const res = await a.get('/api/health');
-    const cookie = ([] as string[]).concat(res.headers['set-cookie'] ?? []).find((c) => c.startsWith('busbar.csrf='));
-    a.csrf = decodeURIComponent(cookie!.split(';')[0]!.split('=')[1]!);
-    a.set('x-csrf-token', a.csrf);
+    // The token changes with the session (sign-in, sign-out), so the agent echoes the newest one it was sent.
+    a.on('response', (res: request.Response) => {
+      const cookie = ([] as string[]).concat(res.headers['set-cookie'] ?? []).find((c) => c.startsWith('busbar.csrf='));
+      if (cookie) a.csrf = decodeURIComponent(cookie.split(';')[0]!.split('=')[1]!);
+    });
+    a.use((req: request.Test) => void (a.csrf && req.set('x-csrf-token', a.csrf)));
+    await a.get('/api/health');
     return a;
   }
 

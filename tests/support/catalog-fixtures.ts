@@ -79,8 +79,12 @@ export async function addVehicle(db: Db, customer: { id: number; locationId: num
     year: fields.year ?? 2021,
     bodyStyle: fields.bodyStyle ?? 'pickup',
     make: fields.make ?? 'Fixture Motors',
-    model: fields.model ?? 'Hauler 2500',
+    model: fields.model ?? 'Hauler Fieldline',
     notes: '',
+    vin: null,
+    plate: null,
+    mileage: null,
+    mileageReadOn: null,
   };
   const row = await db.insertInto('vehicles').values(values).returning('id').executeTakeFirstOrThrow();
   return { id: row.id, ...values };

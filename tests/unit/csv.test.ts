@@ -1,4 +1,4 @@
-import { parseItemsCell } from '@busbar/shared';
+import { parseItemsCell, unreadableLine } from '@busbar/shared';
 import { describe, expect, it } from 'vitest';
 import { parseCsv } from '../../apps/api/src/imports/csv.ts';
 
@@ -43,5 +43,19 @@ describe('parseItemsCell', () => {
   it('names an entry it cannot read', () => {
     expect(parseItemsCell('LB-100 two')).toBe('"LB-100 two" is not SKU, SKU x2 or SKU #SERIAL');
     expect(parseItemsCell('FB-12 x0')).toBe('"FB-12 x0" needs a quantity of at least 1');
+  });
+
+  it('checks SKUs and serial numbers by the catalog’s and the build’s own rules', () => {
+    expect(parseItemsCell('LB/100')).toBe('The SKU in "LB/100": Letters, digits, dot, dash or underscore');
+    expect(parseItemsCell(`DC-40 #${'9'.repeat(61)}`)).toBe(`The serial number in "DC-40 #${'9'.repeat(61)}": Use at most 60 characters`);
+    expect(parseItemsCell('DC-40 #SN/0042.b')).toEqual([{ sku: 'DC-40', quantity: 1, serialNumber: 'SN/0042.b' }]);
+  });
+});
+
+describe('unreadableLine', () => {
+  it('names the line of the first character a UTF-8 reader could not read', () => {
+    expect(unreadableLine('a,b\r\nc,d\r\nRen\uFFFD,e\n\uFFFD')).toBe(3);
+    expect(unreadableLine('\uFFFDa')).toBe(1);
+    expect(unreadableLine('René,Zoë,🚐\n')).toBeNull();
   });
 });

@@ -7,7 +7,7 @@ const jobs = () => new JobThread<typeof Jobs>(new URL('../support/thread-jobs.ts
 
 describe('a job thread', () => {
   it('answers with what the job returned', async () => {
-    await expect(jobs().run('echo', { text: 'Sprinter 144', ids: [3, 5] })).resolves.toEqual({ text: 'Sprinter 144', ids: [3, 5], thread: 'job' });
+    await expect(jobs().run('echo', { text: 'Longbay Wren', ids: [3, 5] })).resolves.toEqual({ text: 'Longbay Wren', ids: [3, 5], thread: 'job' });
   });
 
   it('leaves the calling thread free while a job runs', async () => {

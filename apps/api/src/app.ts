@@ -8,6 +8,7 @@ import { errorHandler, notFound } from './errors.ts';
 import { csrfProtection } from './middleware/csrf.ts';
 import { requireSession } from './middleware/session.ts';
 import { adminRouter } from './routes/admin.ts';
+import { buildHistoryRouter } from './routes/build-history.ts';
 import { buildItemsRouter } from './routes/build-items.ts';
 import { buildPlanRouter } from './routes/build-plan.ts';
 import { buildsRouter } from './routes/builds.ts';
@@ -22,6 +23,7 @@ import { exportsRouter } from './routes/exports.ts';
 import { healthRouter } from './routes/health.ts';
 import { importsRouter } from './routes/imports.ts';
 import { invitesRouter } from './routes/invites.ts';
+import { passwordResetsRouter } from './routes/password-resets.ts';
 import { planStockRouter } from './routes/plan-stock.ts';
 import { plansRouter } from './routes/plans.ts';
 import { reliabilityRouter } from './routes/reliability.ts';
@@ -66,18 +68,19 @@ export function createApp(ctx: AppContext): Express {
       cookie: { httpOnly: true, sameSite: 'lax', secure: secureCookies, maxAge: 12 * 3_600_000, path: '/' },
     }),
   );
-  app.use('/api', csrfProtection(config.sessionSecret, secureCookies));
+  app.use('/api', csrfProtection(config.sessionSecret, secureCookies, config.publicOrigin));
 
   const invites = invitesRouter(ctx);
   app.use('/api/health', healthRouter(ctx));
   app.use('/api/session', sessionRouter(ctx));
   app.use('/api/invites', invites.public);
+  app.use('/api/password-resets', passwordResetsRouter(ctx));
   app.use('/api/staff', requireSession(db), requireStaffAccess, invites.staff, staffRouter(ctx));
   app.use('/api/vendors', requireSession(db), vendorsRouter(ctx));
   app.use('/api/catalog', requireSession(db), catalogRouter(ctx));
   app.use('/api/customers', requireSession(db), customersRouter(ctx));
   app.use('/api/vehicles', requireSession(db), vehiclesRouter(ctx));
-  app.use('/api/builds', requireSession(db), buildsRouter(ctx), buildItemsRouter(ctx), buildPlanRouter(ctx));
+  app.use('/api/builds', requireSession(db), buildsRouter(ctx), buildItemsRouter(ctx), buildHistoryRouter(ctx), buildPlanRouter(ctx));
   app.use('/api/plans', requireSession(db), planStockRouter(ctx), plansRouter(ctx));
   app.use('/api/claims', requireSession(db), claimsRouter(ctx), claimEvidenceRouter(ctx), claimSendRouter(ctx), claimReplacementRouter(ctx));
   app.use('/api/serials', requireSession(db), serialsRouter(ctx));

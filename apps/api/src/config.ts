@@ -22,6 +22,8 @@ export interface Config {
   dataDir: string;
   databaseFile: string;
   publicUrl: string;
+  /** The origin (scheme, host, port) of PUBLIC_URL when it is set: state-changing requests must come from it. */
+  publicOrigin: string | null;
   sessionSecret: string;
   /** SMTP server to send through; when absent, start-up runs a local capture server. */
   smtpUrl: string | null;
@@ -32,7 +34,15 @@ export interface Config {
   /** log2 of scrypt's cost N; with r=8 and p=3 (password.ts), 15 is as strong as OWASP's N=2^17, p=1. */
   scryptLogN: number;
   inviteTtlHours: number;
-  signInLimit: { windowMs: number; perAccount: number; perAddress: number };
+  /**
+   * Failed sign-ins, counted in the database over `windowMs` (middleware/rate-limit.ts): one address
+   * is refused for an account after `perAccountAddress` of them, and for every account after
+   * `perAddress`. Past `slowAfter` failures on an account from anywhere, each answer on it waits
+   * `delayMs`, doubling with every further failure up to `maxDelayMs`, even for the right password.
+   */
+  signInLimit: { windowMs: number; perAccountAddress: number; perAddress: number; slowAfter: number; delayMs: number; maxDelayMs: number };
+  /** Reset links last `ttlMs`; requests are limited per account and per address over `windowMs`. */
+  passwordReset: { ttlMs: number; windowMs: number; perAccount: number; perAddress: number };
   /** Built web app to serve, or null to serve only the API. */
   webDist: string | null;
   /** App processes answering requests (one per CPU, at most four, unless set). */
@@ -61,6 +71,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     dataDir,
     databaseFile: join(dataDir, 'busbar.sqlite'),
     publicUrl: e.PUBLIC_URL ?? `http://localhost:${e.PORT}`,
+    publicOrigin: e.PUBLIC_URL ? new URL(e.PUBLIC_URL).origin : null,
     sessionSecret: e.SESSION_SECRET ?? storedSecret(dataDir),
     smtpUrl: e.SMTP_URL ?? null,
     smtpCapturePort: e.SMTP_CAPTURE_PORT,
@@ -69,8 +80,17 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     demoData: e.DEMO_DATA === 'true',
     scryptLogN: 15,
     inviteTtlHours: 72,
-    signInLimit: { windowMs: 15 * 60 * 1000, perAccount: 10, perAddress: 100 },
+    signInLimit: { windowMs: 15 * 60_000, perAccountAddress: 10, perAddress: 100, slowAfter: 5, delayMs: 250, maxDelayMs: 4000 },
+    passwordReset: { ttlMs: 3_600_000, windowMs: 3_600_000, perAccount: 3, perAddress: 20 },
     webDist: existsSync(join(webDist, 'index.html')) ? webDist : null,
     processes: e.BUSBAR_PROCESSES ?? Math.min(availableParallelism(), 4),
   };
+}
+
+/** Settings that start but will not work as meant, said once at start-up. */
+export function configWarnings(config: Config): string[] {
+  if (!config.publicUrl.startsWith('https://') || config.trustProxy) return [];
+  return [
+    'PUBLIC_URL is https but TRUST_PROXY is false: unless Busbar itself serves https, no one can sign in. Behind an https proxy, set TRUST_PROXY=true.',
+  ];
 }

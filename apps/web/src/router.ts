@@ -22,7 +22,21 @@ export const router = createRouter({
       path: '/set-password',
       name: 'set-password',
       component: () => import('./views/SetPassword.vue'),
+      props: { purpose: 'invite' },
       meta: { public: true, title: 'Set your password' },
+    },
+    {
+      path: '/forgot-password',
+      name: 'forgot-password',
+      component: () => import('./views/ForgotPassword.vue'),
+      meta: { public: true, title: 'Forgot your password?' },
+    },
+    {
+      path: '/reset-password',
+      name: 'reset-password',
+      component: () => import('./views/SetPassword.vue'),
+      props: { purpose: 'reset' },
+      meta: { public: true, title: 'Choose a new password' },
     },
     {
       path: '/',
@@ -35,7 +49,7 @@ export const router = createRouter({
           meta: { title: 'Overview' },
           // Arriving (signing in, opening Busbar) lands a person on their own work; the menu's Overview stays the overview.
           beforeEnter: (_to, from) => {
-            const arriving = from.matched.length === 0 || from.name === 'sign-in' || from.name === 'set-password';
+            const arriving = from.matched.length === 0 || from.name === 'sign-in' || from.name === 'set-password' || from.name === 'reset-password';
             const home = homeOf(useSessionStore().assignments);
             return arriving && home !== 'overview' ? { name: home } : true;
           },
@@ -227,6 +241,12 @@ export const router = createRouter({
           name: 'audit',
           component: () => import('./views/audit/AuditList.vue'),
           meta: { action: 'read', subject: 'AuditLog', title: 'Audit log' },
+        },
+        {
+          path: 'account/password',
+          name: 'change-password',
+          component: () => import('./views/ChangePassword.vue'),
+          meta: { title: 'Change password' },
         },
         { path: 'forbidden', name: 'forbidden', component: () => import('./views/Forbidden.vue'), meta: { title: 'No access' } },
       ],

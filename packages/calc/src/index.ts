@@ -76,3 +76,4 @@ export { wilsonInterval, type ProportionInterval, type WilsonOptions } from './w
 export { benjaminiHochberg } from './false-discovery.ts';
 export { excessChance, type RateStratum } from './rate-comparison.ts';
 export { weibullAgeTrend, type AgeTrend } from './weibull-trend.ts';
+export { VIN_PATTERN, vinCheckDigit, vinProblem, type VinProblem } from './vin.ts';

@@ -1,3 +1,4 @@
+import { isoDay, localDay } from '@busbar/calc';
 import type { Db } from '@busbar/db';
 import {
   IMPORT_COLUMNS,
@@ -26,12 +27,31 @@ interface Catalog {
 
 const headerError = (errors: Record<string, string>): ImportRowResult[] => [{ line: 1, summary: 'Header', errors }];
 
-/** Reads the header: every required column present, no column Busbar does not know. */
+/** Names that would reach into JavaScript's objects rather than name a column. */
+const OBJECT_NAMES = new Set(['__proto__', 'constructor', 'prototype']);
+/** An unknown column is named by itself only when it reads as a name; anything else by its place. */
+const PLAIN_NAME = /^[a-z0-9_ -]{1,40}$/;
+
+/**
+ * Reads the header: every required column present, each once, no column Busbar does not know.
+ * A column named like a part of JavaScript's objects (`__proto__`) is refused by its place.
+ */
 function readHeader(fields: string[]): { columns: string[]; errors: Record<string, string> } {
   const columns = fields.map((f) => f.trim().toLowerCase());
   const errors: Record<string, string> = {};
-  for (const column of columns) if (!(IMPORT_COLUMNS as readonly string[]).includes(column)) errors[column || '_'] = 'Unknown column';
+  const byPlace: string[] = [];
+  columns.forEach((column, at) => {
+    const place = `column ${at + 1}`;
+    const first = columns.indexOf(column);
+    if (column === '') byPlace.push(`The ${place} has no name`);
+    else if (OBJECT_NAMES.has(column)) byPlace.push(`The ${place} is named "${column}", which is not a column of the import`);
+    else if (!(IMPORT_COLUMNS as readonly string[]).includes(column)) {
+      if (PLAIN_NAME.test(column)) errors[column] = 'Unknown column';
+      else byPlace.push(`The ${place} is not a column of the import`);
+    } else if (first !== at) errors[column] = `Named twice: columns ${first + 1} and ${at + 1}`;
+  });
   for (const column of REQUIRED_IMPORT_COLUMNS) if (!columns.includes(column)) errors[column] = 'Missing column';
+  if (byPlace.length > 0) errors._ = byPlace.join('; ');
   return { columns, errors };
 }
 
@@ -46,7 +66,11 @@ async function installedSerials(db: Db, wanted: { sku: string; serialNumber: str
   return found;
 }
 
-function checkItems(cell: string, catalog: Catalog, errors: Record<string, string>): CheckedRow['items'] {
+/**
+ * Serial numbers are recorded once a unit is fitted, and a build is often cancelled before that:
+ * a cancelled row's serialized units may come without them (`SKU` or `SKU x2`); any given are checked.
+ */
+function checkItems(cell: string, catalog: Catalog, cancelled: boolean, errors: Record<string, string>): CheckedRow['items'] {
   const parsed = parseItemsCell(cell);
   if (typeof parsed === 'string') {
     errors.items = parsed;
@@ -56,7 +80,7 @@ function checkItems(cell: string, catalog: Catalog, errors: Record<string, strin
   for (const item of parsed) {
     const entry = catalog.bySku.get(item.sku);
     if (!entry) errors.items ??= `Unknown SKU ${item.sku}`;
-    else if (entry.serialized && (!item.serialNumber || item.quantity !== 1)) errors.items ??= `${item.sku} needs one entry per unit: ${item.sku} #SERIAL`;
+    else if (entry.serialized && !cancelled && (!item.serialNumber || item.quantity !== 1)) errors.items ??= `${item.sku} needs one entry per unit: ${item.sku} #SERIAL`;
     else if (!entry.serialized && item.serialNumber) errors.items ??= `${item.sku} has no serial numbers`;
     else items.push({ ...item, catalogItemId: entry.id, unitPriceCents: entry.unitPriceCents, unitCostCents: entry.unitCostCents });
   }
@@ -67,7 +91,7 @@ function checkItems(cell: string, catalog: Catalog, errors: Record<string, strin
  * Checks every row of an import against the schema, the catalog, the location's technicians and
  * the serial numbers already installed or repeated in the file. Nothing is written here.
  */
-export async function checkImport(db: Db, locationId: number, csv: string): Promise<{ results: ImportRowResult[]; rows: CheckedRow[] }> {
+export async function checkImport(db: Db, location: { id: number; timeZone: string }, csv: string, at: string): Promise<{ results: ImportRowResult[]; rows: CheckedRow[] }> {
   let records: ReturnType<typeof parseCsv>;
   try {
     records = parseCsv(csv);
@@ -85,15 +109,17 @@ export async function checkImport(db: Db, locationId: number, csv: string): Prom
   const leads = await db
     .selectFrom('users')
     .select(['id', 'email'])
-    .where('id', 'in', [0, ...(await buildLeadsAt(db, locationId)).map((p) => p.id)])
+    .where('id', 'in', [0, ...(await buildLeadsAt(db, location.id)).map((p) => p.id)])
     .execute();
+  const today = isoDay(localDay(location.timeZone, Date.parse(at)));
   const results: ImportRowResult[] = [];
   const rows: CheckedRow[] = [];
   for (const record of body) {
     const cells = Object.fromEntries(IMPORT_COLUMNS.map((c) => [c, record.fields[columns.indexOf(c)]?.trim() ?? '']));
     const parsed = importRow.safeParse(cells);
     const errors: Record<string, string> = parsed.success ? {} : fieldErrors(parsed.error);
-    const items = checkItems(cells.items ?? '', catalog, errors);
+    if (parsed.success) checkPast(parsed.data, today, errors);
+    const items = checkItems(cells.items ?? '', catalog, cells.status?.toLowerCase() === 'cancelled', errors);
     const lead = cells.lead_technician_email ? leads.find((p) => p.email === cells.lead_technician_email!.toLowerCase()) : undefined;
     if (cells.lead_technician_email && !lead) errors.lead_technician_email ??= 'Not a technician or lead of this location';
     results.push({ line: record.line, summary: parsed.success ? summarize(parsed.data, items.length) : '', errors });
@@ -101,6 +127,12 @@ export async function checkImport(db: Db, locationId: number, csv: string): Prom
   }
   await checkSerials(db, rows, results);
   return { results, rows };
+}
+
+/** Imports bring in past builds: a date after the shop's today is a typing slip or a build to book in Busbar. */
+function checkPast(row: ImportRow, today: string, errors: Record<string, string>) {
+  if (row.delivered_on > today) errors.delivered_on ??= `This date is after today (${today}): import only builds already delivered`;
+  if (row.booked_for > today) errors.booked_for ??= `This date is after today (${today}): book a build still to come in Busbar itself`;
 }
 
 /** A serial number may be installed once per SKU: not already in Busbar, not twice in the file. */

@@ -19,7 +19,7 @@ export interface ImportJob {
 export async function importBuilds(job: ImportJob): Promise<ImportResult> {
   const db = openDatabase(job.databaseFile);
   try {
-    const { results, rows } = await checkImport(db, job.location.id, job.csv);
+    const { results, rows } = await checkImport(db, job.location, job.csv, job.at);
     const ok = results.length > 0 && rows.length === results.length && results.every((r) => Object.keys(r.errors).length === 0);
     let created = 0;
     if (ok && !job.dryRun) created = await writeImport(db, job.location, rows, job.actorId, job.at);

@@ -8,9 +8,6 @@ const literal = (text: string) => text.replace(/[\\%_]/g, (c) => `\\${c}`);
 /** `column` contains `text`, in any case (LIKE ignores the case of ASCII letters). */
 export const contains = (column: string, text: string) => sql<boolean>`${sql.ref(column)} like ${`%${literal(text)}%`} escape '\\'`;
 
-/** `column` starts with `text`, in any case. */
-export const startsWith = (column: string, text: string) => sql<boolean>`${sql.ref(column)} like ${`${literal(text)}%`} escape '\\'`;
-
 /** The trigram indexes find any run of 3 or more characters; shorter text is looked for row by row. */
 const TRIGRAM_LENGTH = 3;
 

@@ -1,30 +1,45 @@
 import type { Db } from '@busbar/db';
 import { SEARCH_CAP, type Page, type SerialMatch } from '@busbar/shared';
-import { sql } from 'kysely';
+import { sql, type SqlBool } from 'kysely';
 import type { LocationScope } from '../access/locations.ts';
 import { cappedCount, offsetOf } from './paging.ts';
-import { inPlaces, narrowsByPlace, phrase, startsWith } from './search.ts';
+import { contains, inPlaces, narrowsByPlace, phrase } from './search.ts';
 
-/** Serial numbers in any case, the order of the `build_items_serial_nocase` index that finds a prefix. */
-const serialOrder = sql`${sql.ref('i.serialNumber')} collate nocase`;
+/**
+ * The first `reach` installed units whose serial number contains `q` (3 or more characters, any
+ * case), in the scope, newest build first. The full-text index over builds finds the builds that
+ * hold such a serial as it walks them newest first, so a common piece of a number costs no more
+ * than a rare one; LIKE then keeps the units of each build whose own number holds the text.
+ */
+function matchingUnits(db: Db, scope: LocationScope, q: string, reach: number) {
+  let units = db
+    .selectFrom(sql<{ rowid: number }>`build_search`.as('s'))
+    .innerJoin('buildItems as i', 'i.buildId', 's.rowid')
+    .where(sql<SqlBool>`s.build_search match ${inPlaces(`serials : ${phrase(q)}`, scope)}`)
+    .where(contains('i.serialNumber', q));
+  // A good part of the network: its builds come often enough among the newest matches.
+  if (scope !== 'all' && !narrowsByPlace(scope)) units = units.innerJoin('builds as b', 'b.id', 's.rowid').where('b.locationId', 'in', scope);
+  return units.select('i.id').orderBy('s.rowid', 'desc').limit(reach);
+}
 
-/** Installed units whose serial number starts with `prefix` (any case), in the scope, a page at a time. */
+/**
+ * Installed units whose serial number contains `q` (any case), in the scope: the newest SEARCH_CAP
+ * of them sorted by serial number, a page at a time, and their count up to "more than" SEARCH_CAP.
+ */
 export async function findSerials(db: Db, scope: LocationScope, filter: { q: string; page: number; pageSize: number }): Promise<Page<SerialMatch>> {
-  const { page, pageSize } = filter;
+  const { q, page, pageSize } = filter;
   if (scope !== 'all' && scope.length === 0) return { items: [], total: 0, totalCapped: false, page, pageSize };
-  let matching = db.selectFrom('buildItems as i').where(startsWith('i.serialNumber', filter.q));
-  if (narrowsByPlace(scope)) {
-    // The scope's builds that hold a serial number with this text (3 or more characters), from the full-text
-    // index's place markers: a lead's search reads their own shop's units, not every unit in the network that starts so.
-    const held = sql<number>`(select rowid from build_search where build_search match ${inPlaces(`serials : ${phrase(filter.q)}`, scope)})`;
-    matching = matching.where('i.buildId', 'in', held);
-  } else if (scope !== 'all') {
-    // A good part of the network: its units come often enough in serial-number order.
-    matching = matching.where((eb) => eb.exists(eb.selectFrom('builds as b').select('b.id').whereRef('b.id', '=', 'i.buildId').where('b.locationId', 'in', scope)));
-  }
   const [keys, count] = await Promise.all([
-    matching.select('i.id').orderBy(serialOrder).orderBy('i.id').limit(pageSize).offset(offsetOf(page, pageSize)).execute(),
-    cappedCount(db, matching.select('i.id'), SEARCH_CAP),
+    db
+      .selectFrom('buildItems as i')
+      .select('i.id')
+      .where('i.id', 'in', matchingUnits(db, scope, q, SEARCH_CAP))
+      .orderBy(sql`${sql.ref('i.serialNumber')} collate nocase`)
+      .orderBy('i.id')
+      .limit(pageSize)
+      .offset(offsetOf(page, pageSize))
+      .execute(),
+    cappedCount(db, matchingUnits(db, scope, q, SEARCH_CAP + 1), SEARCH_CAP),
   ]);
   if (keys.length === 0) return { items: [], ...count, page, pageSize };
   const rows = await db

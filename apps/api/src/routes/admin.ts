@@ -2,6 +2,7 @@ import { subject } from '@casl/ability';
 import { auditQuery, noQuery, outboxQuery, type AppAbility, type Subject } from '@busbar/shared';
 import { Router, type Request } from 'express';
 import type { AppContext } from '../context.ts';
+import { locationScope } from '../access/locations.ts';
 import { forbidden } from '../errors.ts';
 import { viewerOf } from '../middleware/session.ts';
 import { validate } from '../middleware/validate.ts';
@@ -35,7 +36,9 @@ export function adminRouter(ctx: AppContext): Router {
     '/audit',
     validate({ query: auditQuery }, async ({ query }, req, res) => {
       authorize(req, 'read', 'AuditLog');
-      res.json(await listAudit(db, query));
+      const viewer = viewerOf(req);
+      const money = ['unitPriceCents', 'unitCostCents'].every((field) => locationScope(viewer, 'read', 'Build', field) === 'all');
+      res.json(await listAudit(db, { scope: locationScope(viewer, 'read', 'Build'), money }, query));
     }),
   );
 

@@ -1,5 +1,5 @@
 import { subject } from '@casl/ability';
-import { buildItemAdd, buildItemParams, buildItemUpdate, idParams, SERIAL_MAY_WAIT, versionQuery } from '@busbar/shared';
+import { buildItemAdd, buildItemParams, buildItemRemove, buildItemUpdate, idParams, SERIAL_MAY_WAIT, versionQuery } from '@busbar/shared';
 import { Router } from 'express';
 import { authorizeBuildChange, buildDetail, loadBuild } from '../access/builds.ts';
 import type { Viewer } from '../access/viewer.ts';
@@ -38,15 +38,19 @@ async function checkSerial(db: Db, viewer: Viewer, build: BuildRow, item: { sku:
 export function buildItemsRouter({ db, now }: AppContext): Router {
   const router = Router();
 
-  /** Runs an item change as one versioned build change, with its totals, audit and, after delivery, a correction event. */
-  async function itemChange(viewer: Viewer, buildId: number, version: number, correction: boolean, audit: { action: string; before?: unknown; after?: unknown; note: string }, change: (trx: Db, at: string) => Promise<void>) {
+  /**
+   * Runs a line change as one versioned build change, with its totals and audit. After delivery it is a
+   * correction: the person's reason goes into the audit row (`after.reason`) and the build's history.
+   */
+  async function itemChange(viewer: Viewer, buildId: number, version: number, reason: string | null, audit: { action: string; before?: unknown; after?: object }, change: (trx: Db, at: string) => Promise<void>) {
     await db.transaction().execute(async (trx) => {
       const at = now().toISOString();
       await changeBuild(trx, buildId, version, at);
       await change(trx, at);
       await recomputeTotals(trx, buildId);
-      if (correction) await addBuildEvent(trx, { buildId, at, actorId: viewer.id, kind: 'correction', note: audit.note });
-      await writeAudit(trx, { at, actorId: viewer.id, action: audit.action, entity: 'build', entityId: buildId, before: audit.before, after: audit.after });
+      if (reason) await addBuildEvent(trx, { buildId, at, actorId: viewer.id, kind: 'correction', note: reason });
+      const after = reason ? { ...audit.after, reason } : audit.after;
+      await writeAudit(trx, { at, actorId: viewer.id, action: audit.action, entity: 'build', entityId: buildId, before: audit.before, after });
     });
   }
 
@@ -55,14 +59,13 @@ export function buildItemsRouter({ db, now }: AppContext): Router {
     validate({ params: idParams, body: buildItemAdd }, async ({ params, body }, req, res) => {
       const viewer = viewerOf(req);
       const build = await loadBuild(db, viewer, params.id);
-      const correction = authorizeBuildChange(viewer, build, 'update', 'Component added after delivery');
+      const reason = authorizeBuildChange(viewer, build, 'update', body.correctionNote) ? body.correctionNote! : null;
       const item = await db.selectFrom('catalogItems').selectAll().where('id', '=', body.catalogItemId).executeTakeFirst();
       if (!item) throw invalidField('catalogItemId', 'Choose a component from the catalog');
       if (!item.active) throw invalidField('catalogItemId', 'This component is no longer offered');
       await checkSerial(db, viewer, build, { sku: item.sku, serialized: !!item.serialized }, body.quantity, body.serialNumber);
       const line = { sku: item.sku, quantity: body.quantity, serialNumber: body.serialNumber, unitPriceCents: item.unitPriceCents, unitCostCents: item.unitCostCents };
-      const note = `Added ${item.sku}${body.serialNumber ? ` #${body.serialNumber}` : ` × ${body.quantity}`} after delivery`;
-      await itemChange(viewer, build.id, body.version, correction, { action: 'build.item.add', after: line, note }, async (trx, at) => {
+      await itemChange(viewer, build.id, body.version, reason, { action: 'build.item.add', after: line }, async (trx, at) => {
         await trx.insertInto('buildItems').values({ ...line, buildId: build.id, catalogItemId: item.id, createdAt: at }).execute();
       });
       res.status(201).json(await buildDetail(db, viewer, build.id));
@@ -74,7 +77,7 @@ export function buildItemsRouter({ db, now }: AppContext): Router {
     validate({ params: buildItemParams, body: buildItemUpdate }, async ({ params, body }, req, res) => {
       const viewer = viewerOf(req);
       const build = await loadBuild(db, viewer, params.id);
-      const correction = authorizeBuildChange(viewer, build, 'update', 'Component changed after delivery');
+      const reason = authorizeBuildChange(viewer, build, 'update', body.correctionNote) ? body.correctionNote! : null;
       const line = await db
         .selectFrom('buildItems as i')
         .innerJoin('catalogItems as c', 'c.id', 'i.catalogItemId')
@@ -87,8 +90,7 @@ export function buildItemsRouter({ db, now }: AppContext): Router {
       const serialNumber = body.serialNumber === undefined ? line.serialNumber : body.serialNumber;
       await checkSerial(db, viewer, build, { sku: line.sku, serialized: !!line.serialized }, quantity, serialNumber, line.id);
       const before = { sku: line.sku, quantity: line.quantity, serialNumber: line.serialNumber };
-      const note = `Changed ${line.sku} after delivery`;
-      await itemChange(viewer, build.id, body.version, correction, { action: 'build.item.update', before, after: { sku: line.sku, quantity, serialNumber }, note }, async (trx) => {
+      await itemChange(viewer, build.id, body.version, reason, { action: 'build.item.update', before, after: { sku: line.sku, quantity, serialNumber } }, async (trx) => {
         await trx.updateTable('buildItems').set({ quantity, serialNumber }).where('id', '=', line.id).execute();
       });
       res.json(await buildDetail(db, viewer, build.id));
@@ -97,14 +99,13 @@ export function buildItemsRouter({ db, now }: AppContext): Router {
 
   router.delete(
     '/:id/items/:itemId',
-    validate({ params: buildItemParams, query: versionQuery }, async ({ params, query }, req, res) => {
+    validate({ params: buildItemParams, query: versionQuery, body: buildItemRemove }, async ({ params, query, body }, req, res) => {
       const viewer = viewerOf(req);
       const build = await loadBuild(db, viewer, params.id);
-      const correction = authorizeBuildChange(viewer, build, 'update', 'Component removed after delivery');
+      const reason = authorizeBuildChange(viewer, build, 'update', body.correctionNote) ? body.correctionNote! : null;
       const line = await db.selectFrom('buildItems').selectAll().where('id', '=', params.itemId).where('buildId', '=', build.id).executeTakeFirst();
       if (!line) throw notFound('component on this build');
-      const note = `Removed ${line.sku}${line.serialNumber ? ` #${line.serialNumber}` : ''} after delivery`;
-      await itemChange(viewer, build.id, query.version, correction, { action: 'build.item.remove', before: line, note }, async (trx) => {
+      await itemChange(viewer, build.id, query.version, reason, { action: 'build.item.remove', before: line }, async (trx) => {
         await trx.deleteFrom('buildItems').where('id', '=', line.id).execute();
       });
       res.json(await buildDetail(db, viewer, build.id));

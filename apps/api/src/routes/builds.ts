@@ -94,7 +94,8 @@ export function buildsRouter({ db, now }: AppContext): Router {
         await recomputeTotals(trx, row.id);
         if (correction) await addBuildEvent(trx, { buildId: row.id, at, actorId: viewer.id, kind: 'correction', note: correctionNote! });
         const before = Object.fromEntries(Object.keys(patch).map((k) => [k, row[k as keyof typeof row]]));
-        await writeAudit(trx, { at, actorId: viewer.id, action: correction ? 'build.correct' : 'build.update', entity: 'build', entityId: row.id, before, after: patch });
+        const after = correction ? { ...patch, reason: correctionNote } : patch;
+        await writeAudit(trx, { at, actorId: viewer.id, action: correction ? 'build.correct' : 'build.update', entity: 'build', entityId: row.id, before, after });
       });
       res.json(await buildDetail(db, viewer, row.id));
     }),

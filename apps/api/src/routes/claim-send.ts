@@ -4,6 +4,7 @@ import { claimDetail, loadClaim } from '../access/claims.ts';
 import type { AppContext } from '../context.ts';
 import { forbidden, invalidField, stale } from '../errors.ts';
 import { readEvidence } from '../evidence/store.ts';
+import { countMail, vendorRequestLimits } from '../mail/limits.ts';
 import { vendorRequest } from '../mail/vendor-request.ts';
 import { viewerOf } from '../middleware/session.ts';
 import { validate } from '../middleware/validate.ts';
@@ -21,6 +22,7 @@ export function claimSendRouter({ db, config, mailer, now }: AppContext): Router
       if (!viewer.ability.can('send', claimRuleSubject(claim))) throw forbidden('You cannot send this claim to the vendor');
       if (claim.status !== 'evidence_ready') throw invalidField('status', 'Only a claim with its evidence ready is sent to the vendor');
       if (claim.version !== body.version) throw stale();
+      await countMail(db, vendorRequestLimits(claim.id, viewer.id), now());
       const [vendor, shop, files] = await Promise.all([
         db.selectFrom('vendors').select(['rmaEmail']).where('id', '=', claim.vendorId).executeTakeFirstOrThrow(),
         db.selectFrom('locations').select(['name']).where('id', '=', claim.locationId).executeTakeFirstOrThrow(),

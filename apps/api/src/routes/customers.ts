@@ -1,14 +1,16 @@
 import { subject } from '@casl/ability';
-import { customerBody, customerQuery, customerUpdate, idParams } from '@busbar/shared';
+import { customerBody, customerHistoryQuery, customerQuery, customerUpdate, idParams, type CustomerPlanRow } from '@busbar/shared';
 import { Router } from 'express';
 import { readable } from '../access/fields.ts';
 import { locationScope, locationToAddAt, narrowScope, type LocationScope } from '../access/locations.ts';
+import { quickPlanSummaries } from '../access/plans.ts';
 import type { Viewer } from '../access/viewer.ts';
 import type { AppContext } from '../context.ts';
 import { forbidden, notFound, stale } from '../errors.ts';
 import { viewerOf } from '../middleware/session.ts';
 import { validate } from '../middleware/validate.ts';
 import { writeAudit } from '../queries/audit.ts';
+import { customerBuilds, customerPlans } from '../queries/customer-history.ts';
 import { findCustomer, insertCustomer, listCustomers, updateCustomer } from '../queries/customers.ts';
 import { vehiclesOf } from '../queries/vehicles.ts';
 
@@ -18,9 +20,22 @@ function readingField(viewer: Viewer, field: string, scope: LocationScope): Loca
   return scope.filter((locationId) => viewer.ability.can('read', subject('Customer', { locationId }), field));
 }
 
+/** Where the person reads both records of `types`. */
+function readingAll(viewer: Viewer, types: ('Build' | 'Plan')[]): LocationScope {
+  const scopes = types.map((type) => locationScope(viewer, 'read', type));
+  return scopes.reduce((a, b) => (a === 'all' ? b : b === 'all' ? a : a.filter((id) => b.includes(id))));
+}
+
 /** Customers of the locations a person may see, without the contact details they may not read. */
 export function customersRouter({ db, now }: AppContext): Router {
   const router = Router();
+
+  /** The customer, or 404 where the person may not read them. */
+  async function readableCustomer(viewer: Viewer, id: number) {
+    const customer = await findCustomer(db, id);
+    if (!customer || !viewer.ability.can('read', subject('Customer', { ...customer }))) throw notFound('customer');
+    return customer;
+  }
 
   router.get(
     '/',
@@ -44,13 +59,37 @@ export function customersRouter({ db, now }: AppContext): Router {
   router.get(
     '/:id',
     validate({ params: idParams }, async ({ params }, req, res) => {
-      const { ability } = viewerOf(req);
-      const customer = await findCustomer(db, params.id);
-      if (!customer || !ability.can('read', subject('Customer', { ...customer }))) throw notFound('customer');
+      const viewer = viewerOf(req);
+      const { ability } = viewer;
+      const customer = await readableCustomer(viewer, params.id);
       const vehicles = (await vehiclesOf(db, customer.id))
         .filter((v) => ability.can('read', subject('Vehicle', { ...v })))
         .map((v) => readable(ability, 'Vehicle', v));
       res.json({ ...readable(ability, 'Customer', customer), vehicles });
+    }),
+  );
+
+  router.get(
+    '/:id/builds',
+    validate({ params: idParams, query: customerHistoryQuery }, async ({ params, query }, req, res) => {
+      const viewer = viewerOf(req);
+      await readableCustomer(viewer, params.id);
+      const page = await customerBuilds(db, params.id, readingAll(viewer, ['Build']), query);
+      res.json({ ...page, items: page.items.map((b) => readable(viewer.ability, 'Build', b)) });
+    }),
+  );
+
+  router.get(
+    '/:id/plans',
+    validate({ params: idParams, query: customerHistoryQuery }, async ({ params, query }, req, res) => {
+      const viewer = viewerOf(req);
+      await readableCustomer(viewer, params.id);
+      const { rows, ...page } = await customerPlans(db, params.id, readingAll(viewer, ['Build', 'Plan']), query);
+      const summaries = await quickPlanSummaries(db, rows);
+      const items: CustomerPlanRow[] = summaries.map(({ id, name, version, updatedAt, verdict }, i) => ({
+        id, buildId: rows[i]!.buildId!, buildNumber: rows[i]!.buildNumber, name, version, updatedAt, verdict,
+      }));
+      res.json({ ...page, items });
     }),
   );
 

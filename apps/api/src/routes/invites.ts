@@ -4,8 +4,10 @@ import { acceptInviteBody, idParams, inviteBody, inviteTokenParams, ROLE_LABELS,
 import { Router, type Request, type Response } from 'express';
 import { authorizeGrant, canManagePerson, loadStaffPerson } from '../access/staff.ts';
 import { hashPassword } from '../auth/password.ts';
+import { checkNewPassword } from '../auth/password-rule.ts';
 import type { AppContext } from '../context.ts';
 import { conflict, forbidden, HttpError, notFound } from '../errors.ts';
+import { countMail, reinviteLimits } from '../mail/limits.ts';
 import { viewerOf } from '../middleware/session.ts';
 import { validate } from '../middleware/validate.ts';
 import { insertAssignment } from '../queries/assignments.ts';
@@ -88,6 +90,7 @@ export function invitesRouter(ctx: AppContext): { staff: Router; public: Router 
       const { person, assignments } = await loadStaffPerson(db, viewer, params.id);
       if (!canManagePerson(viewer, person.id, assignments)) throw forbidden('You cannot invite this person');
       if (person.status !== 'invited') throw conflict('Only people who have not yet accepted an invite can be sent a new one');
+      await countMail(db, reinviteLimits(person.id, viewer.id), now());
       await sendInvite(person, viewer, assignments[0]?.role ?? 'technician', async (trx) => {
         await writeAudit(trx, { at: now().toISOString(), actorId: viewer.id, action: 'person.reinvite', entity: 'user', entityId: person.id });
         return person.id;
@@ -118,6 +121,7 @@ export function invitesRouter(ctx: AppContext): { staff: Router; public: Router 
     '/accept',
     validate({ body: acceptInviteBody }, async ({ body }, req: Request, res: Response) => {
       const invite = await openInvite(body.token);
+      checkNewPassword(body.password, invite);
       const passwordHash = await hashPassword(body.password, config.scryptLogN);
       await db.transaction().execute(async (trx) => {
         const at = now().toISOString();

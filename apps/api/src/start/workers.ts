@@ -7,16 +7,12 @@ const RESTART_DELAY_MS = 1000;
 /**
  * Starts `config.processes` app processes that share the port, each with its own database
  * connection and threads, so requests are answered on every CPU. One that stops is started again.
- * Each process counts failed sign-ins by itself and requests are dealt out in turn, so each
- * allows its share of the limits.
+ * Failed sign-ins are counted in the database, so every process sees the same counts.
  */
 export function startWorkers(config: Config, mail: MailRoute): void {
   let stopping = false;
-  const { signInLimit, processes } = config;
-  const share = (limit: number) => Math.max(1, Math.ceil(limit / processes));
-  const limits = { ...signInLimit, perAccount: share(signInLimit.perAccount), perAddress: share(signInLimit.perAddress) };
-  const start = () => cluster.fork({ BUSBAR_WORKER: JSON.stringify({ mail, signInLimit: limits }) });
-  for (let i = 0; i < processes; i++) start();
+  const start = () => cluster.fork({ BUSBAR_WORKER: JSON.stringify({ mail }) });
+  for (let i = 0; i < config.processes; i++) start();
   cluster.on('exit', (_worker, code, signal) => {
     if (stopping) return;
     console.error(`An app process stopped (${signal ?? `exit code ${code}`}); starting another.`);
@@ -32,6 +28,6 @@ export function startWorkers(config: Config, mail: MailRoute): void {
 }
 
 /** What the first process handed this one (see startWorkers). */
-export function fromPrimary(): { mail: MailRoute; signInLimit: Config['signInLimit'] } {
+export function fromPrimary(): { mail: MailRoute } {
   return JSON.parse(process.env.BUSBAR_WORKER!);
 }

@@ -34,5 +34,7 @@ export function serveWeb(app: Express, dist: string): void {
   });
   const indexVariants = new Set(['index.html.br', 'index.html.gz'].filter((n) => existsSync(join(dist, n))));
   app.use(express.static(dist, { index: false, maxAge: '1h', setHeaders: (res, path) => path.endsWith('.html') && res.setHeader('Cache-Control', 'no-cache') }));
+  // Browsers and feed readers ask for /favicon.ico whatever the page links; a build without it answers 404, never the page.
+  app.get('/favicon.ico', (_req, res) => res.status(404).end());
   app.get(/.*/, (req, res) => sendFile(req, res, index, 'index.html', 'no-cache', (n) => indexVariants.has(n)));
 }

@@ -12,8 +12,16 @@ export const listRegions = () => request<RegionView[]>('/regions');
 
 export const listLocations = () => request<LocationView[]>('/locations');
 
-export const listAudit = (query: PageRequest & { entity?: string }) =>
-  request<Page<AuditEntry>>('/audit', { query: { ...query } });
+/** The audit log's filters (see `auditQuery`): who, which kind of record or build, between two times. */
+export interface AuditFilter {
+  actorId?: number;
+  entity?: string;
+  buildNumber?: string;
+  from?: string;
+  to?: string;
+}
+
+export const listAudit = (query: PageRequest & AuditFilter) => request<Page<AuditEntry>>('/audit', { query: { ...query } });
 
 export const listOutbox = (query: PageRequest) => request<Page<MailEntry>>('/outbox', { query: { ...query } });
 

@@ -1,6 +1,7 @@
 import type {
   BuildCreate,
   BuildDetail,
+  BuildHistory,
   BuildStatus,
   BuildUpdate,
   BuildView,
@@ -40,12 +41,15 @@ export interface ItemAdd {
   catalogItemId: number;
   quantity: number;
   serialNumber: string | null;
+  /** Why, when the build is delivered (required then). */
+  correctionNote?: string;
 }
 
 export interface ItemUpdate {
   version: number;
   quantity?: number;
   serialNumber?: string | null;
+  correctionNote?: string;
 }
 
 export interface ImportRequest {
@@ -72,8 +76,12 @@ export const addBuildItem = (id: number, body: ItemAdd) =>
 export const updateBuildItem = (id: number, itemId: number, body: ItemUpdate) =>
   request<BuildDetail>(`/builds/${id}/items/${itemId}`, { method: 'PATCH', body });
 
-export const removeBuildItem = (id: number, itemId: number, version: number) =>
-  request<BuildDetail>(`/builds/${id}/items/${itemId}`, { method: 'DELETE', query: { version } });
+/** Removes a line; a delivered build's removal carries the reason. */
+export const removeBuildItem = (id: number, itemId: number, version: number, correctionNote?: string) =>
+  request<BuildDetail>(`/builds/${id}/items/${itemId}`, { method: 'DELETE', query: { version }, ...(correctionNote ? { body: { correctionNote } } : {}) });
+
+/** The build's history in words, newest first. */
+export const getBuildHistory = (id: number) => request<BuildHistory>(`/builds/${id}/history`);
 
 /** The first page of units whose serial number starts with `q`. */
 export const findSerials = (q: string) => request<Page<SerialMatch>>('/serials', { query: { q } });

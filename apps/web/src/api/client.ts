@@ -62,7 +62,11 @@ async function errorFrom(response: Response): Promise<ApiError> {
 }
 
 /** Sends one JSON request to the Busbar API and returns the parsed answer (undefined for 204). */
-export async function request<T>(path: string, options: RequestOptions = {}): Promise<T> {
+export function request<T>(path: string, options: RequestOptions = {}): Promise<T> {
+  return send<T>(path, options, true);
+}
+
+async function send<T>(path: string, options: RequestOptions, mayRetry: boolean): Promise<T> {
   const method = options.method ?? 'GET';
   const headers: Record<string, string> = { Accept: 'application/json' };
   if (options.body !== undefined) headers['Content-Type'] = 'application/json';
@@ -85,6 +89,8 @@ export async function request<T>(path: string, options: RequestOptions = {}): Pr
 
   if (!response.ok) {
     const error = await errorFrom(response);
+    // The token follows the session, which another tab's sign-in or sign-out or an expiry may have changed; the refusal set a fresh one.
+    if (error.code === 'csrf' && mayRetry) return send<T>(path, options, false);
     if (error.status === 401) onUnauthenticated?.(path);
     throw error;
   }

@@ -1,4 +1,4 @@
-import type { CustomerBody, CustomerUpdate, CustomerView, Page, VehicleBody, VehicleView } from '@busbar/shared';
+import type { CustomerBody, CustomerBuildRow, CustomerPlanRow, CustomerUpdate, CustomerView, Page, VehicleBody, VehicleUpdate, VehicleView } from '@busbar/shared';
 import { request } from './client.ts';
 
 export interface CustomerFilter {
@@ -10,7 +10,6 @@ export interface CustomerFilter {
 }
 
 export type CustomerWithVehicles = CustomerView & { vehicles: VehicleView[] };
-export type VehicleUpdate = Omit<VehicleBody, 'customerId'> & { version: number };
 
 export const listCustomers = (filter: CustomerFilter) =>
   request<Page<CustomerView>>('/customers', { query: { ...filter } });
@@ -26,3 +25,16 @@ export const createVehicle = (body: VehicleBody) => request<VehicleView>('/vehic
 
 export const updateVehicle = (id: number, body: VehicleUpdate) =>
   request<VehicleView>(`/vehicles/${id}`, { method: 'PUT', body });
+
+export interface HistoryPaging {
+  page: number;
+  pageSize: number;
+}
+
+/** The customer's builds at the shops the person sees, newest first. */
+export const listCustomerBuilds = (id: number, paging: HistoryPaging) =>
+  request<Page<CustomerBuildRow>>(`/customers/${id}/builds`, { query: { ...paging } });
+
+/** The plans of the customer's builds at the shops the person sees, last saved first. */
+export const listCustomerPlans = (id: number, paging: HistoryPaging) =>
+  request<Page<CustomerPlanRow>>(`/customers/${id}/plans`, { query: { ...paging } });

@@ -1,6 +1,9 @@
 import { App } from 'ant-design-vue';
 import { onBeforeUnmount, onMounted } from 'vue';
-import { onBeforeRouteLeave } from 'vue-router';
+import { onBeforeRouteLeave, type RouteLocationNormalized } from 'vue-router';
+
+/** The navigation the person already agreed to: a form inside another form asks once, not twice. */
+let agreedTo: RouteLocationNormalized | null = null;
 
 /**
  * Asks before the person leaves a page with changes not saved yet: a confirmation inside the
@@ -9,8 +12,8 @@ import { onBeforeRouteLeave } from 'vue-router';
 export function useLeaveGuard(unsaved: () => boolean, what = 'your changes') {
   const { modal } = App.useApp();
 
-  onBeforeRouteLeave(() => {
-    if (!unsaved()) return true;
+  onBeforeRouteLeave((to) => {
+    if (!unsaved() || to === agreedTo) return true;
     return new Promise<boolean>((resolve) => {
       modal.confirm({
         title: `Discard ${what}?`,
@@ -18,7 +21,10 @@ export function useLeaveGuard(unsaved: () => boolean, what = 'your changes') {
         okText: 'Discard and leave',
         okType: 'danger',
         cancelText: 'Keep editing',
-        onOk: () => resolve(true),
+        onOk: () => {
+          agreedTo = to;
+          resolve(true);
+        },
         onCancel: () => resolve(false),
       });
     });

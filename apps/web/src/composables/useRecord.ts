@@ -9,20 +9,24 @@ export function useRecord<T>(id: () => number, fetch: (id: number) => Promise<T>
   const record = shallowRef<T | null>(null);
   const loading = ref(true);
   const error = ref<string | null>(null);
+  /** What the last load threw, for the page to say why the record did not open. */
+  const failure = shallowRef<unknown>(null);
 
   async function load() {
     loading.value = true;
     error.value = null;
+    failure.value = null;
     try {
       record.value = await fetch(id());
-    } catch (failure) {
+    } catch (thrown) {
       record.value = null;
-      error.value = failure instanceof ApiError && failure.status === 404 ? notFound : messageOf(failure);
+      failure.value = thrown;
+      error.value = thrown instanceof ApiError && thrown.status === 404 ? notFound : messageOf(thrown);
     } finally {
       loading.value = false;
     }
   }
   watch(id, load, { immediate: true });
 
-  return { record, loading, error, load };
+  return { record, loading, error, failure, load };
 }

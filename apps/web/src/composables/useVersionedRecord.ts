@@ -1,5 +1,5 @@
 import { inject, provide, ref, shallowRef, watch, type InjectionKey, type Ref } from 'vue';
-import { ApiError, isStale, messageOf } from '../api/client.ts';
+import { isStale, messageOf } from '../api/client.ts';
 
 /** Sends one change made against the version on screen and answers the whole new record. */
 export type RecordChange<T> = (send: (version: number) => Promise<T>) => Promise<boolean>;
@@ -28,20 +28,21 @@ export function useVersionedRecord<T extends { version: number }>(id: () => numb
   const record = shallowRef<T | null>(null);
   const loading = ref(true);
   const error = ref<string | null>(null);
-  const notFound = ref(false);
+  /** What the last load threw, for the page to say why the record did not open. */
+  const failure = shallowRef<unknown>(null);
   const stale = ref<string | null>(null);
 
   async function load() {
     loading.value = true;
     error.value = null;
-    notFound.value = false;
+    failure.value = null;
     try {
       record.value = await get(id());
       stale.value = null;
-    } catch (failure) {
+    } catch (thrown) {
       record.value = null;
-      notFound.value = failure instanceof ApiError && failure.status === 404;
-      error.value = messageOf(failure);
+      failure.value = thrown;
+      error.value = messageOf(thrown);
     } finally {
       loading.value = false;
     }
@@ -70,5 +71,5 @@ export function useVersionedRecord<T extends { version: number }>(id: () => numb
   };
 
   provide(key, { stale, loading, load });
-  return { record, loading, error, notFound, stale, load, change, replace };
+  return { record, loading, error, failure, stale, load, change, replace };
 }

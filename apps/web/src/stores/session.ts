@@ -1,7 +1,8 @@
-import { createAbility, type AcceptInviteBody, type SessionSettingsBody, type SessionView, type SignInBody } from '@busbar/shared';
+import { createAbility, type AcceptInviteBody, type AcceptPasswordResetBody, type SessionSettingsBody, type SessionView, type SignInBody } from '@busbar/shared';
 import { defineStore } from 'pinia';
 import { computed, ref } from 'vue';
 import { ApiError, messageOf } from '../api/client.ts';
+import { acceptPasswordReset as acceptReset } from '../api/passwords.ts';
 import * as api from '../api/session.ts';
 
 /** The one ability of the app: menus, buttons and the route guard all ask it; sign-in and sign-out update it. */
@@ -53,6 +54,12 @@ export const useSessionStore = defineStore('session', () => {
     loadError.value = null;
   }
 
+  /** Sets a new password with an e-mailed reset link; the server signs the person in. */
+  async function acceptPasswordReset(body: AcceptPasswordResetBody) {
+    apply(await acceptReset(body));
+    loadError.value = null;
+  }
+
   /** Signs out on the server first: a person must not believe they left while the session lives on. */
   async function signOut() {
     try {
@@ -68,5 +75,5 @@ export const useSessionStore = defineStore('session', () => {
     apply(null);
   }
 
-  return { person, assignments, today, loadError, ensureLoaded, signIn, changeSettings, acceptInvite, signOut, forget };
+  return { person, assignments, today, loadError, ensureLoaded, signIn, changeSettings, acceptInvite, acceptPasswordReset, signOut, forget };
 });

@@ -1,11 +1,27 @@
 import { z } from 'zod';
-import { cursorQuery, pageQuery } from './common.ts';
+import { cursorQuery, idSchema, optionalText, pageQuery } from './common.ts';
 
-export const auditQuery = z.strictObject({
-  entity: z.string().trim().max(40).optional(),
-  ...pageQuery,
-  ...cursorQuery,
-});
+/** A time the audit log is filtered by: an ISO-8601 instant with its offset, or a day (its UTC midnight). */
+const auditTime = z.union([z.iso.date(), z.iso.datetime({ offset: true })], { error: 'Use a date like 2026-06-15 or a time like 2026-06-15T06:00:00Z' });
+
+/**
+ * The audit log's filters: who acted, the kind of record and one record of it (or a build by its
+ * number), and a time range (`from` inclusive, `to` exclusive); newest first.
+ */
+export const auditQuery = z
+  .strictObject({
+    actorId: idSchema.optional(),
+    entity: optionalText(40).optional(),
+    entityId: idSchema.optional(),
+    buildNumber: z.string().trim().toUpperCase().regex(/^[A-Z0-9]{1,12}-\d{1,9}$/, 'Use a build number like DEN-00012').optional(),
+    from: auditTime.optional(),
+    to: auditTime.optional(),
+    ...pageQuery,
+    ...cursorQuery,
+  })
+  .refine((q) => q.entityId === undefined || q.entity, { error: 'Choose the kind of record too', path: ['entity'] })
+  .refine((q) => q.buildNumber === undefined || q.entity === undefined || q.entity === 'build', { error: 'A build number finds builds only', path: ['entity'] });
+export type AuditQuery = z.infer<typeof auditQuery>;
 
 export interface AuditEntry {
   id: number;
@@ -15,6 +31,14 @@ export interface AuditEntry {
   action: string;
   entity: string;
   entityId: number | null;
+  /** What happened, in one sentence of words. */
+  summary: string;
+  /** The record by its number or name ("Build DEN-00012"). */
+  record: string;
+  /** Each changed value in words. */
+  details: string[];
+  /** The person's reason for a correction after delivery. */
+  reason: string | null;
   before: unknown;
   after: unknown;
 }

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { cursorQuery, idSchema, pageQuery, pagingOf } from './common.ts';
+import { cursorQuery, idSchema, multilineText, optionalText, pageQuery, pagingOf, text } from './common.ts';
 import type { Category } from './catalog.ts';
 
 export const BUILD_STATUSES = ['draft', 'quoted', 'booked', 'in_bay', 'quality_check', 'delivered', 'cancelled'] as const;
@@ -44,8 +44,12 @@ export function findTransition(from: BuildStatus, to: BuildStatus) {
 }
 
 const isoDate = z.iso.date('Use a date like 2026-03-31');
-const laborHours = z.number('Enter hours').min(0, 'Cannot be negative').max(1000, 'At most 1000 hours');
-const notes = z.string().trim().max(4000).default('');
+/** Labor hours of a build, as the build form and the import take them. */
+export const laborHoursSchema = z.number('Enter hours').min(0, 'Cannot be negative').max(1000, 'At most 1000 hours');
+const laborHours = laborHoursSchema;
+/** A build's notes, as the build form and the import take them (several lines). */
+export const buildNotesSchema = multilineText(4000);
+const notes = buildNotesSchema.default('');
 
 export const buildCreate = z.strictObject({
   locationId: z.int().positive({ error: 'Choose a location' }),
@@ -58,6 +62,9 @@ export const buildCreate = z.strictObject({
 });
 export type BuildCreate = z.infer<typeof buildCreate>;
 
+/** Why a delivered build is changed: required after delivery (the API refuses without it), kept in its history and audit. */
+const correctionReason = multilineText(1000).optional();
+
 /** An edit carries the version it was made against; a delivered build also needs a correction note. */
 export const buildUpdate = z.strictObject({
   version: z.int().min(1),
@@ -66,36 +73,35 @@ export const buildUpdate = z.strictObject({
   leadTechnicianId: z.int().positive().nullable().optional(),
   bookedFor: isoDate.nullable().optional(),
   laborHours: laborHours.optional(),
-  notes: z.string().trim().max(4000).optional(),
-  correctionNote: z.string().trim().min(1).max(1000).optional(),
+  notes: buildNotesSchema.optional(),
+  correctionNote: correctionReason,
 });
 export type BuildUpdate = z.infer<typeof buildUpdate>;
 
 export const buildStatusChange = z.strictObject({
   version: z.int().min(1),
   to: z.enum(BUILD_STATUSES, { error: 'Choose a status' }),
-  note: z.string().trim().max(1000).default(''),
+  note: multilineText(1000).default(''),
 });
 
 /** A serial number as recorded on a build line. */
-export const serialNumberSchema = z
-  .string()
-  .trim()
-  .min(1, 'Enter the serial number')
-  .max(60)
-  .regex(/^[A-Za-z0-9][A-Za-z0-9./_-]*$/, 'Letters, digits and . / _ - only');
+export const serialNumberSchema = text(60, 'Enter the serial number').regex(/^[A-Za-z0-9][A-Za-z0-9./_-]*$/, 'Letters, digits and . / _ - only');
 
 export const buildItemAdd = z.strictObject({
   version: z.int().min(1),
   catalogItemId: z.int().positive({ error: 'Choose a component' }),
   quantity: z.int('Whole units').min(1, 'At least 1').max(999),
   serialNumber: serialNumberSchema.nullable().default(null),
+  correctionNote: correctionReason,
 });
 export const buildItemUpdate = z.strictObject({
   version: z.int().min(1),
   quantity: z.int('Whole units').min(1, 'At least 1').max(999).optional(),
   serialNumber: serialNumberSchema.nullable().optional(),
+  correctionNote: correctionReason,
 });
+/** A line's removal: its version goes in the query, the reason (a delivered build's) in the body. */
+export const buildItemRemove = z.strictObject({ correctionNote: correctionReason });
 export const buildItemParams = z.strictObject({ id: idSchema, itemId: idSchema });
 export const versionQuery = z.strictObject({ version: z.coerce.number().int().min(1) });
 
@@ -112,7 +118,7 @@ export const buildQuery = z.strictObject({
   /** Delivered on a day at its location from and to (inclusive). */
   deliveredFrom: isoDate.optional(),
   deliveredTo: isoDate.optional(),
-  q: z.string().trim().max(100).optional(),
+  q: optionalText(100).optional(),
   /** Only builds with (true) or without (false) a power plan. */
   hasPlan: z.enum(['true', 'false']).optional(),
   sort: z.enum(BUILD_SORTS).default('updatedAt'),
@@ -147,6 +153,27 @@ export interface BuildEventView {
   toStatus: BuildStatus | null;
   note: string;
 }
+
+/** One change of a build in words, as its history shows it. */
+export interface BuildHistoryEntry {
+  key: string;
+  at: string;
+  actorName: string | null;
+  /** A move along the workflow, a change before delivery, or a correction after it (with its reason). */
+  kind: 'status' | 'change' | 'correction';
+  summary: string;
+  details: string[];
+  reason: string | null;
+}
+
+/** A build's history, newest first: at most `BUILD_HISTORY_CAP` entries, `more` when older ones exist. */
+export interface BuildHistory {
+  number: string;
+  entries: BuildHistoryEntry[];
+  more: boolean;
+}
+
+export const BUILD_HISTORY_CAP = 200;
 
 /** A build as read; money fields are absent for people who may not read them. */
 export interface BuildView {
@@ -184,7 +211,7 @@ export interface BuildDetail extends BuildView {
   events: BuildEventView[];
 }
 
-export const serialQuery = z.strictObject({ q: z.string().trim().min(3, 'Enter at least 3 characters').max(60), ...pagingOf(100) });
+export const serialQuery = z.strictObject({ q: optionalText(60).min(3, 'Enter at least 3 characters'), ...pagingOf(100) });
 
 /** One installed unit found by its serial number. */
 export interface SerialMatch {

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { emailSchema, pageQuery, pagingOf } from './common.ts';
+import { emailSchema, multilineText, optionalText, pageQuery, pagingOf, text } from './common.ts';
 
 /** The fixed list of catalog categories. */
 export const CATEGORIES = [
@@ -72,11 +72,14 @@ export const SPEC_SCHEMAS = {
 
 const money = z.int('Whole cents').min(0, 'Cannot be negative').max(100_000_000, 'Too large');
 
+/** A catalog item's SKU, as the catalog form and the import take it. */
+export const skuSchema = text(40, 'Enter a SKU').regex(/^[A-Za-z0-9][A-Za-z0-9._-]*$/, 'Letters, digits, dot, dash or underscore');
+
 const catalogItemFields = {
-  sku: z.string().trim().min(1, 'Enter a SKU').max(40).regex(/^[A-Za-z0-9][A-Za-z0-9._-]*$/, 'Letters, digits, dot, dash or underscore'),
+  sku: skuSchema,
   vendorId: z.int().positive({ error: 'Choose a vendor' }),
   category: z.enum(CATEGORIES, { error: 'Choose a category' }),
-  name: z.string().trim().min(1, 'Enter a name').max(120),
+  name: text(120, 'Enter a name'),
   specs: z.record(z.string(), z.unknown()).default({}),
   serialized: z.boolean(),
   unitCostCents: money,
@@ -109,7 +112,7 @@ export type CatalogQuery = z.infer<typeof catalogQuery>;
 export const catalogQuery = z.strictObject({
   category: z.enum(CATEGORIES).optional(),
   vendorId: z.coerce.number().int().positive().optional(),
-  q: z.string().trim().max(100).optional(),
+  q: optionalText(100).optional(),
   active: z.enum(['true', 'false', 'all']).default('true'),
   ...pageQuery,
 });
@@ -133,10 +136,10 @@ export interface CatalogItemView {
 }
 
 const vendorFields = {
-  name: z.string().trim().min(1, 'Enter a name').max(120),
+  name: text(120, 'Enter a name'),
   rmaEmail: emailSchema,
   defaultWarrantyMonths: z.int().min(0).max(240),
-  notes: z.string().trim().max(2000).default(''),
+  notes: multilineText(2000).default(''),
   active: z.boolean().default(true),
 };
 export const vendorBody = z.strictObject(vendorFields);

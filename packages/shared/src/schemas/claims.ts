@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { serialNumberSchema } from './builds.ts';
 import { CATEGORIES } from './catalog.ts';
-import { idSchema, pagingOf } from './common.ts';
+import { idSchema, multilineText, optionalText, pagingOf } from './common.ts';
 
 /** Where a warranty claim stands, in order (DESIGN.md). */
 export const CLAIM_STATUSES = ['logged', 'evidence_ready', 'sent_to_vendor', 'approved', 'denied', 'credited', 'closed'] as const;
@@ -83,7 +83,6 @@ export function findClaimTransition(from: ClaimStatus, to: ClaimStatus) {
 }
 
 const isoDate = z.iso.date('Use a date like 2026-03-31');
-const text = (max: number) => z.string().trim().max(max, `Keep it to ${max} characters`);
 const cents = z.int('Enter an amount in cents').min(0, 'Cannot be negative').max(100_000_000, 'Too large');
 
 export const claimCreate = z.strictObject({
@@ -91,8 +90,8 @@ export const claimCreate = z.strictObject({
   failedOn: isoDate,
   failureMode: z.enum(FAILURE_MODES, { error: 'Choose how it failed' }),
   coverage: z.enum(COVERAGES, { error: 'Choose who pays' }),
-  symptoms: text(4000).min(1, 'Describe what the customer or the shop saw'),
-  foundHow: text(1000).default(''),
+  symptoms: multilineText(4000, 'Describe what the customer or the shop saw'),
+  foundHow: multilineText(1000).default(''),
   laborHours: z.number('Enter hours').min(0, 'Cannot be negative').max(100, 'At most 100 hours').default(0),
   creditRequestedCents: cents.default(0),
 });
@@ -104,11 +103,11 @@ export const claimUpdate = z.strictObject({
   failedOn: isoDate.optional(),
   failureMode: z.enum(FAILURE_MODES, { error: 'Choose how it failed' }).optional(),
   coverage: z.enum(COVERAGES, { error: 'Choose who pays' }).optional(),
-  symptoms: text(4000).min(1, 'Describe what the customer or the shop saw').optional(),
-  foundHow: text(1000).optional(),
+  symptoms: multilineText(4000, 'Describe what the customer or the shop saw').optional(),
+  foundHow: multilineText(1000).optional(),
   laborHours: z.number('Enter hours').min(0, 'Cannot be negative').max(100, 'At most 100 hours').optional(),
   creditRequestedCents: cents.optional(),
-  vendorRmaNumber: text(80).optional(),
+  vendorRmaNumber: optionalText(80).optional(),
 });
 export type ClaimUpdate = z.infer<typeof claimUpdate>;
 
@@ -116,7 +115,7 @@ export type ClaimUpdate = z.infer<typeof claimUpdate>;
 export const claimStatusChange = z.strictObject({
   version: z.int().min(1),
   to: z.enum(CLAIM_STATUSES, { error: 'Choose a status' }),
-  note: text(2000).default(''),
+  note: multilineText(2000).default(''),
   creditApprovedCents: cents.optional(),
   creditReceivedCents: cents.optional(),
 });
@@ -223,7 +222,7 @@ export const claimSend = z.strictObject({ version: z.int().min(1) });
 
 export const evidenceParams = z.strictObject({ id: idSchema, evidenceId: idSchema });
 export const evidenceFileQuery = z.strictObject({ thumbnail: z.literal('true').optional() });
-export const evidenceDelete = z.strictObject({ reason: text(500).min(1, 'Say why the file is removed') });
+export const evidenceDelete = z.strictObject({ reason: multilineText(500, 'Say why the file is removed') });
 
 export interface ClaimDetail extends ClaimView {
   /** The location's approval limit: a lead approves a credit up to it, the regional manager above it. */

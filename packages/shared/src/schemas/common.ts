@@ -1,4 +1,6 @@
 import { z } from 'zod';
+// Loading messages.ts sets zod's error map, so every schema's failures read in plain words.
+export { plainMessage } from './messages.ts';
 
 /** A positive integer id taken from a path or query string. */
 const ID_WORDS = 'Use an id: a whole number above 0';
@@ -19,7 +21,34 @@ export const emailSchema = z
   .toLowerCase()
   .pipe(z.email({ error: 'Enter a valid e-mail address' }).max(254));
 
-export const personNameSchema = z.string().trim().min(1, 'Enter a name').max(120);
+/** A one-line field (a name, an address line, a SKU) holds no line break or tab. */
+const ONE_LINE = /^[^\r\n]*$/u;
+/**
+ * No C0 or C1 control character (NUL and the rest, and DEL) except a tab or line break, and no
+ * lone half of a surrogate pair: none can be typed, and some cut text short in other programs.
+ */
+const NO_CONTROL = /^[^\u0000-\u0008\u000b\u000c\u000e-\u001f\u007f-\u009f\u{d800}-\u{dfff}]*$/u;
+const NO_TAB = /^[^\t]*$/u;
+const CONTROL_WORDS = 'Take out the invisible control characters (such as NUL) pasted into this text';
+const atMost = (max: number) => `Use at most ${max} characters`;
+
+/** One line of text that may be left empty: trimmed, at most `max` characters, no control characters. */
+export const optionalText = (max: number) =>
+  z.string().trim().max(max, atMost(max)).regex(ONE_LINE, 'Keep this to one line').regex(NO_TAB, 'Take out the tab characters').regex(NO_CONTROL, CONTROL_WORDS);
+
+/** One line of text that must be filled in: as `optionalText`, and blank after trimming is refused with `blank`. */
+export const text = (max: number, blank = 'Fill this in') => optionalText(max).min(1, blank);
+
+/**
+ * Text of several lines (notes, symptoms, reasons): line breaks and tabs kept, other control
+ * characters refused; required (refused when blank) only when `blank` says what to ask for.
+ */
+export function multilineText(max: number, blank?: string) {
+  const schema = z.string().trim().max(max, atMost(max)).regex(NO_CONTROL, CONTROL_WORDS);
+  return blank ? schema.min(1, blank) : schema;
+}
+
+export const personNameSchema = text(120, 'Enter a name');
 
 /** Passwords: long rather than clever (NIST SP 800-63B asks for at least 8; we ask 12). */
 export const newPasswordSchema = z

@@ -1,18 +1,20 @@
 import { z } from 'zod';
-import { emailSchema, idSchema, pageQuery, personNameSchema } from './common.ts';
+import { emailSchema, idSchema, multilineText, optionalText, pageQuery, personNameSchema, text } from './common.ts';
+import { lowerMileageConfirmation, vehicleIdentityFields } from './vehicle-identity.ts';
 
-const optionalText = (max: number) => z.string().trim().max(max).default('');
+const blankable = (max: number) => optionalText(max).default('');
 
-const customerFields = {
+/** A customer's fields, as the customer form and the import take them. */
+export const customerFields = {
   name: personNameSchema,
   email: z.union([z.literal(''), emailSchema]).default(''),
-  phone: optionalText(40).pipe(z.string().regex(/^[0-9+()\-.\s]*$/, 'Digits, spaces and + ( ) - . only')),
-  addressLine1: optionalText(120),
-  addressLine2: optionalText(120),
-  city: optionalText(80),
-  region: optionalText(80),
-  postalCode: optionalText(20),
-  notes: optionalText(4000),
+  phone: optionalText(40).regex(/^[0-9+()\-.\s]*$/, 'Digits, spaces and + ( ) - . only').default(''),
+  addressLine1: blankable(120),
+  addressLine2: blankable(120),
+  city: blankable(80),
+  region: blankable(80),
+  postalCode: blankable(20),
+  notes: multilineText(4000).default(''),
 };
 
 export const customerBody = z.strictObject({ locationId: z.int().positive({ error: 'Choose a location' }), ...customerFields });
@@ -24,7 +26,7 @@ export type CustomerQuery = z.infer<typeof customerQuery>;
 export const customerQuery = z.strictObject({
   locationId: idSchema.optional(),
   regionId: idSchema.optional(),
-  q: z.string().trim().max(100).optional(),
+  q: optionalText(100).optional(),
   ...pageQuery,
 });
 
@@ -54,17 +56,19 @@ export const BODY_STYLE_LABELS: Record<(typeof BODY_STYLES)[number], string> = {
   other: 'Other',
 };
 
-const vehicleFields = {
+/** A vehicle's fields, as the vehicle form and the import take them. */
+export const vehicleFields = {
   year: z.int('Enter a year').min(1950, 'From 1950').max(2100, 'Until 2100'),
   bodyStyle: z.enum(BODY_STYLES, { error: 'Choose a body style' }),
-  make: z.string().trim().min(1, 'Enter the make').max(60),
-  model: z.string().trim().min(1, 'Enter the model').max(80),
-  notes: optionalText(2000),
+  make: text(60, 'Enter the make'),
+  model: text(80, 'Enter the model'),
+  notes: multilineText(2000).default(''),
+  ...vehicleIdentityFields,
 };
 
 export const vehicleBody = z.strictObject({ customerId: z.int().positive(), ...vehicleFields });
 export type VehicleBody = z.infer<typeof vehicleBody>;
-export const vehicleUpdate = z.strictObject({ ...vehicleFields, version: z.int().min(1) });
+export const vehicleUpdate = z.strictObject({ ...vehicleFields, ...lowerMileageConfirmation, version: z.int().min(1) });
 export type VehicleUpdate = z.infer<typeof vehicleUpdate>;
 
 export interface VehicleView {
@@ -76,5 +80,10 @@ export interface VehicleView {
   make: string;
   model: string;
   notes: string;
+  vin: string | null;
+  plate: string | null;
+  /** Miles on the odometer, and the local day it was read. */
+  mileage: number | null;
+  mileageReadOn: string | null;
   version: number;
 }

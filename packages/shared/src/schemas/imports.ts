@@ -1,6 +1,8 @@
 import { z } from 'zod';
-import { BODY_STYLES } from './customers.ts';
-import { emailSchema, personNameSchema } from './common.ts';
+import { buildNotesSchema, laborHoursSchema, serialNumberSchema } from './builds.ts';
+import { skuSchema } from './catalog.ts';
+import { emailSchema, optionalText } from './common.ts';
+import { customerFields, vehicleFields } from './customers.ts';
 
 /** The columns of a historical build import, in the order the template lists them. */
 export const IMPORT_COLUMNS = [
@@ -22,33 +24,61 @@ export const IMPORT_COLUMNS = [
 export const REQUIRED_IMPORT_COLUMNS = ['customer_name', 'vehicle_year', 'vehicle_body_style', 'vehicle_make', 'vehicle_model', 'items'] as const;
 export const MAX_IMPORT_ROWS = 5000;
 
+/** Said of a file that is not UTF-8 text, naming the line of the first character that cannot be read. */
+export const notUtf8 = (line: number) =>
+  `This file is not UTF-8 text (the first character that cannot be read is on line ${line}): save it as CSV UTF-8 from your spreadsheet and try again`;
+
+/**
+ * The line of the first character a UTF-8 reader could not read (U+FFFD, which browsers and the
+ * API's JSON reader put in place of bytes that are not UTF-8), or null when there is none.
+ */
+export function unreadableLine(text: string): number | null {
+  const at = text.indexOf('\uFFFD');
+  if (at < 0) return null;
+  let line = 1;
+  for (let i = text.indexOf('\n'); i >= 0 && i < at; i = text.indexOf('\n', i + 1)) line++;
+  return line;
+}
+
 export const importBuildsBody = z.strictObject({
   locationId: z.int().positive({ error: 'Choose a location' }),
-  csv: z.string().min(1, 'Paste or choose a CSV file').max(5_000_000, 'At most 5 MB'),
+  csv: z
+    .string()
+    .min(1, 'Paste or choose a CSV file')
+    .max(5_000_000, 'At most 5 MB')
+    .superRefine((csv, ctx) => {
+      const line = unreadableLine(csv);
+      if (line !== null) ctx.addIssue({ code: 'custom', message: notUtf8(line) });
+    }),
   dryRun: z.boolean(),
 });
 
 const blank = z.literal('');
 const isoDate = z.iso.date('Use a date like 2025-03-31');
-const text = (max: number) => z.string().trim().max(max, `At most ${max} characters`);
 
-/** One CSV row, all cells as text; blank cells take their defaults. */
+/** A number as typed in a cell: decimal digits only (no `0x7E3` or `2e3` for 2019), blank as missing. */
+const decimal = (cell: string) => (cell === '' ? undefined : /^-?\d+(\.\d+)?$/.test(cell) ? Number(cell) : Number.NaN);
+
+/**
+ * One CSV row, all cells as text; blank cells take their defaults. Each value is checked by the
+ * rule of the form that takes it (customer, vehicle and build forms), so the two cannot disagree.
+ */
 export const importRow = z
   .object({
-    customer_name: personNameSchema,
-    customer_email: z.union([blank, emailSchema]),
-    customer_phone: text(40),
-    vehicle_year: z.coerce.number('Enter a year').int('Enter a year').min(1950, 'From 1950').max(2100, 'Until 2100'),
-    vehicle_body_style: z.string().trim().toLowerCase().transform((s) => s.replaceAll(' ', '_')).pipe(z.enum(BODY_STYLES, { error: `One of ${BODY_STYLES.join(', ')}` })),
-    vehicle_make: text(60).min(1, 'Enter the make'),
-    vehicle_model: text(80).min(1, 'Enter the model'),
-    status: z.string().trim().toLowerCase().transform((s) => s || 'delivered').pipe(z.enum(['delivered', 'cancelled'], { error: 'delivered or cancelled' })),
+    customer_name: customerFields.name,
+    customer_email: customerFields.email,
+    customer_phone: customerFields.phone,
+    vehicle_year: z.string().trim().transform(decimal).pipe(vehicleFields.year),
+    vehicle_body_style: z.string().trim().toLowerCase().transform((s) => s.replaceAll(' ', '_')).pipe(vehicleFields.bodyStyle),
+    vehicle_make: vehicleFields.make,
+    vehicle_model: vehicleFields.model,
+    status: z.string().trim().toLowerCase().transform((s) => s || 'delivered').pipe(z.enum(['delivered', 'cancelled'], { error: 'Use delivered or cancelled' })),
     booked_for: z.union([blank, isoDate]),
     delivered_on: z.union([blank, isoDate]),
     lead_technician_email: z.union([blank, emailSchema]),
-    labor_hours: z.string().trim().transform((s) => (s === '' ? 0 : Number(s))).pipe(z.number('Enter hours').min(0, 'Cannot be negative').max(1000, 'At most 1000 hours')),
-    items: text(2000),
-    notes: text(4000),
+    labor_hours: z.string().trim().transform((s) => (s === '' ? 0 : decimal(s))).pipe(laborHoursSchema),
+    items: optionalText(2000),
+    notes: buildNotesSchema,
   })
   .superRefine((row, ctx) => {
     if (row.status === 'delivered' && !row.delivered_on) ctx.addIssue({ code: 'custom', path: ['delivered_on'], message: 'A delivered build needs its delivery date' });
@@ -69,11 +99,15 @@ export interface ImportItem {
 export function parseItemsCell(cell: string): ImportItem[] | string {
   const items: ImportItem[] = [];
   for (const entry of cell.split(';').map((e) => e.trim()).filter(Boolean)) {
-    const match = /^([A-Za-z0-9][A-Za-z0-9._-]*)(?:\s+x\s*(\d{1,3})|\s+#([A-Za-z0-9][A-Za-z0-9./_-]*))?$/i.exec(entry);
+    const match = /^(\S+)(?:\s+x\s*(\d{1,3})|\s+#(\S+))?$/i.exec(entry);
     if (!match) return `"${entry}" is not SKU, SKU x2 or SKU #SERIAL`;
+    const sku = skuSchema.safeParse(match[1]);
+    if (!sku.success) return `The SKU in "${entry}": ${sku.error.issues[0]!.message}`;
+    const serial = match[3] === undefined ? null : serialNumberSchema.safeParse(match[3]);
+    if (serial && !serial.success) return `The serial number in "${entry}": ${serial.error.issues[0]!.message}`;
     const quantity = match[2] ? Number(match[2]) : 1;
     if (quantity < 1) return `"${entry}" needs a quantity of at least 1`;
-    items.push({ sku: match[1]!, quantity, serialNumber: match[3] ?? null });
+    items.push({ sku: sku.data, quantity, serialNumber: serial ? serial.data : null });
   }
   return items;
 }
@@ -90,3 +124,4 @@ export interface ImportResult {
   created: number;
   rows: ImportRowResult[];
 }
+

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { idSchema, pageQuery } from './common.ts';
+import { idSchema, optionalText, pageQuery } from './common.ts';
 import { monthSchema } from './rollups.ts';
 
 /** The largest approval limit the owner may set: a million dollars. */
@@ -7,7 +7,7 @@ export const MAX_APPROVAL_LIMIT_CENTS = 100_000_000;
 
 /** One page of the locations a person may see, by code or name and by region. */
 export const locationListQuery = z.strictObject({
-  q: z.string().trim().max(80).optional(),
+  q: optionalText(80).optional(),
   regionId: idSchema.optional(),
   ...pageQuery,
 });

@@ -1,5 +1,6 @@
 import { AWG_SIZES, CIRCUIT_LINKS, INSULATION_RATINGS_C, MM2_SIZES, type PlanInput, type PlanResult } from '@busbar/calc';
 import { z } from 'zod';
+import { multilineText, text } from './common.ts';
 
 interface Bounds {
   min?: number;
@@ -19,7 +20,7 @@ function quantity(what: string, unit: string, { min, above, max, integer }: Boun
   return schema.max(max, `${what} must be at most ${withUnit(max)}`);
 }
 
-const text = (what: string) => z.string().trim().min(1, `Enter the ${what}`).max(80, `Keep the ${what} to 80 characters`);
+const label = (what: string) => text(80, `Enter the ${what}`);
 const hourOfDay = quantity('Hour', '', { min: 0, max: 23, integer: true });
 
 const conductorSize = z.union(
@@ -31,7 +32,7 @@ const conductorSize = z.union(
 );
 
 const load = z.strictObject({
-  name: text('name of the load'),
+  name: label('name of the load'),
   watts: quantity('Power', 'W', { above: 0, max: 10_000 }),
   hoursPerDay: quantity('Hours a day', 'h', { min: 0, max: 24 }),
   dutyCycle: quantity('Duty cycle', '', { above: 0, max: 1 }).optional(),
@@ -49,8 +50,8 @@ const fuseDistance = quantity('Distance of the fuse from the battery', 'mm', { m
 
 const circuit = z
   .strictObject({
-    from: text('start of the circuit'),
-    to: text('end of the circuit'),
+    from: label('start of the circuit'),
+    to: label('end of the circuit'),
     oneWayLengthM: quantity('Length', 'm', { above: 0, max: 100 }),
     currentA: quantity('Current', 'A', { above: 0, max: 1000 }).optional(),
     link: z.enum(CIRCUIT_LINKS, { error: 'Choose what the circuit feeds' }).optional(),
@@ -136,13 +137,13 @@ export const planInputSchema = z.strictObject({
   circuits: z.array(circuit, { error: 'List the circuits' }).max(40, 'At most 40 circuits'),
 });
 
-const planName = z.string().trim().min(1, 'Name the plan').max(120, 'Keep the name to 120 characters');
+const planName = text(120, 'Name the plan');
 
 /** Saves a build's plan: version 0 creates it; a delivered build also needs the reason. */
 export const planSaveBody = z.strictObject({
   version: z.int().min(0),
   input: planInputSchema,
-  correctionNote: z.string().trim().min(1, 'Enter the reason for the correction').max(1000).optional(),
+  correctionNote: multilineText(1000, 'Enter the reason for the correction').optional(),
 });
 export type PlanSaveBody = z.infer<typeof planSaveBody>;
 

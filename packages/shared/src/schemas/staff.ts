@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { ROLE_SCOPES, ROLES, scopeFor } from '../roles.ts';
-import { emailSchema, idSchema, newPasswordSchema, pageQuery, personNameSchema } from './common.ts';
+import { emailSchema, idSchema, newPasswordSchema, optionalText, pageQuery, personNameSchema } from './common.ts';
 import type { AssignmentView } from './session.ts';
 
 export const PERSON_STATUSES = ['active', 'invited', 'inactive'] as const;
@@ -33,7 +33,7 @@ export type InviteBody = z.infer<typeof inviteBody>;
 export const staffQuery = z.strictObject({
   locationId: idSchema.optional(),
   status: z.enum([...PERSON_STATUSES, 'all']).default('all'),
-  q: z.string().trim().max(100).optional(),
+  q: optionalText(100).optional(),
   ...pageQuery,
 });
 export type StaffQuery = z.infer<typeof staffQuery>;

@@ -30,3 +30,8 @@ export function buildStatusTag(status: BuildStatus): { label: string; tone: Tone
 export function isClosed(status: BuildStatus): boolean {
   return status === 'delivered' || status === 'cancelled';
 }
+
+/** A cancelled build was never installed, so its serial-numbered components need no serial. */
+export function asksForSerials(status: BuildStatus): boolean {
+  return status !== 'cancelled';
+}

@@ -11,6 +11,6 @@ export const useBuildState = () => useRecordState(stateKey);
 
 /** One build on screen, changed version by version (see useVersionedRecord). */
 export function useBuild(id: () => number) {
-  const { record: build, loading, error, notFound, stale, load, change } = useVersionedRecord(id, getBuild, stateKey);
-  return { build, loading, error, notFound, stale, load, change };
+  const { record: build, loading, error, failure, stale, load, change } = useVersionedRecord(id, getBuild, stateKey);
+  return { build, loading, error, failure, stale, load, change };
 }

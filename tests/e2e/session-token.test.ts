@@ -1,0 +1,32 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { choose, startE2e, type E2e } from '../support/e2e-harness.ts';
+
+let e2e: E2e;
+beforeAll(async () => {
+  e2e = await startE2e();
+});
+afterAll(async () => {
+  await e2e?.close();
+});
+
+describe('the forgery-protection token follows the session', () => {
+  it('sends a person whose session ended to sign in, not to a forgery refusal, when they next save', async () => {
+    const lead = await e2e.newPage();
+    await e2e.signIn(lead, 'lead@demo.busbar.test');
+    await lead.getByRole('navigation').getByText('Staff', { exact: true }).click();
+    await lead.getByRole('button', { name: 'Invite a person' }).click();
+    const dialog = lead.getByRole('dialog');
+    await dialog.getByLabel('Name').fill('Ines Valderrama');
+    await dialog.getByLabel('E-mail').fill('ines.valderrama@example.test');
+    await choose(lead, dialog, 'Role', 'Technician');
+    // The session ends on the server while the page is open (expired, or ended elsewhere).
+    await e2e.harness.db.deleteFrom('sessions').execute();
+    await dialog.getByRole('button', { name: 'Send invite' }).click();
+    await lead.getByRole('button', { name: 'Sign in' }).waitFor();
+    expect(await lead.getByText('did not come from a Busbar page').count()).toBe(0);
+    expect(new URL(lead.url()).pathname).toBe('/sign-in');
+    const invited = await e2e.harness.db.selectFrom('users').select('id').where('email', '=', 'ines.valderrama@example.test').execute();
+    expect(invited).toEqual([]);
+    await lead.context().close();
+  });
+});
