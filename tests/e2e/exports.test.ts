@@ -63,7 +63,7 @@ describe('exports and the close status', () => {
     expect(await page.getByRole('link', { name: 'May 2026 at BOI Boise: Next to close' }).count()).toBe(1);
 
     await page.setViewportSize({ width: 390, height: 844 });
-    await page.locator('.ant-card', { hasText: 'DEN Denver' }).getByRole('link', { name: 'May 2026 at DEN Denver: Final' }).waitFor();
+    await page.locator('.ant-card', { hasText: 'DEN Denver' }).getByRole('link', { name: 'May 2026 Final at DEN Denver' }).waitFor();
     await expect.poll(() => fitsWidth(page)).toBe(true);
     await page.goto('/exports');
     await page.locator('.ant-card', { hasText: 'Whole network' }).getByText('Done', { exact: true }).waitFor();

@@ -20,7 +20,8 @@ const shopsListed = async (page: Page) => new Set((await page.locator('.ant-tabl
 const scopeShown = (page: Page) => page.locator('.scope .ant-select-selection-item, .scope__one').first().textContent();
 
 async function look(page: Page, typed: string, chosen: string) {
-  await page.getByLabel('Looking at').click();
+  // The label names the picker's input, which the picker keeps out of sight: click the picker.
+  await page.locator('.scope .ant-select-selector').click();
   await page.keyboard.type(typed);
   await page.keyboard.press('Enter');
   await expect.poll(() => scopeShown(page)).toBe(chosen);
