@@ -241,12 +241,30 @@ describe('records a person cannot open', () => {
     }
   }, 120_000);
 
+  it('say so for a person who does not exist or works at another shop, with the way back and no "Try again"', async () => {
+    const elsewhere = await addPerson(e2e.harness.db, { role: 'technician', locationId: other });
+    const words = 'This person does not exist, or works at a shop you cannot see.';
+    for (const width of [1280, 390]) {
+      const page = await signedInPage('lead', width);
+      for (const path of ['/staff/987654', `/staff/${elsewhere.id}`]) {
+        await page.goto(path);
+        const alert = page.getByRole('alert').filter({ hasText: words });
+        await alert.waitFor();
+        expect(await page.getByRole('button', { name: 'Try again' }).count(), path).toBe(0);
+        expect(await alert.getByRole('link', { name: 'All staff' }).count(), path).toBe(1);
+        await expectNoSidewaysScroll(page);
+      }
+      await page.context().close();
+    }
+  }, 120_000);
+
   it('show the accountant that a customer’s notes are not shown to their role', async () => {
     const customer = await addCustomer(e2e.harness.db, den);
     const page = await signedInPage('accountant');
     await page.goto(`/customers/${customer.id}`);
     await page.getByRole('heading', { name: customer.name }).waitFor();
-    expect(await page.getByText('Not shown to your role').count()).toBe(1);
+    const notes = page.locator('.ant-descriptions-item', { has: page.getByText('Notes', { exact: true }) });
+    expect(await notes.getByText('Not shown to your role').count()).toBe(1);
     await page.context().close();
   }, 120_000);
 });

@@ -2,11 +2,14 @@ import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { demoIds } from '../support/api-harness.ts';
 import { addParts, createBuild } from '../support/build-fixtures.ts';
+import { addCustomer } from '../support/catalog-fixtures.ts';
 import { startE2e, type E2e } from '../support/e2e-harness.ts';
+import { addPerson, addRole, SIGN_INS } from '../support/staff-fixtures.ts';
 
 let e2e: E2e;
 let buildPath: string;
 let customerPath: string;
+let contact: { email: string; phone: string; addressLine1: string; city: string };
 
 beforeAll(async () => {
   e2e = await startE2e();
@@ -21,6 +24,7 @@ beforeAll(async () => {
   expect(res.status).toBe(201);
   buildPath = `/builds/${build.id}`;
   customerPath = `/customers/${build.customerId}`;
+  contact = await db.selectFrom('customers').select(['email', 'phone', 'addressLine1', 'city']).where('id', '=', build.customerId).executeTakeFirstOrThrow();
 });
 afterAll(async () => {
   await e2e?.close();
@@ -101,12 +105,43 @@ describe('money and contact details only where the person reads them', () => {
     await page.context().close();
   });
 
-  it('shows the accountant customers without e-mail, phone or address', async () => {
+  it('shows the accountant customers without e-mail, phone or address, saying they are not shown to the role', async () => {
     const page = await signedIn('accountant@demo.busbar.test');
     expect(await countOf(page, '/customers', 'column', 'E-mail', 'Customers')).toBe(0);
     await page.goto(customerPath);
     await page.getByText('Vehicles', { exact: true }).waitFor();
-    for (const label of ['E-mail', 'Phone', 'Address']) expect(await page.getByText(label, { exact: true }).count()).toBe(0);
+    for (const label of ['E-mail', 'Phone', 'Address']) {
+      const item = page.locator('.ant-descriptions-item', { has: page.getByText(label, { exact: true }) });
+      expect(await item.getByText('Not shown to your role').count(), label).toBe(1);
+    }
+    for (const value of [contact.email, contact.phone, contact.addressLine1, contact.city]) {
+      expect(await page.getByText(value).count(), value).toBe(0);
+    }
     await page.context().close();
+  });
+
+  it('marks contact details as not shown in the rows of shops where a second role does not read them', async () => {
+    const db = e2e.harness.db;
+    const ids = await demoIds(db);
+    const person = await addPerson(db, { role: 'accountant' });
+    await addRole(db, person.id, { role: 'location_lead', locationId: ids.location('AVL') });
+    const { passwordHash } = await db.selectFrom('users').select('passwordHash').where('email', '=', SIGN_INS.lead2).executeTakeFirstOrThrow();
+    await db.updateTable('users').set({ passwordHash }).where('id', '=', person.id).execute();
+    await addCustomer(db, ids.location('DEN'), { name: 'Tamsin Quarrel' });
+    const avl = await addCustomer(db, ids.location('AVL'), { name: 'Odile Quarrel' });
+    for (const width of [1280, 390]) {
+      const page = await e2e.newPage();
+      await page.setViewportSize({ width, height: 800 });
+      await e2e.signIn(page, person.email);
+      await page.goto('/customers?q=Quarrel');
+      const row = (name: string) => page.locator('tbody tr', { hasText: name });
+      // Visible at both widths: on a phone the table scrolls in its box rather than squeezing columns to nothing.
+      await row('Odile Quarrel').getByText(avl.email).waitFor();
+      expect(await row('Odile Quarrel').getByText('Not shown to your role').count()).toBe(0);
+      // E-mail, phone and city of the Denver customer, where only the accountant's role reaches.
+      expect(await row('Tamsin Quarrel').getByText('Not shown to your role').count()).toBe(3);
+      expect(await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth)).toBeLessThanOrEqual(1);
+      await page.context().close();
+    }
   });
 });
