@@ -34,6 +34,7 @@ import * as createMailSends from './032-create-mail-sends.ts';
 import * as indexAuditFilters from './033-index-audit-filters.ts';
 import * as addVehicleIdentity from './034-add-vehicle-identity.ts';
 import * as indexUnfinishedExports from './035-index-unfinished-exports.ts';
+import * as createUnitExposureRegions from './036-create-unit-exposure-regions.ts';
 
 /** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
 export const migrations: Record<string, Migration> = {
@@ -72,4 +73,5 @@ export const migrations: Record<string, Migration> = {
   '033-index-audit-filters': indexAuditFilters,
   '034-add-vehicle-identity': addVehicleIdentity,
   '035-index-unfinished-exports': indexUnfinishedExports,
+  '036-create-unit-exposure-regions': createUnitExposureRegions,
 };

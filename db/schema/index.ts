@@ -23,7 +23,16 @@ import type { RoleAssignmentsTable } from './role-assignments.ts';
 import type { RollupFiguresTable } from './rollups.ts';
 import type { SessionsTable } from './sessions.ts';
 import type { SignInAttemptsTable } from './sign-in-attempts.ts';
-import type { PlanMarginsTable, UnitExposureBandsNetworkTable, UnitExposureBandsTable, UnitExposureNetworkTable, UnitExposureTable, UnitFailuresTable } from './unit-exposure.ts';
+import type {
+  PlanMarginsTable,
+  UnitExposureBandsNetworkTable,
+  UnitExposureBandsRegionTable,
+  UnitExposureBandsTable,
+  UnitExposureNetworkTable,
+  UnitExposureRegionTable,
+  UnitExposureTable,
+  UnitFailuresTable,
+} from './unit-exposure.ts';
 import type { UsersTable, WeeklyDigestsTable } from './users.ts';
 
 export interface Database {
@@ -52,6 +61,8 @@ export interface Database {
   unitExposureBands: UnitExposureBandsTable;
   unitExposureBandsNetwork: UnitExposureBandsNetworkTable;
   unitExposureNetwork: UnitExposureNetworkTable;
+  unitExposureRegion: UnitExposureRegionTable;
+  unitExposureBandsRegion: UnitExposureBandsRegionTable;
   planMargins: PlanMarginsTable;
   unitFailures: UnitFailuresTable;
   rollupFigures: RollupFiguresTable;

@@ -24,6 +24,12 @@ export type UnitExposureNetworkTable = Omit<UnitExposureTable, 'locationId'>;
 /** The bands summed over every location. */
 export type UnitExposureBandsNetworkTable = Omit<UnitExposureBandsTable, 'locationId'>;
 
+/** The same counts summed over the locations of each region (migration 036). */
+export type UnitExposureRegionTable = UnitExposureNetworkTable & { regionId: number };
+
+/** The bands summed over the locations of each region. */
+export type UnitExposureBandsRegionTable = UnitExposureBandsNetworkTable & { regionId: number };
+
 /** How close a build's power plan runs to its limits, in bands: 1 the most margin, 4 past the limit. */
 export interface PlanMarginsTable {
   buildId: number;

@@ -35,6 +35,21 @@ describe('who reads reliability', () => {
     expect(detail.network.failures).toBeGreaterThan(detail.figures.failures);
   });
 
+  it("a regional manager's figures add up their shops' one by one (the region's sums agree with the shops' cells)", async () => {
+    const regional = await h.signedIn('regional@demo.busbar.test');
+    const list = (await regional.get('/api/reliability?groupBy=category').expect(200)).body as ReliabilityList;
+    const shops = await Promise.all(
+      WEST.map(async (code) => (await regional.get(`/api/reliability?groupBy=category&locationIds=${ids.location(code)}`).expect(200)).body as ReliabilityList),
+    );
+    const added = (key: string, field: 'units' | 'failures') => shops.reduce((sum, shop) => sum + (shop.rows.find((r) => r.key === key)?.[field] ?? 0), 0);
+    expect(list.rows.length).toBeGreaterThan(3);
+    for (const row of list.rows) expect([row.key, row.units, row.failures]).toEqual([row.key, added(row.key, 'units'), added(row.key, 'failures')]);
+    const detail = await detailOf('regional@demo.busbar.test');
+    const shopDetails = await Promise.all(WEST.map((code) => detailOf('regional@demo.busbar.test', `/api/reliability/category/house_battery?locationIds=${ids.location(code)}`)));
+    expect(detail.plannedUnits).toBeGreaterThan(0);
+    expect(detail.plannedUnits).toBe(shopDetails.reduce((sum, d) => sum + d.plannedUnits, 0));
+  });
+
   it("a lead sees their shop against the network, and no other shop's id, code or name anywhere", async () => {
     const detail = await detailOf('lead@demo.busbar.test');
     const named = detail.funnel.points.filter((p) => p.code !== null);

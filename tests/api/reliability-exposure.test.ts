@@ -4,7 +4,7 @@ import { DAYS_PER_MONTH, type ReliabilityDetail } from '@busbar/shared';
 import fc from 'fast-check';
 import { sql } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { REFILL_UNIT_EXPOSURE } from '../../db/migrations/019-create-unit-exposure.ts';
+import { REFILL_UNIT_EXPOSURE } from '../../db/migrations/036-create-unit-exposure-regions.ts';
 import { demoIds, startHarness, type Harness } from '../support/api-harness.ts';
 import { afterRefill, rolledBack } from '../support/kept-tables.ts';
 import { addCatalogItem, addVendor } from '../support/catalog-fixtures.ts';
@@ -113,17 +113,32 @@ async function keptTables(db: Db) {
   const bands = await sql<object>`select * from unit_exposure_bands where units != 0 or failures != 0 order by 1, 2, 3, 4, 5`.execute(db);
   const network = await sql<object>`select * from unit_exposure_network where units != 0 or failures != 0 order by 1, 2`.execute(db);
   const bandsNetwork = await sql<object>`select * from unit_exposure_bands_network where units != 0 or failures != 0 order by 1, 2, 3, 4`.execute(db);
+  const region = await sql<object>`select * from unit_exposure_region where units != 0 or failures != 0 order by 1, 2, 3`.execute(db);
+  const bandsRegion = await sql<object>`select * from unit_exposure_bands_region where units != 0 or failures != 0 order by 1, 2, 3, 4, 5`.execute(db);
   const failures = await sql<object>`select * from unit_failures order by claim_id`.execute(db);
-  return { cells: cells.rows, bands: bands.rows, network: network.rows, bandsNetwork: bandsNetwork.rows, failures: failures.rows };
+  return { cells: cells.rows, bands: bands.rows, network: network.rows, bandsNetwork: bandsNetwork.rows, region: region.rows, bandsRegion: bandsRegion.rows, failures: failures.rows };
+}
+
+const SUMS = sql.raw(
+  ['units', 'installed_day_sum', 'failures', 'failed_installed_day_sum', 'failed_day_sum', 'warranty_failures'].map((c) => `sum(x.${c}) as ${c}`).join(', '),
+);
+/** The cells and bands added up by each location's region as it stands, straight from the per-location tables. */
+async function cellsByRegion(db: Db) {
+  const region = await sql<object>`select x.catalog_item_id, l.region_id, x.installed_month, ${SUMS}
+    from unit_exposure x join locations l on l.id = x.location_id group by 1, 2, 3 having sum(x.units) != 0 or sum(x.failures) != 0 order by 1, 2, 3`.execute(db);
+  const bandsRegion = await sql<object>`select x.catalog_item_id, l.region_id, x.measure, x.band, x.installed_month, ${SUMS}
+    from unit_exposure_bands x join locations l on l.id = x.location_id group by 1, 2, 3, 4, 5 having sum(x.units) != 0 or sum(x.failures) != 0 order by 1, 2, 3, 4, 5`.execute(db);
+  return { region: region.rows, bandsRegion: bandsRegion.rows };
 }
 
 const refilled = (db: Db) => afterRefill(db, REFILL_UNIT_EXPOSURE, keptTables);
 
 describe('the kept tables follow every change', () => {
-  it('match a refill from scratch after any mix of deliveries, corrections, claims, plans and moves', async () => {
+  it('match a refill from scratch after any mix of deliveries, corrections, claims, plans, moves and shops changing region, the regions summing their shops', async () => {
     const units = await h.db.selectFrom('buildItems').select(['id', 'buildId']).execute();
     const builds = [...new Set(units.map((u) => u.buildId))];
     const claims = await h.db.selectFrom('warrantyClaims').select('id').execute();
+    const regions = (await h.db.selectFrom('regions').select('id').execute()).map((r) => r.id);
     const pick = <T>(list: T[]) => fc.integer({ min: 0, max: list.length - 1 }).map((i) => list[i]!);
     const day = fc.integer({ min: 0, max: 500 }).map((d) => new Date(Date.UTC(2025, 0, 1) + d * 86_400_000).toISOString());
     const change = fc.oneof(
@@ -132,13 +147,16 @@ describe('the kept tables follow every change', () => {
       fc.record({ kind: fc.constant('failedOn' as const), id: pick(claims.map((c) => c.id)), at: day }),
       fc.record({ kind: fc.constant('plan' as const), buildId: pick(builds), band: fc.integer({ min: 0, max: 4 }) }),
       fc.record({ kind: fc.constant('move' as const), buildId: pick(builds), code: fc.constantFrom('DEN', 'BOI', 'AUS') }),
+      fc.record({ kind: fc.constant('region' as const), code: fc.constantFrom('DEN', 'BOI', 'AUS'), regionId: pick(regions) }),
       fc.record({ kind: fc.constant('coverage' as const), id: pick(claims.map((c) => c.id)), workmanship: fc.boolean(), at: fc.option(day) }),
     );
     await fc.assert(
       fc.asyncProperty(fc.array(change, { minLength: 1, maxLength: 12 }), async (changes) => {
         await rolledBack(h.db, async () => {
           for (const c of changes) await apply(h.db, c);
-          expect(await keptTables(h.db)).toEqual(await refilled(h.db));
+          const kept = await keptTables(h.db);
+          expect(kept).toEqual(await refilled(h.db));
+          expect({ region: kept.region, bandsRegion: kept.bandsRegion }).toEqual(await cellsByRegion(h.db));
         });
       }),
       { seed: 10_019, numRuns: 60 },
@@ -152,6 +170,7 @@ type Change =
   | { kind: 'failedOn'; id: number; at: string }
   | { kind: 'plan'; buildId: number; band: number }
   | { kind: 'move'; buildId: number; code: string }
+  | { kind: 'region'; code: string; regionId: number }
   | { kind: 'coverage'; id: number; workmanship: boolean; at: string | null };
 
 async function apply(db: Db, c: Change) {
@@ -165,6 +184,7 @@ async function apply(db: Db, c: Change) {
     const coverage = c.workmanship ? ('workmanship' as const) : ('vendor_defect' as const);
     await db.updateTable('warrantyClaims').set(c.at ? { coverage, failedOn: c.at.slice(0, 10) } : { coverage }).where('id', '=', c.id).execute();
   }
+  else if (c.kind === 'region') await db.updateTable('locations').set({ regionId: c.regionId }).where('id', '=', ids.location(c.code)).execute();
   else if (c.kind === 'move') await db.updateTable('builds').set({ locationId: ids.location(c.code) }).where('id', '=', c.buildId).execute();
   else if (c.band === 0) await db.deleteFrom('planMargins').where('buildId', '=', c.buildId).execute();
   else {

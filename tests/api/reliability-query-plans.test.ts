@@ -49,10 +49,27 @@ describe('reliability query plans', () => {
 
   it("a shop's list reads its own cells through the location index, and the network's sums for the peers", async () => {
     const run = (db: typeof h.db) => reliabilityList(db, [ids.location('DEN')], { groupBy: 'category' }, TODAY.today, TODAY.todayDay);
-    expect(await tablesOf(run)).toEqual(['catalog_items', 'vendors', 'unit_exposure', 'unit_exposure_network']);
+    expect(await tablesOf(run)).toEqual(['catalog_items', 'vendors', 'locations', 'unit_exposure', 'unit_exposure_network']);
     const plans = planText(await plansOf(h.db, run));
     expect(plans).toMatch(/SEARCH x USING COVERING INDEX unit_exposure_location \(location_id=\? AND catalog_item_id=\?\)/);
     expect(plans).not.toMatch(/SCAN x\b/);
+  });
+
+  it("a whole region's list and category read the region's sums; part of a region reads its shops' cells", async () => {
+    const denver = await h.db.selectFrom('locations').select('regionId').where('id', '=', ids.location('DEN')).executeTakeFirstOrThrow();
+    const region = (await h.db.selectFrom('locations').select('id').where('regionId', '=', denver.regionId).execute()).map((l) => l.id);
+    expect(region.length).toBeGreaterThan(1);
+    const list = (scope: number[]) => (db: typeof h.db) => reliabilityList(db, scope, { groupBy: 'item' }, TODAY.today, TODAY.todayDay);
+    expect(await tablesOf(list(region))).toEqual(['catalog_items', 'vendors', 'locations', 'unit_exposure_region', 'unit_exposure_network']);
+    const plans = planText(await plansOf(h.db, list(region)));
+    expect(plans).toMatch(/SEARCH x USING PRIMARY KEY \(catalog_item_id=\? AND region_id=\?\)/);
+    expect(plans).not.toMatch(/SCAN x\b/);
+    expect(await tablesOf(list(region.slice(1)))).toEqual(['catalog_items', 'vendors', 'locations', 'unit_exposure', 'unit_exposure_network']);
+    const category = (db: typeof h.db) =>
+      reliabilityDetail(db, { groupBy: 'category', key: 'house_battery' }, region, new Map(), {}, TODAY.today, TODAY.todayDay);
+    const read = await tablesOf(category);
+    expect(read).toEqual(expect.arrayContaining(['unit_exposure_region', 'unit_exposure_bands_region']));
+    expect(read).not.toContain('unit_exposure_bands');
   });
 
   it("one item's view reads its cells and failures by item", async () => {

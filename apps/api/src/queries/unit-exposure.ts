@@ -1,6 +1,6 @@
 import type { Database, Db } from '@busbar/db';
 import type { Category, ReliabilityGroup } from '@busbar/shared';
-import { sql, type ExpressionBuilder, type RawBuilder } from 'kysely';
+import { sql, type ExpressionBuilder, type RawBuilder, type SqlBool } from 'kysely';
 import type { LocationScope } from '../access/locations.ts';
 
 /** Which units: an item, category or vendor (or all), at these locations, installed in these months (YYYY-MM, inclusive). */
@@ -50,14 +50,18 @@ type Cells = ExpressionBuilder<Database & { x: Database['unitExposure']; ci: Ite
 /**
  * The cells' sums by `key`, for the units `filter` picks, as of `today` (YYYY-MM-DD): the margin
  * bands from `unit_exposure_bands`, the whole network's by item or month (or bands) from
- * `unit_exposure_network` (`…_bands_network`), a few rows per item; the rest from `unit_exposure`.
+ * `unit_exposure_network` (`…_bands_network`), a few rows per item, and whole regions' from
+ * `unit_exposure_region` (`…_bands_region`); the rest from `unit_exposure`.
  */
 export async function unitSums(db: Db, filter: UnitFilter, key: CellKey, today: string): Promise<(UnitSums & { key: string | number })[]> {
   const keyColumn = sql.raw<string | number>(KEY_COLUMNS[key]);
   const completed = sql`x.installed_month < ci.completed_before`;
   const total = (column: RawBuilder<unknown>) => sql<number>`coalesce(sum(${column}), 0)`;
-  const network = filter.scope === 'all' && NETWORK_KEYS.includes(key);
-  const table = key === 'bands' ? (filter.scope === 'all' ? 'unitExposureBandsNetwork' : 'unitExposureBands') : network ? 'unitExposureNetwork' : 'unitExposure';
+  const summed = NETWORK_KEYS.includes(key) || key === 'bands';
+  const regions = filter.scope !== 'all' && summed ? await wholeRegions(db, filter.scope) : null;
+  const table = !summed
+    ? 'unitExposure'
+    : `unitExposure${key === 'bands' ? 'Bands' : ''}${filter.scope === 'all' ? 'Network' : regions ? 'Region' : ''}`;
   // The network's sums have their cells' columns less the location, which they are never asked by.
   let query = db
     // Worked out once per item, not once per cell: a month's date arithmetic on every cell was most of a category's time.
@@ -81,17 +85,30 @@ export async function unitSums(db: Db, filter: UnitFilter, key: CellKey, today: 
       total(sql`case when ${completed} then x.units end`).as('completedUnits'),
       total(sql`case when ${completed} then x.warranty_failures end`).as('completedWarrantyFailures'),
     ])
-    .where((eb) => eb.and(conditions(eb, filter)));
+    .where((eb) => eb.and(conditions(eb, filter, regions)));
   if (key !== 'none') query = query.groupBy(keyColumn);
   return (await query.execute()) as (UnitSums & { key: string | number })[];
 }
 
-function conditions(eb: Cells, { group, scope, from, to }: UnitFilter) {
+/**
+ * The regions the locations make up when they are every location of each region they touch (a
+ * regional manager's scope), so that the regions' sums stand in for their cells; otherwise null.
+ */
+async function wholeRegions(db: Db, scope: number[]): Promise<number[] | null> {
+  const locations = await db.selectFrom('locations').select(['id', 'regionId']).execute();
+  const chosen = new Set(scope);
+  const touched = new Set(locations.filter((l) => chosen.has(l.id)).map((l) => l.regionId));
+  if (touched.size === 0 || locations.some((l) => touched.has(l.regionId) && !chosen.has(l.id))) return null;
+  return [...touched];
+}
+
+function conditions(eb: Cells, { group, scope, from, to }: UnitFilter, regions: number[] | null) {
   const list = [];
   if (group?.groupBy === 'item') list.push(eb('x.catalogItemId', '=', Number(group.key)));
   if (group?.groupBy === 'vendor') list.push(eb('ci.vendorId', '=', Number(group.key)));
   if (group?.groupBy === 'category') list.push(eb('ci.category', '=', group.key as Category));
-  if (scope !== 'all') list.push(eb('x.locationId', 'in', scope.length > 0 ? scope : [0]));
+  if (regions) list.push(sql<SqlBool>`x.region_id in (${sql.join(regions)})`);
+  else if (scope !== 'all') list.push(eb('x.locationId', 'in', scope.length > 0 ? scope : [0]));
   if (from) list.push(eb('x.installedMonth', '>=', from));
   if (to) list.push(eb('x.installedMonth', '<=', to));
   return list;
