@@ -72,7 +72,7 @@ describe('claims off the straight path', () => {
     await lead.context().close();
   });
 
-  it('keeps a file deleted with its reason, shows a failed send and sends it again, then takes the vendor\'s RMA number', async () => {
+  it('keeps a file deleted with its reason, shows a failed send and sends it again, then takes the vendor\'s RMA number; a cancelled dialog opens again', async () => {
     const db = e2e.harness.db;
     const unit = await addDeliveredUnit(db, (await demoIds(db)).location('DEN'));
     const api = await e2e.harness.signedIn('warranty@demo.busbar.test');
@@ -88,8 +88,13 @@ describe('claims off the straight path', () => {
     await page.getByText('notes.png was not added: Upload a JPEG, PNG, WebP or HEIC photo, or a PDF').waitFor();
     expect(await page.getByRole('link', { name: 'notes.png' }).count()).toBe(0);
 
+    // A dialog closed with Cancel opens again from the same button.
     await page.getByRole('button', { name: 'Delete blurred.png' }).click();
     const dialog = page.getByRole('dialog');
+    await dialog.getByRole('button', { name: 'Cancel' }).click();
+    await dialog.waitFor({ state: 'hidden' });
+    await page.getByRole('button', { name: 'Delete blurred.png' }).click();
+    await dialog.waitFor();
     await dialog.getByRole('button', { name: 'Delete file' }).click();
     await dialog.getByText('Say why the file is removed').waitFor();
     await dialog.getByLabel('Why is it removed?').fill('Too blurred to read');
@@ -123,6 +128,10 @@ describe('claims off the straight path', () => {
     // Until the vendor answers, the clerk fills in what they send back.
     await page.getByRole('button', { name: 'Edit claim' }).click();
     const edit = page.getByRole('dialog');
+    await edit.getByRole('button', { name: 'Cancel' }).click();
+    await edit.waitFor({ state: 'hidden' });
+    await page.getByRole('button', { name: 'Edit claim' }).click();
+    await edit.waitFor();
     await edit.getByLabel("Vendor's RMA number").fill('RMA-55120');
     await edit.getByRole('button', { name: 'Save' }).click();
     await page.locator('.ant-descriptions').getByText('RMA-55120').waitFor();

@@ -50,6 +50,14 @@ describe("a location's claim approval limit", () => {
     await dialog.getByRole('button', { name: 'Save limit' }).click();
     await denRow.getByText('$200.00').waitFor();
     expect(await limitOf('DEN')).toBe(20_000);
+    // Closed by saving, then by Cancel, the dialog opens again from the same button.
+    for (let i = 0; i < 2; i++) {
+      await denRow.getByRole('button', { name: 'Change limit: the approval limit of DEN' }).click();
+      await dialog.waitFor();
+      await expect.poll(() => amount.inputValue()).toBe('200.00');
+      await dialog.getByRole('button', { name: 'Cancel' }).click();
+      await dialog.waitFor({ state: 'hidden' });
+    }
     await owner.setViewportSize({ width: 390, height: 800 });
     await owner.getByRole('columnheader', { name: 'Approval limit' }).waitFor();
     await expect.poll(() => fitsWidth(owner)).toBe(true);
