@@ -1,7 +1,9 @@
 import { defineConfig } from 'vitest/config';
 
 // Four projects: pure units, API routes against a fresh SQLite file, checks against published
-// sources, and end-to-end runs of the built app in Chromium.
+// sources, and end-to-end runs of the built app in Chromium. Every file has its own app, database
+// and browser, so the end-to-end files share the workers with the rest instead of running one by
+// one after them (which left a core idle for half the run).
 export default defineConfig({
   test: {
     projects: [
@@ -14,7 +16,6 @@ export default defineConfig({
           include: ['tests/e2e/**/*.test.ts'],
           testTimeout: 60000,
           hookTimeout: 60000,
-          fileParallelism: false,
         },
       },
     ],

@@ -62,7 +62,7 @@ export async function unitSums(db: Db, filter: UnitFilter, key: CellKey, today: 
   const table = !summed
     ? 'unitExposure'
     : `unitExposure${key === 'bands' ? 'Bands' : ''}${filter.scope === 'all' ? 'Network' : regions ? 'Region' : ''}`;
-  // The network's sums have their cells' columns less the location, which they are never asked by.
+  // The network's and the regions' sums have their cells' columns less the location, which they are never asked by.
   let query = db
     // Worked out once per item, not once per cell: a month's date arithmetic on every cell was most of a category's time.
     .with(
