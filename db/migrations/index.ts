@@ -35,6 +35,7 @@ import * as indexAuditFilters from './033-index-audit-filters.ts';
 import * as addVehicleIdentity from './034-add-vehicle-identity.ts';
 import * as indexUnfinishedExports from './035-index-unfinished-exports.ts';
 import * as createUnitExposureRegions from './036-create-unit-exposure-regions.ts';
+import * as indexClaimsItemLocation from './037-index-claims-item-location.ts';
 
 /** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
 export const migrations: Record<string, Migration> = {
@@ -74,4 +75,5 @@ export const migrations: Record<string, Migration> = {
   '034-add-vehicle-identity': addVehicleIdentity,
   '035-index-unfinished-exports': indexUnfinishedExports,
   '036-create-unit-exposure-regions': createUnitExposureRegions,
+  '037-index-claims-item-location': indexClaimsItemLocation,
 };

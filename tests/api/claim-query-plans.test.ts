@@ -84,12 +84,22 @@ describe('claims list query plans', () => {
     expect(tableScans(plans)).toEqual([]);
   });
 
+  it.each(Object.entries(BY_ITEM))("counts a region's claims of some items from an index alone, never reading each claim for its shop: %s", async (_name, query) => {
+    const ids = await demoIds(h.db);
+    const region = ids.locations.filter((l) => l.regionId === ids.locations.find((m) => m.code === 'DEN')!.regionId).map((l) => l.id);
+    expect(region.length).toBeGreaterThan(1);
+    const { plans } = await listPlans(region, query);
+    const count = plans.find((lines) => lines.some((line) => line.includes('CO-ROUTINE')))!;
+    expect(count.filter((line) => /^SEARCH w\b/.test(line))).toEqual([expect.stringMatching(/^SEARCH w USING COVERING INDEX warranty_claims_item_location \(catalog_item_id=\? AND location_id=\?\)/)]);
+    expect(tableScans(plans)).toEqual([]);
+  });
+
   // A shop's claims are few: whichever index the statistics choose (the shop's, or a status's in order), nothing is read whole.
   it.each([...Object.entries(IN_ORDER), ...Object.entries(BY_ITEM), ...Object.entries(BY_DAYS).map(([name, [query]]) => [name, query] as const)])(
     "reads a lead's page by searching an index: %s",
     async (_name, query) => {
       const { plans, page } = await listPlans([den], query);
-      expect(page[0]).toMatch(/^SEARCH w USING (COVERING )?INDEX \w+ \((location_id|status)=\?/);
+      expect(page[0]).toMatch(/^SEARCH w USING (COVERING )?INDEX \w+ \((location_id|status|catalog_item_id=\? AND location_id)=\?/);
       expect(tableScans(plans)).toEqual([]);
     },
   );
