@@ -1,5 +1,5 @@
 import type SQLite from 'better-sqlite3';
-import { REFILL_UNIT_EXPOSURE } from '../migrations/036-create-unit-exposure-regions.ts';
+import { REFILL_UNIT_EXPOSURE } from '../migrations/038-create-unit-exposure-lifetime.ts';
 import { REFILL_ROLLUPS } from '../migrations/021-create-rollups.ts';
 
 /**

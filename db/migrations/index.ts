@@ -36,6 +36,7 @@ import * as addVehicleIdentity from './034-add-vehicle-identity.ts';
 import * as indexUnfinishedExports from './035-index-unfinished-exports.ts';
 import * as createUnitExposureRegions from './036-create-unit-exposure-regions.ts';
 import * as indexClaimsItemLocation from './037-index-claims-item-location.ts';
+import * as createUnitExposureLifetime from './038-create-unit-exposure-lifetime.ts';
 
 /** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
 export const migrations: Record<string, Migration> = {
@@ -76,4 +77,5 @@ export const migrations: Record<string, Migration> = {
   '035-index-unfinished-exports': indexUnfinishedExports,
   '036-create-unit-exposure-regions': createUnitExposureRegions,
   '037-index-claims-item-location': indexClaimsItemLocation,
+  '038-create-unit-exposure-lifetime': createUnitExposureLifetime,
 };

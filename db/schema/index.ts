@@ -28,6 +28,7 @@ import type {
   UnitExposureBandsNetworkTable,
   UnitExposureBandsRegionTable,
   UnitExposureBandsTable,
+  UnitExposureLifetimeTable,
   UnitExposureNetworkTable,
   UnitExposureRegionTable,
   UnitExposureTable,
@@ -63,6 +64,7 @@ export interface Database {
   unitExposureNetwork: UnitExposureNetworkTable;
   unitExposureRegion: UnitExposureRegionTable;
   unitExposureBandsRegion: UnitExposureBandsRegionTable;
+  unitExposureLifetime: UnitExposureLifetimeTable;
   planMargins: PlanMarginsTable;
   unitFailures: UnitFailuresTable;
   rollupFigures: RollupFiguresTable;

@@ -27,6 +27,9 @@ export type UnitExposureBandsNetworkTable = Omit<UnitExposureBandsTable, 'locati
 /** The same counts summed over the locations of each region (migration 036). */
 export type UnitExposureRegionTable = UnitExposureNetworkTable & { regionId: number };
 
+/** The same counts per catalog item and location over every install month (migration 038). */
+export type UnitExposureLifetimeTable = Omit<UnitExposureTable, 'installedMonth'>;
+
 /** The bands summed over the locations of each region. */
 export type UnitExposureBandsRegionTable = UnitExposureBandsNetworkTable & { regionId: number };
 

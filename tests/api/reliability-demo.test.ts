@@ -46,6 +46,41 @@ describe('the demo stories, found by the reliability screens', () => {
     for (const other of detail.funnel.points.filter((p) => p !== austin && p.claims >= 5)) expect(share(austin)).toBeGreaterThan(share(other));
   });
 
+  it("counts a category's claims by shop, workmanship, mode and coverage as the claims themselves do, for the owner and for a region", async () => {
+    const claimsOf = (locationIds?: number[]) => {
+      let query = h.db
+        .selectFrom('warrantyClaims as w')
+        .innerJoin('builds as b', 'b.id', 'w.buildId')
+        .innerJoin('catalogItems as ci', 'ci.id', 'w.catalogItemId')
+        .select(['w.locationId', 'w.coverage', 'w.failureMode'])
+        .where('ci.category', '=', 'house_battery')
+        .where('b.status', '=', 'delivered');
+      if (locationIds) query = query.where('w.locationId', 'in', locationIds);
+      return query.execute();
+    };
+    const count = <T>(rows: T[], keyOf: (row: T) => string | number) => {
+      const counts = new Map<string | number, number>();
+      for (const row of rows) counts.set(keyOf(row), (counts.get(keyOf(row)) ?? 0) + 1);
+      return counts;
+    };
+    const all = await claimsOf();
+    expect(all.length).toBeGreaterThan(20);
+    const owner = await h.signedIn('owner@demo.busbar.test');
+    const network = (await owner.get('/api/reliability/category/house_battery').expect(200)).body as ReliabilityDetail;
+    const [byShop, workmanship] = [count(all, (c) => c.locationId), count(all.filter((c) => c.coverage === 'workmanship'), (c) => c.locationId)];
+    for (const point of network.funnel.points) {
+      expect([point.claims, point.workmanshipClaims]).toEqual([byShop.get(point.locationId!) ?? 0, workmanship.get(point.locationId!) ?? 0]);
+    }
+    expect(network.funnel.points.reduce((sum, p) => sum + p.claims, 0)).toBe(all.length);
+
+    const manager = await h.signedIn('regional2@demo.busbar.test');
+    const region = (await manager.get('/api/reliability/category/house_battery').expect(200)).body as ReliabilityDetail;
+    const mine = await claimsOf(region.funnel.points.filter((p) => p.locationId !== null).map((p) => p.locationId!));
+    expect(mine.length).toBeLessThan(all.length);
+    expect(new Map(region.failureModes.map((m) => [m.mode, m.claims]))).toEqual(count(mine, (c) => c.failureMode));
+    expect(new Map(region.coverages.map((c) => [c.coverage, c.claims]))).toEqual(count(mine, (c) => c.coverage));
+  });
+
   it("reads the chargers' shape as early failures (the demo draws them with shape 0.6)", async () => {
     const owner = await h.signedIn('owner@demo.busbar.test');
     const chargers = (await owner.get('/api/reliability/category/dc_dc_charger').expect(200)).body as ReliabilityDetail;

@@ -4,7 +4,7 @@ import { DAYS_PER_MONTH, type ReliabilityDetail } from '@busbar/shared';
 import fc from 'fast-check';
 import { sql } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { REFILL_UNIT_EXPOSURE } from '../../db/migrations/036-create-unit-exposure-regions.ts';
+import { REFILL_UNIT_EXPOSURE } from '../../db/migrations/038-create-unit-exposure-lifetime.ts';
 import { demoIds, startHarness, type Harness } from '../support/api-harness.ts';
 import { afterRefill, rolledBack } from '../support/kept-tables.ts';
 import { addCatalogItem, addVendor } from '../support/catalog-fixtures.ts';
@@ -115,8 +115,9 @@ async function keptTables(db: Db) {
   const bandsNetwork = await sql<object>`select * from unit_exposure_bands_network where units != 0 or failures != 0 order by 1, 2, 3, 4`.execute(db);
   const region = await sql<object>`select * from unit_exposure_region where units != 0 or failures != 0 order by 1, 2, 3`.execute(db);
   const bandsRegion = await sql<object>`select * from unit_exposure_bands_region where units != 0 or failures != 0 order by 1, 2, 3, 4, 5`.execute(db);
+  const lifetime = await sql<object>`select * from unit_exposure_lifetime where units != 0 or failures != 0 order by 1, 2`.execute(db);
   const failures = await sql<object>`select * from unit_failures order by claim_id`.execute(db);
-  return { cells: cells.rows, bands: bands.rows, network: network.rows, bandsNetwork: bandsNetwork.rows, region: region.rows, bandsRegion: bandsRegion.rows, failures: failures.rows };
+  return { cells: cells.rows, bands: bands.rows, network: network.rows, bandsNetwork: bandsNetwork.rows, region: region.rows, bandsRegion: bandsRegion.rows, lifetime: lifetime.rows, failures: failures.rows };
 }
 
 const SUMS = sql.raw(
@@ -131,10 +132,17 @@ async function cellsByRegion(db: Db) {
   return { region: region.rows, bandsRegion: bandsRegion.rows };
 }
 
+/** The cells added up by item and location over every month, straight from the per-location table. */
+async function cellsByLocation(db: Db) {
+  const { rows } = await sql<object>`select x.catalog_item_id, x.location_id, ${SUMS}
+    from unit_exposure x group by 1, 2 having sum(x.units) != 0 or sum(x.failures) != 0 order by 1, 2`.execute(db);
+  return rows;
+}
+
 const refilled = (db: Db) => afterRefill(db, REFILL_UNIT_EXPOSURE, keptTables);
 
 describe('the kept tables follow every change', () => {
-  it('match a refill from scratch after any mix of deliveries, corrections, claims, plans, moves and shops changing region, the regions summing their shops', async () => {
+  it('match a refill from scratch after any mix of deliveries, corrections, claims, plans, moves and shops changing region, the regions and lifetimes summing their cells', async () => {
     const units = await h.db.selectFrom('buildItems').select(['id', 'buildId']).execute();
     const builds = [...new Set(units.map((u) => u.buildId))];
     const claims = await h.db.selectFrom('warrantyClaims').select('id').execute();
@@ -157,6 +165,7 @@ describe('the kept tables follow every change', () => {
           const kept = await keptTables(h.db);
           expect(kept).toEqual(await refilled(h.db));
           expect({ region: kept.region, bandsRegion: kept.bandsRegion }).toEqual(await cellsByRegion(h.db));
+          expect(kept.lifetime).toEqual(await cellsByLocation(h.db));
         });
       }),
       { seed: 10_019, numRuns: 60 },

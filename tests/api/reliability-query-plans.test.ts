@@ -10,7 +10,8 @@ import { plansOf } from '../support/query-plans.ts';
 /**
  * SQLite's plans for the reliability screens on the demo's history with statistics gathered: the
  * whole network reads the per-item sums, a shop or a region its own cells through their index,
- * one item its cells and failures by item; nothing walks builds, build lines or claims.
+ * one item its sums and failures by item, a funnel each shop's lifetime sums; nothing walks builds,
+ * build lines or claims.
  */
 let h: Harness;
 let ids: Awaited<ReturnType<typeof demoIds>>;
@@ -72,16 +73,26 @@ describe('reliability query plans', () => {
     expect(read).not.toContain('unit_exposure_bands');
   });
 
-  it("one item's view reads its cells and failures by item", async () => {
+  it("one item's view reads its sums and failures by item, never a shop's cells", async () => {
     const item = await h.db.selectFrom('catalogItems').select('id').where('sku', '=', 'TDW-DC40').executeTakeFirstOrThrow();
     const run = (db: typeof h.db) => reliabilityDetail(db, { groupBy: 'item', key: item.id }, 'all', new Map(), {}, TODAY.today, TODAY.todayDay);
     const plans = planText(await plansOf(h.db, run));
-    expect(plans).toMatch(/SEARCH x USING PRIMARY KEY \(catalog_item_id=\?\)/);
-    // The shops, the months (the network's sums) and the margin bands of planned builds, each by item.
-    expect(await tablesOf(run)).toContain('unit_exposure_bands_network');
-    expect(plans.match(/SEARCH x USING PRIMARY KEY \(catalog_item_id=\?\)/g)).toHaveLength(3);
+    // The figures and months (the network's sums), the funnel (each shop's lifetime sums) and the margin bands of planned builds.
+    const tables = await tablesOf(run);
+    expect(tables).toEqual(expect.arrayContaining(['unit_exposure_network', 'unit_exposure_lifetime', 'unit_exposure_bands_network']));
+    expect(tables).not.toContain('unit_exposure');
+    expect(plans.match(/SEARCH x USING PRIMARY KEY \(catalog_item_id=\?\)/g)).toHaveLength(5);
     expect(plans).toMatch(/SEARCH unit_failures USING COVERING INDEX unit_failures_item \(catalog_item_id=\?\)/);
     expect(plans).not.toMatch(/SCAN (x|unit_exposure|unit_failures)\b/);
     expect(plans).not.toMatch(/builds|build_items|warranty_claims/);
+  });
+
+  it("a category's funnel reads each shop's lifetime sums, and its claims' modes and coverages are counted in an index's order, not sorted", async () => {
+    const run = (db: typeof h.db) => reliabilityDetail(db, { groupBy: 'category', key: 'house_battery' }, 'all', new Map(), {}, TODAY.today, TODAY.todayDay);
+    const tables = await tablesOf(run);
+    expect(tables).toContain('unit_exposure_lifetime');
+    expect(tables).not.toContain('unit_exposure');
+    const shares = (await plansOf(h.db, run)).filter((plan) => plan.some((line) => line.includes('unit_failures_kinds (catalog_item_id=?)')));
+    expect(shares).toEqual([['SEARCH unit_failures USING COVERING INDEX unit_failures_kinds (catalog_item_id=?)']]);
   });
 });

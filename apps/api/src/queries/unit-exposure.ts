@@ -90,6 +90,27 @@ export async function unitSums(db: Db, filter: UnitFilter, key: CellKey, today: 
   return (await query.execute()) as (UnitSums & { key: string | number })[];
 }
 
+/** Time in service and failures of units, without the counts of completed warranties. */
+export type ServiceSums = Pick<UnitSums, 'units' | 'installedDaySum' | 'failures' | 'failedDaySum'>;
+
+/**
+ * Each location's units that `filter` picks, by location id: from `unit_exposure_lifetime` (one row
+ * per item and location) when every install month is asked, else summed from the cells.
+ */
+export async function serviceByLocation(db: Db, filter: UnitFilter, today: string): Promise<Map<number, ServiceSums>> {
+  if (filter.from || filter.to) return new Map((await unitSums(db, filter, 'location', today)).map(({ key, ...sums }) => [Number(key), sums]));
+  const total = (column: string) => sql<number>`sum(${sql.ref(`x.${column}`)})`;
+  const rows = await db
+    .selectFrom('unitExposureLifetime as x')
+    .innerJoin('catalogItems as ci', 'ci.id', 'x.catalogItemId')
+    .select(['x.locationId', total('units').as('units'), total('installedDaySum').as('installedDaySum'), total('failures').as('failures'), total('failedDaySum').as('failedDaySum')])
+    // The item, vendor, category and location conditions name only columns the lifetime rows share with the cells.
+    .where((eb) => eb.and(conditions(eb as unknown as Cells, filter, null)))
+    .groupBy('x.locationId')
+    .execute();
+  return new Map(rows.map(({ locationId, ...sums }) => [locationId, sums]));
+}
+
 /**
  * The regions the locations make up when they are every location of each region they touch (a
  * regional manager's scope), so that the regions' sums stand in for their cells; otherwise null.

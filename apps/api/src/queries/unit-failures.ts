@@ -25,9 +25,31 @@ export function failureAges(db: Db, filter: FailureFilter): Promise<{ days: numb
   return failuresOf(db, filter).select([sql<number>`failed_day - installed_day`.as('days'), sql<number>`count(*)`.as('failures')]).groupBy('days').execute();
 }
 
-/** Claims by location, failure mode and coverage: one pass that gives the funnel's counts and the shares of modes and coverages. */
-export function claimKinds(db: Db, filter: FailureFilter): Promise<{ locationId: number; failureMode: FailureMode; coverage: Coverage; claims: number }[]> {
-  return failuresOf(db, filter).select(['locationId', 'failureMode', 'coverage', sql<number>`count(*)`.as('claims')]).groupBy(['locationId', 'failureMode', 'coverage']).execute();
+/**
+ * Claims by failure mode and coverage: counted per item in the order of the claims' index by item,
+ * coverage and mode (migration 038), which a count by mode and coverage alone would sort first.
+ */
+export async function claimShares(db: Db, filter: FailureFilter): Promise<{ failureMode: FailureMode; coverage: Coverage; claims: number }[]> {
+  const perItem = await failuresOf(db, filter)
+    .select(['failureMode', 'coverage', sql<number>`count(*)`.as('claims')])
+    .groupBy(['catalogItemId', 'coverage', 'failureMode'])
+    .execute();
+  const shares = new Map<string, { failureMode: FailureMode; coverage: Coverage; claims: number }>();
+  for (const row of perItem) {
+    const key = `${row.failureMode} ${row.coverage}`;
+    shares.set(key, { ...row, claims: (shares.get(key)?.claims ?? 0) + row.claims });
+  }
+  return [...shares.values()];
+}
+
+/** Claims under the shop's own workmanship warranty, by location. */
+export async function workmanshipClaims(db: Db, filter: FailureFilter): Promise<Map<number, number>> {
+  const rows = await failuresOf(db, filter)
+    .where('coverage', '=', 'workmanship')
+    .select(['locationId', sql<number>`count(*)`.as('claims')])
+    .groupBy('locationId')
+    .execute();
+  return new Map(rows.map((row) => [row.locationId, row.claims]));
 }
 
 /** The catalog items of an item, category or vendor. */

@@ -10,9 +10,9 @@ import {
 } from '@busbar/shared';
 import type { LocationScope } from '../access/locations.ts';
 import { notFound } from '../errors.ts';
-import { unitSums, type UnitFilter } from '../queries/unit-exposure.ts';
-import { claimKinds, failureAges, itemsOf } from '../queries/unit-failures.ts';
-import { addSums, figuresOf } from './figures.ts';
+import { serviceByLocation, unitSums, type UnitFilter } from '../queries/unit-exposure.ts';
+import { claimShares, failureAges, itemsOf, workmanshipClaims } from '../queries/unit-failures.ts';
+import { figuresOf, NO_UNITS } from './figures.ts';
 import { funnelOf, type NamedLocation } from './funnel.ts';
 import { catalogNames, labelOf } from './labels.ts';
 import { observationsOf, survivalCurve, weibullOf } from './survival.ts';
@@ -36,20 +36,11 @@ export async function reliabilityDetail(
   if (!label) throw notFound(params.groupBy === 'vendor' ? 'vendor' : params.groupBy === 'item' ? 'catalog item' : 'category');
   const months = { from: query.from, to: query.to };
   const filter: UnitFilter = { group: params, scope: selected, ...months };
-  const inSelection = (locationId: number) => selected === 'all' || selected.includes(locationId);
-
-  const byLocation = new Map((await unitSums(db, { ...filter, scope: 'all' }, 'location', today)).map(({ key, ...s }) => [Number(key), s]));
+  const [selectedSums] = await unitSums(db, filter, 'none', today);
+  const [networkSums] = await unitSums(db, { ...filter, scope: 'all' }, 'none', today);
   const failures = { itemIds: await itemsOf(db, params), ...months, scope: selected };
   const observations = observationsOf(await failureAges(db, failures), await unitSums(db, filter, 'month', today), todayDay);
-  const kinds = await claimKinds(db, { ...failures, scope: 'all' });
-  const claims = new Map<number, { claims: number; workmanshipClaims: number }>();
-  for (const kind of kinds) {
-    const counts = claims.get(kind.locationId) ?? { claims: 0, workmanshipClaims: 0 };
-    counts.claims += kind.claims;
-    if (kind.coverage === 'workmanship') counts.workmanshipClaims += kind.claims;
-    claims.set(kind.locationId, counts);
-  }
-  const shares = kinds.filter((kind) => inSelection(kind.locationId));
+  const shares = await claimShares(db, failures);
   const claimsOf = <K extends string>(key: 'failureMode' | 'coverage', values: readonly K[]) =>
     values.map((value) => ({ value, claims: shares.filter((s) => s[key] === value).reduce((sum, s) => sum + s.claims, 0) })).filter((v) => v.claims > 0);
 
@@ -58,13 +49,13 @@ export async function reliabilityDetail(
     groupBy: params.groupBy,
     key: String(params.key),
     ...label,
-    figures: figuresOf(addSums([...byLocation].filter(([id]) => inSelection(id)).map(([, s]) => s)), todayDay),
-    network: figuresOf(addSums([...byLocation.values()]), todayDay),
+    figures: figuresOf(selectedSums ?? NO_UNITS, todayDay),
+    network: figuresOf(networkSums ?? NO_UNITS, todayDay),
     survival: survivalCurve(observations),
     ...weibullOf(observations),
     failureModes: claimsOf('failureMode', FAILURE_MODES).map(({ value, claims }) => ({ mode: value, claims })),
     coverages: claimsOf('coverage', COVERAGES).map(({ value, claims }) => ({ coverage: value, claims })),
-    funnel: funnelOf(byLocation, claims, named, todayDay),
+    funnel: funnelOf(await serviceByLocation(db, { ...filter, scope: 'all' }, today), await workmanshipClaims(db, { ...failures, scope: 'all' }), named, todayDay),
     ...(await marginsOf(db, filter, today, todayDay)),
   };
 }

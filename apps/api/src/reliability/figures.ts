@@ -1,6 +1,6 @@
 import { poissonRateInterval, wilsonInterval } from '@busbar/calc';
 import { DAYS_PER_MONTH, RATE_PER_UNIT_MONTHS, type Interval, type ReliabilityFigures } from '@busbar/shared';
-import type { UnitSums } from '../queries/unit-exposure.ts';
+import type { ServiceSums, UnitSums } from '../queries/unit-exposure.ts';
 
 export const NO_UNITS: UnitSums = { units: 0, installedDaySum: 0, failures: 0, failedInstalledDaySum: 0, failedDaySum: 0, completedUnits: 0, completedWarrantyFailures: 0 };
 
@@ -12,7 +12,7 @@ export function addSums(sums: readonly UnitSums[]): UnitSums {
 }
 
 /** Time in service of the units, in months: failed units until they failed, the rest until `todayDay` (days since 1970). */
-export function unitMonthsOf(s: UnitSums, todayDay: number): number {
+export function unitMonthsOf(s: ServiceSums, todayDay: number): number {
   return ((s.units - s.failures) * todayDay + s.failedDaySum - s.installedDaySum) / DAYS_PER_MONTH;
 }
 

@@ -1,6 +1,6 @@
 import { funnelLimits, funnelSide } from '@busbar/calc';
 import { RATE_PER_UNIT_MONTHS, type FunnelLimit, type FunnelPoint, type FunnelSignal } from '@busbar/shared';
-import type { UnitSums } from '../queries/unit-exposure.ts';
+import type { ServiceSums } from '../queries/unit-exposure.ts';
 import { unitMonthsOf } from './figures.ts';
 
 /** Spiegelhalter's two funnels: 95 % warns, 99.8 % (about three standard errors) alarms. */
@@ -20,8 +20,8 @@ export interface NamedLocation {
  * stay on the funnel without id, code or name, in exposure order so the order tells nothing.
  */
 export function funnelOf(
-  byLocation: Map<number, UnitSums>,
-  claims: Map<number, { claims: number; workmanshipClaims: number }>,
+  byLocation: Map<number, ServiceSums>,
+  workmanship: Map<number, number>,
   named: Map<number, NamedLocation>,
   todayDay: number,
 ): { points: FunnelPoint[]; limits: FunnelLimit[] } {
@@ -40,7 +40,9 @@ export function funnelOf(
         failures: sums.failures,
         rate: (sums.failures / unitMonths) * RATE_PER_UNIT_MONTHS,
         signal: totalFailures > 0 ? signalOf(sums.failures, networkRate * unitMonths) : 'within',
-        ...(claims.get(id) ?? { claims: 0, workmanshipClaims: 0 }),
+        // Each failure is one claim.
+        claims: sums.failures,
+        workmanshipClaims: workmanship.get(id) ?? 0,
       };
     });
   return { points, limits: totalFailures > 0 ? limitCurve(networkRate, points) : [] };
