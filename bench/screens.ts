@@ -35,6 +35,8 @@ export const SCREENS: readonly (readonly [label: string, path: (ids: Ids) => str
   ['reliability, one item', (ids) => `/api/reliability/item/${ids.reliabilityItemId}`],
   ['reliability, one category', () => '/api/reliability/category/house_battery'],
   ['roll-ups, a year by month', () => rollupPath(YEAR_BY_MONTH)],
+  // What the comparison screen asks for its key figures and trend: the sums without a row per shop.
+  ['roll-ups, a year by month, sums only', () => `${rollupPath(YEAR_BY_MONTH)}&rows=none`],
   ['roll-ups, a quarter by week', () => rollupPath(QUARTER_BY_WEEK)],
   ['month close, last month', () => `/api/closes?month=${YEAR_BY_MONTH.to.slice(0, 7)}`],
   ['month close, a region', (ids) => `/api/closes?month=2025-03&regionId=${ids.regionId}`],

@@ -67,6 +67,32 @@ describe('who reads the roll-ups', () => {
     expect(locationsIn(await rollupsOf('lead2@demo.busbar.test'))).toEqual([ids.location('AVL')]);
   });
 
+  it("sums each person's rows by period, and leaves the rows out when asked for none", async () => {
+    const asked: [email: string, path: string][] = [
+      ['owner@demo.busbar.test', YEAR_BY_MONTH],
+      ['regional@demo.busbar.test', YEAR_BY_MONTH],
+      ['lead@demo.busbar.test', YEAR_BY_MONTH],
+      ['owner@demo.busbar.test', `${YEAR_BY_MONTH}&locationId=${ids.location('AUS')}`],
+    ];
+    for (const [email, path] of asked) {
+      const each = await rollupsOf(email, path);
+      expect(each.rows.length).toBeGreaterThan(0);
+      for (const period of new Set(each.rows.map((r) => r.period))) {
+        const rows = each.rows.filter((r) => r.period === period);
+        const sums = each.scope.find((s) => s.period === period)!;
+        const total = (field: 'buildsDelivered' | 'claimsOpened' | 'revenueCents' | 'partsCostCents') => rows.reduce((sum, r) => sum + r[field]!, 0);
+        expect([sums.buildsDelivered, sums.claimsOpened, sums.revenueCents, sums.partsCostCents]).toEqual([
+          total('buildsDelivered'),
+          total('claimsOpened'),
+          total('revenueCents'),
+          total('partsCostCents'),
+        ]);
+      }
+      expect(each.scope.map((s) => s.period).sort()).toEqual([...new Set(each.rows.map((r) => r.period))].sort());
+      expect(await rollupsOf(email, `${path}&rows=none`)).toEqual({ ...each, rows: [] });
+    }
+  });
+
   it('technicians and warranty clerks read no roll-ups', async () => {
     for (const email of ['tech@demo.busbar.test', 'warranty@demo.busbar.test']) {
       const res = await (await h.signedIn(email)).get(YEAR_BY_MONTH).expect(403);
@@ -118,6 +144,7 @@ describe('asking for roll-ups', () => {
 
   it('answers a missing or wrong field in plain words, naming it', async () => {
     expect((await ask('from=2026-01-01&to=2026-02-01')).fields.grain).toBe('Pick day, week, month, quarter or year');
+    expect((await ask('from=2026-01-01&to=2026-02-01&grain=month&rows=some')).fields.rows).toBe('Pick each or none');
     expect((await ask('from=2026-01-01&to=2026-02-01&grain=fortnight')).fields.grain).toBe('Pick day, week, month, quarter or year');
     expect((await ask('from=2026-02-30&to=2026-03-01&grain=day')).fields.from).toBe('Use a date like 2026-03-31');
     expect((await ask('to=2026-03-01&grain=day')).fields.from).toBe('Use a date like 2026-03-31');

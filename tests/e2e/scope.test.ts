@@ -42,9 +42,13 @@ describe('the scope in the header', () => {
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Locations compared' }).click();
     await expect.poll(() => page.locator('.comparison .ant-table-row').count()).toBe(4);
     // A key figure opens the builds behind it, within the same scope: May's deliveries in the region.
-    await page.getByRole('link', { name: /^Builds delivered: .*, open the delivered builds of May 2026$/ }).click();
+    const figure = page.getByRole('link', { name: /^Builds delivered: .*, open the delivered builds of May 2026$/ });
+    const delivered = (await figure.getAttribute('aria-label'))!.match(/^Builds delivered: ([\d,]+),/)![1]!;
+    expect(Number(delivered.replace(/,/g, ''))).toBeGreaterThan(0);
+    await figure.click();
     await page.getByRole('heading', { level: 1, name: 'Builds' }).waitFor();
     expect(Object.fromEntries(new URL(page.url()).searchParams)).toEqual({ status: 'delivered', deliveredFrom: '2026-05-01', deliveredTo: '2026-05-31' });
+    await page.getByText(new RegExp(`^1–\\d+ of ${delivered}$`)).waitFor();
     await expect.poll(async () => [...(await shopsListed(page))].every((code) => EAST.includes(code!))).toBe(true);
     await page.goBack();
 

@@ -2,19 +2,20 @@ import type { RollupFigures, Rollups } from '@busbar/shared';
 import { describe, expect, it } from 'vitest';
 import { keyFigures } from '../../apps/web/src/views/network/keyFigures.ts';
 
-const row = (locationId: number, period: string, buildsDelivered: number, claimsOpened: number, revenueCents?: number) =>
-  ({ locationId, period, buildsDelivered, claimsOpened, ...(revenueCents === undefined ? {} : { revenueCents }) }) as RollupFigures & { locationId: number; period: string };
-const rollups = (rows: ReturnType<typeof row>[]): Rollups => ({
+const sums = (period: string, buildsDelivered: number, claimsOpened: number, revenueCents?: number) =>
+  ({ period, buildsDelivered, claimsOpened, ...(revenueCents === undefined ? {} : { revenueCents }) }) as RollupFigures & { period: string };
+const rollups = (scope: ReturnType<typeof sums>[]): Rollups => ({
   grain: 'month',
   periods: [{ period: '2026-05', start: '2026-05-01', end: '2026-05-31', previous: '2026-04', lastYear: '2025-05' }],
-  rows,
+  rows: [],
+  scope,
   regions: [],
   network: [],
 });
 
 describe("the last month's key figures", () => {
-  it('add up the shops and say each change against the month before and a year before', () => {
-    const key = keyFigures(rollups([row(1, '2026-05', 6, 1, 600_00), row(2, '2026-05', 4, 1, 400_00), row(1, '2026-04', 8, 1, 1200_00), row(2, '2025-05', 10, 0, 1000_00)]))!;
+  it("read the person's shops together and say each change against the month before and a year before", () => {
+    const key = keyFigures(rollups([sums('2026-05', 10, 2, 1000_00), sums('2026-04', 8, 1, 1200_00), sums('2025-05', 10, 0, 1000_00)]))!;
     expect(key).toMatchObject({ month: '2026-05', start: '2026-05-01', end: '2026-05-31' });
     expect(key.figures).toEqual([
       { label: 'Builds delivered', value: '10', records: 'builds', changes: ['▲ 25 % on Apr 2026', '= May 2025'] },
@@ -25,7 +26,7 @@ describe("the last month's key figures", () => {
   });
 
   it('leave out revenue the person may not read, and say when there is nothing to compare', () => {
-    const key = keyFigures(rollups([row(1, '2026-05', 3, 0)]))!;
+    const key = keyFigures(rollups([sums('2026-05', 3, 0)]))!;
     expect(key.figures.map((f) => f.label)).toEqual(['Builds delivered', 'Claims per 100 builds']);
     expect(key.figures[0]!.changes).toEqual(['▲ from none in Apr 2026', '▲ from none in May 2025']);
     expect(key.figures[1]!.changes).toEqual(['none to compare in Apr 2026', 'none to compare in May 2025']);

@@ -1,6 +1,6 @@
 import type { Db } from '@busbar/db';
 import { PERIODS_A_YEAR, periodEnd, periodKey, periodNumber, periodStart, type RollupQuery, type Rollups } from '@busbar/shared';
-import { sql } from 'kysely';
+import { sql, type RawBuilder } from 'kysely';
 import { locationScope, type LocationScope } from '../access/locations.ts';
 import type { Viewer } from '../access/viewer.ts';
 import { invalidField } from '../errors.ts';
@@ -28,8 +28,8 @@ export function checkAnswerSize(locations: number, periods: number): void {
 }
 
 /**
- * Roll-ups of the locations in `scope` (never empty), of each region wholly in it, and of the whole
- * network, for the asked periods and the ones they are compared with, as the UTF-8 bytes of the JSON
+ * Roll-ups of the locations in `scope` (never empty; each unless `rows` is `none`) and their sum, of
+ * each region wholly in it, and of the whole network, for the asked periods and the ones they are compared with, as the UTF-8 bytes of the JSON
  * of Rollups: the figures are written by SQLite (rollups-json.ts), so the thousands of rows of a year
  * of the network never become JavaScript objects or strings.
  */
@@ -38,7 +38,7 @@ export async function rollupReportJson(db: Db, query: RollupQuery, scope: Locati
   const periods = askedPeriods(query);
   const keys = [...new Set(periods.flatMap((p) => [p.period, p.previous, p.lastYear]))];
   const locations = await locationRegions(db);
-  checkAnswerSize(scope === 'all' ? locations.length : scope.length, keys.length);
+  if (query.rows !== 'none') checkAnswerSize(scope === 'all' ? locations.length : scope.length, keys.length);
   const reads = moneyReads(money);
   const scopeIds = scope === 'all' ? locations.map((l) => l.id) : scope;
   const inScope = new Set(scopeIds);
@@ -47,11 +47,17 @@ export async function rollupReportJson(db: Db, query: RollupQuery, scope: Locati
   const [locationId, regionId, period] = [sql.ref<number>('f.location_id'), sql.ref<number>('l.region_id'), sql.ref<string>('f.period')];
   const asked = sql`f.grain = ${grain} and f.period in (${sql.join(keys)})`;
 
-  const rows = await jsonArrayOf(
-    db,
-    byMoneyReads(locationId, scopeIds, (id) => reads([id]), (r) => figuresJson([['locationId', locationId], ['period', period]], own, r)),
-    sql`rollup_figures f where ${asked} ${scope === 'all' ? sql`` : sql`and f.location_id in (${sql.join(scope)})`} and ${holdsAny(own)}`,
-  );
+  const ofScope = scope === 'all' ? sql`` : sql`and f.location_id in (${sql.join(scope)})`;
+  const rows =
+    query.rows === 'none'
+      ? '[]'
+      : await jsonArrayOf(
+          db,
+          byMoneyReads(locationId, scopeIds, (id) => reads([id]), (r) => figuresJson([['locationId', locationId], ['period', period]], own, r)),
+          sql`rollup_figures f where ${asked} ${ofScope} and ${holdsAny(own)}`,
+        );
+  const sumsOf = (within: RawBuilder<unknown>) =>
+    jsonArrayOf(db, sql`json(j)`, sql`(select ${figuresJson([['period', period]], summed, reads(scopeIds))} as j from rollup_figures f where ${asked} ${within} group by f.period having ${holdsAny(summed)})`);
   const regionSums = byMoneyReads(regionId, whole, (id) => reads(regionLocations(id)), (r) => figuresJson([['regionId', regionId], ['period', period]], summed, r));
   const regions = await jsonArrayOf(
     db,
@@ -59,12 +65,9 @@ export async function rollupReportJson(db: Db, query: RollupQuery, scope: Locati
     sql`(select ${regionSums} as j from rollup_figures f join locations l on l.id = f.location_id
       where ${asked} and l.region_id in (${sql.join(whole.length > 0 ? whole : [0])}) group by l.region_id, f.period having ${holdsAny(summed)})`,
   );
-  const network = await jsonArrayOf(
-    db,
-    sql`json(j)`,
-    sql`(select ${figuresJson([['period', period]], summed, reads(scopeIds))} as j from rollup_figures f where ${asked} group by f.period having ${holdsAny(summed)})`,
-  );
-  return utf8Of([`{"grain":${JSON.stringify(grain)},"periods":${JSON.stringify(periods)},"rows":`, rows, ',"regions":', regions, ',"network":', network, '}']);
+  const network = await sumsOf(sql``);
+  const scopeSums = scope === 'all' ? network : await sumsOf(ofScope);
+  return utf8Of([`{"grain":${JSON.stringify(grain)},"periods":${JSON.stringify(periods)},"rows":`, rows, ',"scope":', scopeSums, ',"regions":', regions, ',"network":', network, '}']);
 }
 
 /** The roll-ups as objects (the weekly e-mail's few rows). */

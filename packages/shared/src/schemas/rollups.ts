@@ -16,6 +16,8 @@ export const rollupQuery = z
     from: day,
     to: day,
     grain: z.enum(ROLLUP_GRAINS, { error: 'Pick day, week, month, quarter or year' }),
+    /** `none`: no row per location, only the sums (a screen of totals need not fetch 5,000 rows of the network). */
+    rows: z.enum(['each', 'none'], { error: 'Pick each or none' }).optional(),
     ...within,
   })
   .refine((q) => q.from <= q.to, { path: ['to'], message: 'Pick an end on or after the start' })
@@ -64,14 +66,16 @@ export interface RollupPeriod {
 }
 
 /**
- * Roll-ups of the person's scope. `rows`, `regions` and `network` hold every asked period and
- * every `previous` and `lastYear` one; a location or region with nothing in a period has no row.
- * Regions are those wholly in the person's scope; the network is every location.
+ * Roll-ups of the person's scope. `rows`, `scope`, `regions` and `network` hold every asked period
+ * and every `previous` and `lastYear` one; a location or region with nothing in a period has no row.
+ * `scope` is the sum of the rows (there even when the rows were not asked for). Regions are those
+ * wholly in the person's scope; the network is every location.
  */
 export interface Rollups {
   grain: (typeof ROLLUP_GRAINS)[number];
   periods: RollupPeriod[];
   rows: (RollupFigures & { locationId: number; period: string })[];
+  scope: (RollupFigures & { period: string })[];
   regions: (RollupFigures & { regionId: number; period: string })[];
   network: (RollupFigures & { period: string })[];
 }

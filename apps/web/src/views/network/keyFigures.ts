@@ -20,13 +20,10 @@ export interface KeyFigure {
 
 
 function sumsOf(rollups: Rollups, period: string): MonthSums {
-  const rows = rollups.rows.filter((r) => r.period === period);
-  const money = rows.every((r) => r.revenueCents !== undefined);
-  return {
-    delivered: rows.reduce((n, r) => n + r.buildsDelivered, 0),
-    revenueCents: money ? rows.reduce((n, r) => n + (r.revenueCents ?? 0), 0) : null,
-    claims: rows.reduce((n, r) => n + r.claimsOpened, 0),
-  };
+  const sums = rollups.scope.find((s) => s.period === period);
+  // A month with nothing has no sums: none of anything, and revenue where the person reads it in other months.
+  const money = (sums ?? rollups.scope[0])?.revenueCents !== undefined;
+  return { delivered: sums?.buildsDelivered ?? 0, revenueCents: money ? (sums?.revenueCents ?? 0) : null, claims: sums?.claimsOpened ?? 0 };
 }
 
 const per100 = (s: MonthSums) => (s.delivered > 0 ? (s.claims * 100) / s.delivered : null);

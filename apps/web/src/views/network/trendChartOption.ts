@@ -20,9 +20,8 @@ const per100 = (claims: number, delivered: number) => (delivered > 0 ? (claims *
 /** The asked months of a monthly roll-up, the person's locations summed. */
 export function trendMonths(rollups: Rollups): TrendMonth[] {
   return rollups.periods.map(({ period }) => {
-    const rows = rollups.rows.filter((r) => r.period === period);
-    const delivered = rows.reduce((n, r) => n + r.buildsDelivered, 0);
-    const claims = rows.reduce((n, r) => n + r.claimsOpened, 0);
+    const mine = rollups.scope.find((s) => s.period === period);
+    const [delivered, claims] = [mine?.buildsDelivered ?? 0, mine?.claimsOpened ?? 0];
     const network = rollups.network.find((n) => n.period === period);
     return { month: period, delivered, claimsPer100: per100(claims, delivered), networkClaimsPer100: network ? per100(network.claimsOpened, network.buildsDelivered) : null };
   });
