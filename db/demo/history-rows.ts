@@ -132,7 +132,7 @@ export function historyRowMaker(
   };
 }
 
-/** Rows of the simulated history, numbered from `firstId` on, in the order things happened. */
+/** Rows of the simulated history, numbered from `firstId` on, in the order things happened, with the audit trail the API would have written. */
 export function historyRows(
   random: Random,
   sim: { builds: SimBuild[] },
@@ -140,5 +140,5 @@ export function historyRows(
   firstId: { customer: number; vehicle: number; build: number },
   nowMs: number,
 ): HistoryRows {
-  return historyRowMaker(random, catalog, firstId, nowMs)(sim.builds);
+  return historyRowMaker(random, catalog, firstId, nowMs, { audit: true })(sim.builds);
 }

@@ -104,4 +104,5 @@ export async function seedDemoHistory(db: Db, options: HistoryOptions): Promise<
   await insertInChunks(db, 'buildEvents', [...rows.buildEvents, ...claimRows.buildEvents]);
   await insertInChunks(db, 'warrantyClaims', claimRows.warrantyClaims);
   await insertInChunks(db, 'claimEvents', claimRows.claimEvents);
+  await insertInChunks(db, 'auditLog', rows.auditLog);
 }

@@ -4,7 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { buildTotals } from '@busbar/calc';
 import { migrateToLatest, openDatabase, seedDemoNetwork, type Db } from '@busbar/db';
-import { CATEGORIES, SPEC_SCHEMAS, catalogItemBody, customerBody, vehicleBody, type Category } from '@busbar/shared';
+import { CATEGORIES, SPEC_SCHEMAS, catalogItemBody, customerBody, vehicleBody, type BuildHistory, type Category } from '@busbar/shared';
 import { sql } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ensureDemoData } from '../../apps/api/src/demo.ts';
@@ -12,7 +12,7 @@ import { startHarness, type Harness } from '../support/api-harness.ts';
 import { realNamesIn } from '../support/real-vehicle-names.ts';
 
 const SERIALIZED: Category[] = ['house_battery', 'starter_battery', 'dc_dc_charger', 'solar_panel', 'solar_controller', 'inverter', 'battery_monitor', 'air_compressor'];
-const HISTORY_TABLES = ['vendors', 'catalog_items', 'customers', 'vehicles', 'builds', 'build_items', 'build_events'];
+const HISTORY_TABLES = ['vendors', 'catalog_items', 'customers', 'vehicles', 'builds', 'build_items', 'build_events', 'audit_log'];
 
 let harness: Harness;
 const dirs: string[] = [];
@@ -159,6 +159,25 @@ describe('demo history', () => {
       expect(b.bookedFor !== null).toBe(trail.some((e) => e.toStatus === 'booked'));
       expect(b.deliveredAt).toBe(trail.find((e) => e.toStatus === 'delivered')?.at ?? null);
     }
+  });
+
+  it('writes the audit trail the API would have: each build created and every change of status, by the people and at the times of its events', async () => {
+    const audit = groupBy(await harness.db.selectFrom('auditLog').selectAll().where('entity', '=', 'build').orderBy('id').execute(), (a) => a.entityId);
+    const events = groupBy(await harness.db.selectFrom('buildEvents').selectAll().where('kind', '=', 'status').orderBy('id').execute(), (e) => e.buildId);
+    const all = await builds();
+    for (const b of all) {
+      const trail = audit.get(b.id)!;
+      expect(trail[0]).toMatchObject({ action: 'build.create', at: b.createdAt, actorId: expect.any(Number) });
+      const moves = trail.filter((a) => a.action === 'build.status').map((a) => [a.at, a.actorId, JSON.parse(a.before!).status, JSON.parse(a.after!).status]);
+      expect(moves).toEqual(events.get(b.id)!.slice(1).map((e) => [e.at, e.actorId, e.fromStatus, e.toStatus]));
+    }
+    // The history screen of a delivered build tells its whole way, creation included.
+    const delivered = all.find((b) => b.status === 'delivered')!;
+    const owner = await harness.signedIn('owner@demo.busbar.test');
+    const history = (await owner.get(`/api/builds/${delivered.id}/history`).expect(200)).body as BuildHistory;
+    expect(history.entries.filter((e) => e.kind === 'status')).toHaveLength(events.get(delivered.id)!.length);
+    expect(history.entries.at(-1)).toMatchObject({ at: delivered.createdAt, summary: 'Created the build as Draft' });
+    expect(history.entries.some((e) => e.kind === 'change' && e.summary.startsWith('Added '))).toBe(true);
   });
 
   it('is busier in summer than in winter, delivers old builds and has recent ones under way', async () => {
