@@ -17,10 +17,10 @@ beforeAll(async () => {
   h = await startHarness({}, true, { history: true });
   den = (await demoIds(h.db)).location('DEN');
   // A claim on every tenth delivered unit, failing and logged across two years, a fifth closed.
-  await sql`insert into warranty_claims (location_id, sequence, number, build_id, build_item_id, catalog_item_id, failed_on, failure_mode, coverage, symptoms, status, due_on, created_at, updated_at)
+  await sql`insert into warranty_claims (location_id, sequence, number, build_id, build_item_id, catalog_item_id, failed_on, failure_mode, coverage, symptoms, status, due_on, created_at, logged_on, updated_at)
     select b.location_id, 1000000 + i.id, 'T-' || i.id, b.id, i.id, i.catalog_item_id, date('2024-07-01', '+' || (i.id % 700) || ' days'), 'overheating', 'vendor_defect', 'Hot',
       case when i.id % 5 = 0 then 'closed' else 'sent_to_vendor' end, case when i.id % 5 = 0 then null else date('2026-01-01', '+' || (i.id % 200) || ' days') end,
-      strftime('%Y-%m-%dT%H:%M:%fZ', '2024-07-02', '+' || (i.id % 700) || ' days'), '2026-06-01T00:00:00.000Z'
+      strftime('%Y-%m-%dT%H:%M:%fZ', '2024-07-02', '+' || (i.id % 700) || ' days'), date('2024-07-02', '+' || (i.id % 700) || ' days'), '2026-06-01T00:00:00.000Z'
     from build_items i join builds b on b.id = i.build_id where b.status = 'delivered' and i.id % 10 = 0`.execute(h.db);
   await sql`pragma optimize = 0x10002`.execute(h.db);
 }, 120_000);
@@ -43,7 +43,7 @@ const BY_ITEM: Record<string, Record<string, string>> = {
 /** Lists narrowed to a span of days: the span is read from its index, and only its claims are sorted. */
 const BY_DAYS: Record<string, [query: Record<string, string>, column: string]> = {
   'failed in a month': [{ failedFrom: '2025-03-01', failedTo: '2025-03-31' }, 'failed_on'],
-  'logged in a month': [{ loggedFrom: '2025-03-01', loggedTo: '2025-03-31' }, 'created_at'],
+  'logged in a month': [{ loggedFrom: '2025-03-01', loggedTo: '2025-03-31' }, 'logged_on'],
 };
 
 const AT = new Date('2026-06-15T15:00:00Z');

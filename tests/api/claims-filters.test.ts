@@ -35,10 +35,15 @@ beforeAll(async () => {
     // Failure days across three months; logging moments every 7 h 10 min from 1 March, so many fall near a midnight somewhere.
     const failedOn = new Date(Date.UTC(2026, 1, 20 + i * 3)).toISOString().slice(0, 10);
     const createdAt = new Date(Date.UTC(2026, 2, 1, 2) + i * 430 * 60_000).toISOString();
-    await h.db.updateTable('warrantyClaims').set({ failedOn, createdAt, ...(i % 5 === 0 && { status: 'closed', dueOn: null }) }).where('id', '=', res.body.id).execute();
+    // As if logged then: the day at the claim's shop is kept with it, as the API keeps it when a claim is logged.
+    const loggedOn = localDayOf(await zoneOf(shops[i % shops.length]!), createdAt);
+    await h.db.updateTable('warrantyClaims').set({ failedOn, createdAt, loggedOn, ...(i % 5 === 0 && { status: 'closed', dueOn: null }) }).where('id', '=', res.body.id).execute();
   }
 });
 afterAll(() => h.close());
+
+const zoneOf = async (locationId: number) => (await h.db.selectFrom('locations').select('timeZone').where('id', '=', locationId).executeTakeFirstOrThrow()).timeZone;
+const localDayOf = (timeZone: string, at: string) => new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(new Date(at));
 
 interface Scanned {
   id: number;
@@ -64,7 +69,7 @@ async function scan(): Promise<Scanned[]> {
     .execute();
   return rows.map(({ createdAt, timeZone, ...row }) => ({
     ...row,
-    loggedOn: new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(new Date(createdAt)),
+    loggedOn: localDayOf(timeZone, createdAt),
   }));
 }
 
@@ -140,7 +145,7 @@ describe('claims list filters', () => {
     }
   });
 
-  it("cuts logging days in each location's own zone", async () => {
+  it("cuts logging days in each location's own zone, the day kept with each claim", async () => {
     const all = await scan();
     const scanned = (id: number) => all.find((c) => c.id === id)!;
     // At least one claim's local day differs from its UTC day, and the filter follows the local day.

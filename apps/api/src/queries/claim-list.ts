@@ -1,4 +1,3 @@
-import { dayOfIso, localMoment } from '@busbar/calc';
 import type { Db } from '@busbar/db';
 import type { ClaimQuery, Page } from '@busbar/shared';
 import { sql, type Expression, type ExpressionBuilder, type SqlBool } from 'kysely';
@@ -8,27 +7,11 @@ import { cappedCount, offsetOf } from './paging.ts';
 
 type Claims = ExpressionBuilder<any, any>;
 
-/** The locations of each time zone: "today" and "logged on" are days at the claim's own location. */
+/** The locations of each time zone: "today" is a day at the claim's own location. */
 async function locationsByZone(db: Db): Promise<Map<string, number[]>> {
   const zones = new Map<string, number[]>();
   for (const l of await db.selectFrom('locations').select(['id', 'timeZone']).execute()) zones.set(l.timeZone, [...(zones.get(l.timeZone) ?? []), l.id]);
   return zones;
-}
-
-/** Claims logged from the start of `from` to the end of `to`, each day at the claim's location. */
-function loggedBetween(eb: Claims, zones: Map<string, number[]>, from: string | undefined, to: string | undefined): Expression<SqlBool> {
-  const bounds = [...zones].map(([zone, ids]) => ({
-    ids,
-    start: from === undefined ? undefined : new Date(localMoment(zone, dayOfIso(from), 0)).toISOString(),
-    end: to === undefined ? undefined : new Date(localMoment(zone, dayOfIso(to) + 1, 0)).toISOString(),
-  }));
-  const within = (b: { start?: string | undefined; end?: string | undefined }) => [
-    ...(b.start === undefined ? [] : [eb('w.createdAt', '>=', b.start)]),
-    ...(b.end === undefined ? [] : [eb('w.createdAt', '<', b.end)]),
-  ];
-  // The widest span of all zones first, so an index on created_at narrows the rows; then each zone exactly.
-  const widest = { start: bounds.map((b) => b.start!).sort()[0], end: bounds.map((b) => b.end!).sort().at(-1) };
-  return eb.and([...within(widest), eb.or(bounds.map((b) => eb.and([eb('w.locationId', 'in', b.ids), ...within(b)])))]);
 }
 
 /**
@@ -54,7 +37,7 @@ async function matchingClaims(db: Db, scope: LocationScope, query: ClaimQuery, n
     if (query.category !== undefined) items = items.where('category', '=', query.category);
     catalogIds = (await items.execute()).map((i) => i.id);
   }
-  const zones = query.overdue || query.loggedFrom || query.loggedTo ? await locationsByZone(db) : new Map<string, number[]>();
+  const zones = query.overdue ? await locationsByZone(db) : new Map<string, number[]>();
   return db.selectFrom('warrantyClaims as w').where((eb) => {
     const conditions: Expression<SqlBool>[] = [];
     if (scope !== 'all') conditions.push(eb('w.locationId', 'in', scope));
@@ -64,7 +47,9 @@ async function matchingClaims(db: Db, scope: LocationScope, query: ClaimQuery, n
     if (query.buildId) conditions.push(eb('w.buildId', '=', query.buildId));
     if (query.failedFrom) conditions.push(eb('w.failedOn', '>=', query.failedFrom));
     if (query.failedTo) conditions.push(eb('w.failedOn', '<=', query.failedTo));
-    if (query.loggedFrom || query.loggedTo) conditions.push(loggedBetween(eb, zones, query.loggedFrom, query.loggedTo));
+    // The day each claim was logged at its location, kept with it (as the month close and the roll-ups count it).
+    if (query.loggedFrom) conditions.push(eb('w.loggedOn', '>=', query.loggedFrom));
+    if (query.loggedTo) conditions.push(eb('w.loggedOn', '<=', query.loggedTo));
     if (query.overdue) conditions.push(overdue(eb, zones, now));
     // The catalog is small: its matching items are looked up once, and each claim keeps its unit's item.
     if (byUnit(query)) conditions.push(catalogIds.length > 0 ? eb('w.catalogItemId', 'in', catalogIds) : sql<SqlBool>`0`);
