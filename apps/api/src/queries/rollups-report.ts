@@ -29,9 +29,10 @@ export function checkAnswerSize(locations: number, periods: number): void {
 
 /**
  * Roll-ups of the locations in `scope` (never empty; each unless `rows` is `none`) and their sum, of
- * each region wholly in it, and of the whole network, for the asked periods and the ones they are compared with, as the UTF-8 bytes of the JSON
- * of Rollups: the figures are written by SQLite (rollups-json.ts), so the thousands of rows of a year
- * of the network never become JavaScript objects or strings.
+ * each region wholly in it, and of the whole network, for the asked periods and the ones they are
+ * compared with, as the UTF-8 bytes of the JSON of Rollups: the figures are written by SQLite
+ * (rollups-json.ts), so the thousands of rows of a year of the network never become JavaScript
+ * objects or strings.
  */
 export async function rollupReportJson(db: Db, query: RollupQuery, scope: LocationScope, money: MoneyScopes): Promise<Uint8Array> {
   const { grain } = query;
