@@ -121,7 +121,7 @@ export function invitesRouter(ctx: AppContext): { staff: Router; public: Router 
     '/accept',
     validate({ body: acceptInviteBody }, async ({ body }, req: Request, res: Response) => {
       const invite = await openInvite(body.token);
-      checkNewPassword(body.password, invite);
+      await checkNewPassword(body.password, invite);
       const passwordHash = await hashPassword(body.password, config.scryptLogN);
       await db.transaction().execute(async (trx) => {
         const at = now().toISOString();

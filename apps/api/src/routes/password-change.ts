@@ -30,7 +30,7 @@ export function passwordChangeRouter({ db, config, now }: AppContext, limiter: S
         throw invalidField('currentPassword', 'That is not your current password');
       }
       if (body.newPassword === body.currentPassword) throw invalidField('newPassword', 'Choose a password other than your current one');
-      checkNewPassword(body.newPassword, viewer, 'newPassword');
+      await checkNewPassword(body.newPassword, viewer, 'newPassword');
       const newHash = await hashPassword(body.newPassword, config.scryptLogN);
       await db.transaction().execute(async (trx) => {
         await setPasswordHash(trx, viewer.id, newHash);

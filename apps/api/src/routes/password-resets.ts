@@ -82,7 +82,7 @@ export function passwordResetsRouter(ctx: AppContext): Router {
     '/accept',
     validate({ body: acceptPasswordResetBody }, async ({ body }, req, res) => {
       const reset = await openReset(body.token);
-      checkNewPassword(body.password, reset);
+      await checkNewPassword(body.password, reset);
       const passwordHash = await hashPassword(body.password, config.scryptLogN);
       await db.transaction().execute(async (trx) => {
         const at = now();
