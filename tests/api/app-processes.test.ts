@@ -38,7 +38,7 @@ describe('the app on two processes', () => {
     for (let i = 0; i < 6; i++) expect(await roles(lead)).toEqual([]);
   });
 
-  it('locks an account after ten failed sign-ins in all, whichever processes they reach', async () => {
+  it('locks one address out of an account after ten failed sign-ins from it, whichever processes they reach', async () => {
     const stranger = { baseUrl: app.baseUrl, agent: fresh, cookie: '', csrf: '' };
     await call(stranger, 'GET', '/api/health');
     stranger.csrf = decodeURIComponent(/busbar\.csrf=([^;]+)/.exec(stranger.cookie)![1]!);
