@@ -22,7 +22,7 @@ const replace = (body: Record<string, unknown>) => clerk.post(`/api/claims/${cla
 describe('replacing a failed unit', () => {
   it('refuses a date before the failure and a serial number already recorded', async () => {
     expect((await replace({ serialNumber: 'NEW-1', replacedOn: '2026-06-01' })).body.error.fields).toHaveProperty('replacedOn');
-    expect((await replace({ serialNumber: 'SN-CLAIM-1', replacedOn: '2026-06-08' })).status).toBe(409);
+    expect((await replace({ serialNumber: unit.serialNumber, replacedOn: '2026-06-08' })).status).toBe(409);
   });
 
   it('adds the replacement as a new line installed that day, removes the failed unit that day, and says so on the build', async () => {

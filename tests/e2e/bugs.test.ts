@@ -24,9 +24,8 @@ afterAll(async () => {
   await e2e?.close();
 });
 
-async function signedInPage(who: keyof typeof SIGN_INS, width = 1280): Promise<Page> {
+async function signedInPage(who: keyof typeof SIGN_INS): Promise<Page> {
   const page = await e2e.newPage();
-  await page.setViewportSize({ width, height: 800 });
   await e2e.signIn(page, SIGN_INS[who]);
   return page;
 }
@@ -87,8 +86,9 @@ describe('serial number search', () => {
       .values(Array.from({ length: 60 }, (_, i) => ({ buildId: build.id, catalogItemId: line.catalogItemId, sku: line.sku, quantity: 1, serialNumber: `UNIT-QJZ${String(i).padStart(3, '0')}-B`, unitPriceCents: 100, unitCostCents: 50, createdAt: '2026-06-01T12:00:00.000Z' })))
       .execute();
 
+    const page = await signedInPage('owner');
     for (const width of [1280, 390]) {
-      const page = await signedInPage('owner', width);
+      await page.setViewportSize({ width, height: 800 });
       await page.goto('/serials?q=qjz017');
       await page.getByText('UNIT-QJZ017-B').waitFor();
       await expectNoSidewaysScroll(page);
@@ -97,8 +97,8 @@ describe('serial number search', () => {
       await page.getByText('Showing 50 of 60 units. Type more of the number to narrow them down.').waitFor();
       expect(await page.locator('tbody tr.ant-table-row').count()).toBe(50);
       await expectNoSidewaysScroll(page);
-      await page.context().close();
     }
+    await page.context().close();
   }, 120_000);
 });
 
@@ -191,18 +191,16 @@ describe('a build', () => {
     const lead = await e2e.harness.signedIn(SIGN_INS.lead);
     const build = await moveThrough(lead, await createBuild(e2e.harness.db, lead, den), ['quoted']);
     // A phone only looks (no sideways scroll); the wide screen then books it.
+    const page = await signedInPage('lead');
     for (const width of [390, 1280]) {
-      const page = await signedInPage('lead', width);
+      await page.setViewportSize({ width, height: 800 });
       await page.goto(`/builds/${build.id}`);
       await page.getByRole('button', { name: 'Move to Booked' }).click();
       const asked = page.getByRole('region', { name: 'Before Booked' });
       await asked.getByLabel('Booked for').waitFor();
       expect(await page.locator('.ant-message-notice').count()).toBe(0);
       await expectNoSidewaysScroll(page);
-      if (width === 390) {
-        await page.context().close();
-        continue;
-      }
+      if (width === 390) continue;
       await asked.getByRole('button', { name: 'Save and move to Booked' }).click();
       await asked.getByText('Choose the day it is booked for').waitFor();
       await asked.getByLabel('Booked for').click();
@@ -213,8 +211,8 @@ describe('a build', () => {
       await asked.waitFor({ state: 'detached' });
       const saved = await e2e.harness.db.selectFrom('builds').select(['status', 'bookedFor']).where('id', '=', build.id).executeTakeFirstOrThrow();
       expect(saved).toEqual({ status: 'booked', bookedFor: '2026-07-14' });
-      await page.context().close();
     }
+    await page.context().close();
   }, 120_000);
 });
 
@@ -223,8 +221,9 @@ describe('records a person cannot open', () => {
     const elsewhere = await addCustomer(e2e.harness.db, other);
     const owner = await e2e.harness.signedIn(SIGN_INS.owner);
     const otherBuild = await createBuild(e2e.harness.db, owner, other);
+    const page = await signedInPage('lead');
     for (const width of [1280, 390]) {
-      const page = await signedInPage('lead', width);
+      await page.setViewportSize({ width, height: 800 });
       for (const [path, words, back] of [
         [`/builds/${otherBuild.id}`, 'This build does not exist, or it belongs to a shop you cannot see.', 'All builds'],
         [`/customers/${elsewhere.id}`, 'This customer does not exist, or it belongs to a shop you cannot see.', 'All customers'],
@@ -237,15 +236,16 @@ describe('records a person cannot open', () => {
         expect(await alert.getByRole('link', { name: back }).count(), path).toBe(1);
         await expectNoSidewaysScroll(page);
       }
-      await page.context().close();
     }
+    await page.context().close();
   }, 120_000);
 
   it('say so for a person who does not exist or works at another shop, with the way back and no "Try again"', async () => {
     const elsewhere = await addPerson(e2e.harness.db, { role: 'technician', locationId: other });
     const words = 'This person does not exist, or works at a shop you cannot see.';
+    const page = await signedInPage('lead');
     for (const width of [1280, 390]) {
-      const page = await signedInPage('lead', width);
+      await page.setViewportSize({ width, height: 800 });
       for (const path of ['/staff/987654', `/staff/${elsewhere.id}`]) {
         await page.goto(path);
         const alert = page.getByRole('alert').filter({ hasText: words });
@@ -254,8 +254,8 @@ describe('records a person cannot open', () => {
         expect(await alert.getByRole('link', { name: 'All staff' }).count(), path).toBe(1);
         await expectNoSidewaysScroll(page);
       }
-      await page.context().close();
     }
+    await page.context().close();
   }, 120_000);
 
   it('show the accountant that a customer’s notes are not shown to their role', async () => {

@@ -1,10 +1,13 @@
-import { mkdtempSync, rmSync } from 'node:fs';
+import { randomUUID } from 'node:crypto';
+import { copyFileSync, existsSync, mkdtempSync, renameSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { createApp } from '@busbar/api';
 import { DEMO_PASSWORD, migrateToLatest, openDatabase, seedDemoNetwork, type Db } from '@busbar/db';
+import { sql } from 'kysely';
 import { simpleParser } from 'mailparser';
 import request from 'supertest';
+import { inject } from 'vitest';
 import type { Config } from '../../apps/api/src/config.ts';
 import { hashPassword } from '../../apps/api/src/auth/password.ts';
 import { startMailCapture, type MailCapture } from '../../apps/api/src/mail/capture.ts';
@@ -12,6 +15,29 @@ import { createMailer } from '../../apps/api/src/mail/mailer.ts';
 
 /** A low scrypt cost keeps tests quick; the cost is stored in each hash, so nothing else changes. */
 const TEST_SCRYPT_LOG_N = 10;
+/** The harness's clock starts here, and the demo is seeded up to it. */
+const START = '2026-06-15T15:00:00Z';
+
+/**
+ * A database file migrated and seeded with the demo (with its history or without), made on first
+ * use in this run's folder (database-templates.ts) and then only copied: each harness still gets a
+ * file of its own, as fresh as one migrated and seeded for it, in milliseconds instead of seconds.
+ * Two workers may both make one at once; each renames a finished file into place, so either serves.
+ */
+async function seededTemplate(history: boolean): Promise<string> {
+  const file = join(inject('databaseTemplates'), history ? 'demo-history.sqlite' : 'demo.sqlite');
+  if (existsSync(file)) return file;
+  const draft = `${file}.${randomUUID()}`;
+  const db = openDatabase(draft);
+  await migrateToLatest(db);
+  const passwordHash = await hashPassword(DEMO_PASSWORD, TEST_SCRYPT_LOG_N);
+  await seedDemoNetwork(db, { passwordHash, now: new Date(START), history });
+  // A rollback journal leaves the whole database in the one file once it is closed.
+  await sql`pragma journal_mode = delete`.execute(db);
+  await db.destroy();
+  renameSync(draft, file);
+  return file;
+}
 
 export interface Harness {
   app: ReturnType<typeof createApp>;
@@ -41,12 +67,10 @@ export async function startHarness(
   demo: { history?: boolean } = {},
 ): Promise<Harness> {
   const dataDir = mkdtempSync(join(tmpdir(), 'busbar-test-'));
-  const clock = { now: new Date('2026-06-15T15:00:00Z') };
+  const clock = { now: new Date(START) };
   const now = () => clock.now;
+  copyFileSync(await seededTemplate(demo.history === true), join(dataDir, 'busbar.sqlite'));
   const db = openDatabase(join(dataDir, 'busbar.sqlite'));
-  await migrateToLatest(db);
-  const passwordHash = await hashPassword(DEMO_PASSWORD, TEST_SCRYPT_LOG_N);
-  await seedDemoNetwork(db, { passwordHash, now: now(), history: demo.history });
   const mail = await startMailCapture(0);
   const mailer = createMailer(db, `smtp://127.0.0.1:${mail.port}`, 'Busbar <no-reply@busbar.test>', now, keepSecretsInMailLog);
   const config: Config = {

@@ -40,12 +40,13 @@ export async function addDeliveredUnit(db: Db, locationId: number, { deliveredAt
     })
     .returning('id')
     .executeTakeFirstOrThrow();
+  const serialNumber = `SN-CLAIM-${n}`;
   const unit = await db
     .insertInto('buildItems')
-    .values({ buildId: build.id, catalogItemId: item.id, sku: item.sku, quantity: 1, serialNumber: `SN-CLAIM-${n}`, unitPriceCents: item.unitPriceCents, unitCostCents: item.unitCostCents, createdAt: deliveredAt })
+    .values({ buildId: build.id, catalogItemId: item.id, sku: item.sku, quantity: 1, serialNumber, unitPriceCents: item.unitPriceCents, unitCostCents: item.unitCostCents, createdAt: deliveredAt })
     .returning('id')
     .executeTakeFirstOrThrow();
-  return { buildId: build.id, buildItemId: unit.id, vendor, item };
+  return { buildId: build.id, buildItemId: unit.id, serialNumber, vendor, item };
 }
 
 /** An 8 × 6 px PNG (a copper swatch), small enough to send in every test. */
