@@ -2,6 +2,14 @@ import { call, type Person } from './client.ts';
 import { QUARTER_BY_WEEK, rollupPath, YEAR_BY_MONTH } from './rollups.ts';
 import { latency, type Latency } from './stats.ts';
 
+/**
+ * Last month, whole. The demo's first months hold a claim or two, so a span there would time an
+ * empty page against the network's full one; last month has a full page of claims in both.
+ */
+const now = new Date();
+const isoDay = (ms: number) => new Date(ms).toISOString().slice(0, 10);
+const LAST_MONTH = { from: isoDay(Date.UTC(now.getUTCFullYear(), now.getUTCMonth() - 1, 1)), to: isoDay(Date.UTC(now.getUTCFullYear(), now.getUTCMonth(), 0)) };
+
 /** The API request behind each list, search, detail and reliability screen, as the screen first asks it. */
 export const SCREENS: readonly (readonly [label: string, path: (ids: Ids) => string])[] = [
   ['builds, first page', () => '/api/builds'],
@@ -28,8 +36,8 @@ export const SCREENS: readonly (readonly [label: string, path: (ids: Ids) => str
   ['claims, sent to vendor', () => '/api/claims?status=sent_to_vendor'],
   ['claims, filtered by vendor', () => '/api/claims?vendorId=1'],
   ['claims, house batteries', () => '/api/claims?category=house_battery'],
-  ['claims, failed in a month', () => '/api/claims?failedFrom=2025-03-01&failedTo=2025-03-31'],
-  ['claims, logged in a month', () => '/api/claims?loggedFrom=2025-03-01&loggedTo=2025-03-31'],
+  ['claims, failed last month', () => `/api/claims?failedFrom=${LAST_MONTH.from}&failedTo=${LAST_MONTH.to}`],
+  ['claims, logged last month', () => `/api/claims?loggedFrom=${LAST_MONTH.from}&loggedTo=${LAST_MONTH.to}`],
   ['reliability, by item', () => '/api/reliability'],
   ['reliability, by vendor, a year', () => '/api/reliability?groupBy=vendor&from=2025-01&to=2025-12'],
   ['reliability, one item', (ids) => `/api/reliability/item/${ids.reliabilityItemId}`],

@@ -37,6 +37,7 @@ import * as indexUnfinishedExports from './035-index-unfinished-exports.ts';
 import * as createUnitExposureRegions from './036-create-unit-exposure-regions.ts';
 import * as indexClaimsItemLocation from './037-index-claims-item-location.ts';
 import * as createUnitExposureLifetime from './038-create-unit-exposure-lifetime.ts';
+import * as indexClaimDaysInQueueOrder from './039-index-claim-days-in-queue-order.ts';
 
 /** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
 export const migrations: Record<string, Migration> = {
@@ -78,4 +79,5 @@ export const migrations: Record<string, Migration> = {
   '036-create-unit-exposure-regions': createUnitExposureRegions,
   '037-index-claims-item-location': indexClaimsItemLocation,
   '038-create-unit-exposure-lifetime': createUnitExposureLifetime,
+  '039-index-claim-days-in-queue-order': indexClaimDaysInQueueOrder,
 };

@@ -23,7 +23,7 @@ describe('month close query plan', () => {
   it("reads a month's builds and claims by their local days", async () => {
     const text = (await plansOf(h.db, (db: Db) => liveCloses(db, '2026-05', 'all'))).flat().join('\n');
     expect(text).toMatch(/SEARCH builds USING INDEX builds_delivered_on \(delivered_on>\? AND delivered_on<\?\)/);
-    expect(text).toMatch(/SEARCH warranty_claims USING INDEX warranty_claims_logged_on \(logged_on>\? AND logged_on<\?\)/);
+    expect(text).toMatch(/SEARCH warranty_claims USING INDEX warranty_claims_logged_queue \(logged_on>\? AND logged_on<\?\)/);
     expect(text).not.toMatch(/SCAN (builds|warranty_claims)\b/);
   });
 });

@@ -2,8 +2,8 @@ import type { Db } from '@busbar/db';
 import { SEARCH_CAP, type BuildEventView, type BuildItemView, type BuildQuery, type BuildStatus, type BuildView, type Page } from '@busbar/shared';
 import { sql, type Expression, type SqlBool } from 'kysely';
 import type { LocationScope } from '../access/locations.ts';
-import { afterKey, cappedCount, decodeCursor, encodeCursor, offsetOf, type Keyset } from './paging.ts';
-import { buildTextQuery, countCapFor, isIndexable, shortBuildTextMatch } from './search.ts';
+import { afterKey, cappedCount, type Count, decodeCursor, encodeCursor, offsetOf, type Keyset } from './paging.ts';
+import { buildTextQuery, cappedMatches, countCapFor, isIndexable, newestFirst, shortBuildTextMatch } from './search.ts';
 
 export type BuildRow = Required<Omit<BuildView, 'marginCents'>>;
 
@@ -58,21 +58,26 @@ function filteredBuilds(db: Db, scope: LocationScope, query: BuildQuery) {
 }
 
 /**
- * The builds a list shows. Searched text of 3 or more characters walks the full-text index newest
- * first, in the scope's locations, and keeps the first `reach` builds that pass the other filters:
- * a common name costs no more than a rare one.
+ * The builds a list shows and how many there are. Searched text of 3 or more characters walks the
+ * full-text index newest first, in the scope's locations, once: the first SEARCH_CAP + 1 builds that
+ * pass the other filters are the list (the newest SEARCH_CAP) and its count (one more tells there
+ * are more), so a common name costs no more than a rare one.
  */
-function matchingBuilds(db: Db, scope: LocationScope, query: BuildQuery, reach: number) {
+async function matchingBuilds(db: Db, scope: LocationScope, query: BuildQuery): Promise<{ matching: ReturnType<typeof filteredBuilds>; count: Count }> {
   const filtered = filteredBuilds(db, scope, query);
-  if (!query.q) return filtered;
-  if (!isIndexable(query.q)) return filtered.where(shortBuildTextMatch('b.id', query.q));
-  const newest = filtered
-    .innerJoin(sql<{ rowid: number }>`build_search`.as('s'), 's.rowid', 'b.id')
-    .where(sql<SqlBool>`s.build_search match ${buildTextQuery(query.q, scope, statusesOf(query))}`)
-    .select('b.id')
-    .orderBy('s.rowid', 'desc')
-    .limit(reach);
-  return db.selectFrom('builds as b').where('b.id', 'in', newest);
+  if (query.q && isIndexable(query.q)) {
+    const newest = await filtered
+      .innerJoin(sql<{ rowid: number }>`build_search`.as('s'), 's.rowid', 'b.id')
+      .where(sql<SqlBool>`s.build_search match ${buildTextQuery(query.q, scope, statusesOf(query))}`)
+      .select('b.id')
+      .orderBy(newestFirst(scope), 'desc')
+      .limit(SEARCH_CAP + 1)
+      .execute();
+    const { ids, count } = cappedMatches(newest);
+    return { matching: db.selectFrom('builds as b').where((eb) => (ids.length === 0 ? eb.lit(false) : eb('b.id', 'in', ids))), count };
+  }
+  const matching = query.q ? filtered.where(shortBuildTextMatch('b.id', query.q)) : filtered;
+  return { matching, count: await cappedCount(db, matching.select('b.id'), countCapFor(query.q)) };
 }
 
 /**
@@ -84,12 +89,11 @@ export async function listBuilds(db: Db, scope: LocationScope, query: BuildQuery
   const paging = { page: query.page, pageSize: query.pageSize };
   if (scope !== 'all' && scope.length === 0) return { items: [], total: 0, totalCapped: false, nextCursor: null, ...paging };
   const sortColumn = SORT_COLUMNS[query.sort];
-  // The list shows the newest SEARCH_CAP matches of a text; one more tells the count there are more.
-  const matching = matchingBuilds(db, scope, query, SEARCH_CAP);
+  const { matching, count } = await matchingBuilds(db, scope, query);
   let pageIds = matching.select(['b.id', `${sortColumn} as sortValue`]).orderBy(sortColumn, query.order).orderBy('b.id', query.order).limit(query.pageSize);
   if (query.cursor) pageIds = pageIds.where(afterKey(sortColumn, 'b.id', query.order, decodeCursor(query.cursor), query.sort === 'bookedFor'));
   else pageIds = pageIds.offset(offsetOf(query.page, query.pageSize));
-  const [keys, count] = await Promise.all([pageIds.execute(), cappedCount(db, matchingBuilds(db, scope, query, SEARCH_CAP + 1).select('b.id'), countCapFor(query.q))]);
+  const keys = await pageIds.execute();
   const rows = keys.length === 0 ? [] : await buildsWithNames(db).where('b.id', 'in', keys.map((k) => k.id)).execute();
   const byId = new Map(rows.map((row) => [row.id, row]));
   const last = keys.length === query.pageSize ? keys.at(-1) : undefined;

@@ -2,8 +2,8 @@ import type { Database, Db } from '@busbar/db';
 import { sql, type Expression, type ExpressionBuilder, type SqlBool } from 'kysely';
 import { SEARCH_CAP, type CustomerBody, type CustomerView, type Page } from '@busbar/shared';
 import type { LocationScope } from '../access/locations.ts';
-import { cappedCount, offsetOf } from './paging.ts';
-import { contains, countCapFor, inPlaces, isIndexable, phrase } from './search.ts';
+import { cappedCount, offsetOf, type Count } from './paging.ts';
+import { cappedMatches, contains, countCapFor, inPlaces, isIndexable, newestFirst, phrase } from './search.ts';
 
 const CUSTOMER_COLUMNS = [
   'id', 'locationId', 'name', 'email', 'phone', 'addressLine1', 'addressLine2', 'city', 'region', 'postalCode', 'notes', 'version',
@@ -41,38 +41,47 @@ function textMatches(eb: ExpressionBuilder<Database, 'customers'>, filter: Custo
   return eb.or(terms);
 }
 
+/** The customers of the scope; `walk` keeps the location index out of it (see inScope). */
+const inScopeOf = (db: Db, scope: LocationScope, walk: boolean) => db.selectFrom('customers').where((eb) => inScope(eb, scope, walk));
+
 /**
- * Customers of the filter. Text of 3 or more characters walks the full-text index newest first
- * for candidates and keeps the first `reach` whose name, or e-mail and phone where the person
- * reads them, contain it; shorter text is matched row by row.
+ * Customers of the filter and how many there are. Text of 3 or more characters walks the full-text
+ * index newest first, once: of the candidates whose name, or e-mail and phone where the person reads
+ * them, contain it, the first SEARCH_CAP + 1 are the list (the newest SEARCH_CAP) and its count (one
+ * more tells there are more). Shorter text is matched row by row.
  */
-function matchingCustomers(db: Db, filter: CustomerFilter, reach: number, walkNames = false) {
+async function matchingCustomers(db: Db, filter: CustomerFilter): Promise<{ matching: (walk: boolean) => ReturnType<typeof inScopeOf>; count: Count }> {
   const { q, scope } = filter;
-  const inIt = db.selectFrom('customers').where((eb) => inScope(eb, scope, walkNames));
-  if (!q) return inIt;
-  if (!isIndexable(q)) return inIt.where((eb) => textMatches(eb, filter, q));
+  if (!q || !isIndexable(q)) {
+    const matching = (walk: boolean) => (q ? inScopeOf(db, scope, walk).where((eb) => textMatches(eb, filter, q)) : inScopeOf(db, scope, walk));
+    return { matching, count: await cappedCount(db, matching(false).select('id'), countCapFor(q)) };
+  }
   // The index answers for a field the person reads wherever they read customers; one they read
   // at some of those places only is looked for there, each candidate checked again with LIKE.
   const fields = [['email', filter.emailScope], ['phone', filter.phoneScope]] as const;
   const partly = fields.some(([, at]) => at !== 'all' && at.length > 0 && !sameScope(at, scope));
   const columns = ['name', ...fields.filter(([, at]) => at === 'all' || at.length > 0).map(([name]) => name)];
-  const newest = (partly ? inIt.where((eb) => textMatches(eb, filter, q)) : inIt)
+  const candidates = inScopeOf(db, scope, false);
+  const newest = await (partly ? candidates.where((eb) => textMatches(eb, filter, q)) : candidates)
     .innerJoin(sql<{ rowid: number }>`customer_search`.as('s'), 's.rowid', 'customers.id')
     .where(sql<SqlBool>`s.customer_search match ${inPlaces(`{${columns.join(' ')}} : ${phrase(q)}`, scope)}`)
     .select('customers.id')
-    .orderBy('s.rowid', 'desc')
-    .limit(reach);
-  return db.selectFrom('customers').where('id', 'in', newest);
+    .orderBy(newestFirst(scope), 'desc')
+    .limit(SEARCH_CAP + 1)
+    .execute();
+  const { ids, count } = cappedMatches(newest);
+  return { matching: () => db.selectFrom('customers').where((eb) => (ids.length === 0 ? eb.lit(false) : eb('id', 'in', ids))), count };
 }
 
 /** Customers by name, a page at a time; a text search lists its newest SEARCH_CAP matches. */
 export async function listCustomers(db: Db, filter: CustomerFilter): Promise<Page<CustomerView>> {
-  const { page, pageSize, q, scope } = filter;
+  const { page, pageSize, scope } = filter;
   if (scope !== 'all' && scope.length === 0) return { items: [], total: 0, totalCapped: false, page, pageSize };
-  const count = await cappedCount(db, matchingCustomers(db, filter, SEARCH_CAP + 1).select('id'), countCapFor(q));
-  // One shop reads its names in order from its own index; several shops' names are merged by a sort or a walk.
-  const walkNames = scope !== 'all' && scope.length > 1 && (count.totalCapped || count.total > SORT_MAX) && !(q && isIndexable(q));
-  const items = await matchingCustomers(db, filter, SEARCH_CAP, walkNames)
+  const { matching, count } = await matchingCustomers(db, filter);
+  // One shop reads its names in order from its own index; several shops' names are merged by a sort
+  // or a walk. A text search's few matches are sorted whatever the scope.
+  const walkNames = scope !== 'all' && scope.length > 1 && (count.totalCapped || count.total > SORT_MAX);
+  const items = await matching(walkNames)
     .select(CUSTOMER_COLUMNS)
     .orderBy('name')
     .orderBy('id')

@@ -12,11 +12,17 @@ export function offsetOf(page: number, pageSize: number): number {
   return offset;
 }
 
+/** How many rows a list holds, counted no further than a cap: past it, `totalCapped` says there are more. */
+export interface Count {
+  total: number;
+  totalCapped: boolean;
+}
+
 /**
  * How many rows a query finds, counting no further than COUNT_CAP: counting every row of a
  * network-wide list would read the whole table on every request.
  */
-export async function cappedCount(db: Db, rows: SelectQueryBuilder<any, any, any>, cap = COUNT_CAP): Promise<{ total: number; totalCapped: boolean }> {
+export async function cappedCount(db: Db, rows: SelectQueryBuilder<any, any, any>, cap = COUNT_CAP): Promise<Count> {
   const { n } = await db
     .selectFrom(rows.clearOrderBy().limit(cap + 1).as('matching'))
     .select((eb) => eb.fn.countAll<number>().as('n'))

@@ -1,6 +1,7 @@
 import { COUNT_CAP, SEARCH_CAP } from '@busbar/shared';
-import { sql, type Expression, type SqlBool } from 'kysely';
+import { sql, type Expression, type RawBuilder, type SqlBool } from 'kysely';
 import type { LocationScope } from '../access/locations.ts';
+import type { Count } from './paging.ts';
 
 /** SQLite's LIKE has no escape character unless a query names one: `\` here, so % and _ are literal. */
 const literal = (text: string) => text.replace(/[\\%_]/g, (c) => `\\${c}`);
@@ -36,6 +37,23 @@ export const narrowsByPlace = (scope: LocationScope): scope is number[] => scope
 export function inPlaces(query: string, scope: LocationScope): string {
   if (!narrowsByPlace(scope)) return query;
   return `(${query}) AND place : (${scope.map((id) => `"@${id}@"`).join(' OR ')})`;
+}
+
+/**
+ * The full-text index's row id as a search's matches are read newest first (`s` is the index).
+ * FTS5 reads a match list backwards slower than forwards: where place markers keep the matches to a
+ * few shops', reading them forwards and sorting them is quicker; across many shops the backward
+ * walk stops at the cap instead of reading every match in the network.
+ */
+export const newestFirst = (scope: LocationScope): RawBuilder<number> => (narrowsByPlace(scope) ? sql<number>`+s.rowid` : sql<number>`s.rowid`);
+
+/**
+ * A list's ids and count from the newest SEARCH_CAP + 1 matches of a search, read once: the list
+ * is the newest SEARCH_CAP, and one more than that tells the count there are more.
+ */
+export function cappedMatches(newest: readonly { id: number }[]): { ids: number[]; count: Count } {
+  const ids = newest.slice(0, SEARCH_CAP).map((row) => row.id);
+  return { ids, count: { total: ids.length, totalCapped: newest.length > SEARCH_CAP } };
 }
 
 /**

@@ -2,16 +2,16 @@ import type { Db } from '@busbar/db';
 import { SEARCH_CAP, type Page, type SerialMatch } from '@busbar/shared';
 import { sql, type SqlBool } from 'kysely';
 import type { LocationScope } from '../access/locations.ts';
-import { cappedCount, offsetOf } from './paging.ts';
-import { contains, inPlaces, narrowsByPlace, phrase } from './search.ts';
+import { offsetOf } from './paging.ts';
+import { cappedMatches, contains, inPlaces, narrowsByPlace, newestFirst, phrase } from './search.ts';
 
 /**
- * The first `reach` installed units whose serial number contains `q` (3 or more characters, any
- * case), in the scope, newest build first. The full-text index over builds finds the builds that
- * hold such a serial as it walks them newest first, so a common piece of a number costs no more
- * than a rare one; LIKE then keeps the units of each build whose own number holds the text.
+ * The newest SEARCH_CAP + 1 installed units whose serial number contains `q` (3 or more characters,
+ * any case), in the scope, newest build first. The full-text index over builds finds the builds
+ * that hold such a serial as it walks them newest first, so a common piece of a number costs no
+ * more than a rare one; LIKE then keeps the units of each build whose own number holds the text.
  */
-function matchingUnits(db: Db, scope: LocationScope, q: string, reach: number) {
+function newestUnits(db: Db, scope: LocationScope, q: string) {
   let units = db
     .selectFrom(sql<{ rowid: number }>`build_search`.as('s'))
     .innerJoin('buildItems as i', 'i.buildId', 's.rowid')
@@ -19,7 +19,7 @@ function matchingUnits(db: Db, scope: LocationScope, q: string, reach: number) {
     .where(contains('i.serialNumber', q));
   // A good part of the network: its builds come often enough among the newest matches.
   if (scope !== 'all' && !narrowsByPlace(scope)) units = units.innerJoin('builds as b', 'b.id', 's.rowid').where('b.locationId', 'in', scope);
-  return units.select('i.id').orderBy('s.rowid', 'desc').limit(reach);
+  return units.select('i.id').orderBy(newestFirst(scope), 'desc').limit(SEARCH_CAP + 1).execute();
 }
 
 /**
@@ -29,18 +29,18 @@ function matchingUnits(db: Db, scope: LocationScope, q: string, reach: number) {
 export async function findSerials(db: Db, scope: LocationScope, filter: { q: string; page: number; pageSize: number }): Promise<Page<SerialMatch>> {
   const { q, page, pageSize } = filter;
   if (scope !== 'all' && scope.length === 0) return { items: [], total: 0, totalCapped: false, page, pageSize };
-  const [keys, count] = await Promise.all([
-    db
-      .selectFrom('buildItems as i')
-      .select('i.id')
-      .where('i.id', 'in', matchingUnits(db, scope, q, SEARCH_CAP))
-      .orderBy(sql`${sql.ref('i.serialNumber')} collate nocase`)
-      .orderBy('i.id')
-      .limit(pageSize)
-      .offset(offsetOf(page, pageSize))
-      .execute(),
-    cappedCount(db, matchingUnits(db, scope, q, SEARCH_CAP + 1), SEARCH_CAP),
-  ]);
+  const offset = offsetOf(page, pageSize);
+  const { ids, count } = cappedMatches(await newestUnits(db, scope, q));
+  if (ids.length === 0) return { items: [], ...count, page, pageSize };
+  const keys = await db
+    .selectFrom('buildItems as i')
+    .select('i.id')
+    .where('i.id', 'in', ids)
+    .orderBy(sql`${sql.ref('i.serialNumber')} collate nocase`)
+    .orderBy('i.id')
+    .limit(pageSize)
+    .offset(offset)
+    .execute();
   if (keys.length === 0) return { items: [], ...count, page, pageSize };
   const rows = await db
     .selectFrom('buildItems as i')
