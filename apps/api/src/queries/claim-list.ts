@@ -7,10 +7,12 @@ import { cappedCount, offsetOf } from './paging.ts';
 
 type Claims = ExpressionBuilder<any, any>;
 
-/** The locations of each time zone: "today" is a day at the claim's own location. */
-async function locationsByZone(db: Db): Promise<Map<string, number[]>> {
+/** The scope's locations by time zone: "today" is a day at the claim's own location. */
+async function locationsByZone(db: Db, scope: LocationScope): Promise<Map<string, number[]>> {
   const zones = new Map<string, number[]>();
-  for (const l of await db.selectFrom('locations').select(['id', 'timeZone']).execute()) zones.set(l.timeZone, [...(zones.get(l.timeZone) ?? []), l.id]);
+  let locations = db.selectFrom('locations').select(['id', 'timeZone']);
+  if (scope !== 'all') locations = locations.where('id', 'in', scope);
+  for (const l of await locations.execute()) zones.set(l.timeZone, [...(zones.get(l.timeZone) ?? []), l.id]);
   return zones;
 }
 
@@ -37,7 +39,7 @@ async function matchingClaims(db: Db, scope: LocationScope, query: ClaimQuery, n
     if (query.category !== undefined) items = items.where('category', '=', query.category);
     catalogIds = (await items.execute()).map((i) => i.id);
   }
-  const zones = query.overdue ? await locationsByZone(db) : new Map<string, number[]>();
+  const zones = query.overdue ? await locationsByZone(db, scope) : new Map<string, number[]>();
   return db.selectFrom('warrantyClaims as w').where((eb) => {
     const conditions: Expression<SqlBool>[] = [];
     if (scope !== 'all') conditions.push(eb('w.locationId', 'in', scope));
