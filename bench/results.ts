@@ -25,12 +25,14 @@ const cell = (figure: ScreenFigure | undefined) =>
 const ratio = (demo: ScreenFigure | undefined, network: ScreenFigure | undefined) =>
   demo && network && 'p95' in demo && 'p95' in network ? `${(network.p95 / demo.p95).toFixed(1)}×` : '–';
 
+const rowsOnPage = (figure: ScreenFigure | undefined) => (figure && 'rows' in figure && figure.rows !== null ? String(figure.rows) : '–');
+
 function screenTable(demo: SizeRun, network: SizeRun, who: Who): string[] {
   const rows = SCREENS.map(([label]) => {
     const [d, n] = [demo.screens[who].get(label), network.screens[who].get(label)];
-    return `| ${label} | ${cell(d)} | ${cell(n)} | ${ratio(d, n)} |`;
+    return `| ${label} | ${cell(d)} | ${cell(n)} | ${ratio(d, n)} | ${rowsOnPage(d)} / ${rowsOnPage(n)} |`;
   });
-  return [`| screen (${who}) | demo p50 / p95 / p99 ms | network p50 / p95 / p99 ms | p95 ratio |`, '|---|---|---|---|', ...rows];
+  return [`| screen (${who}) | demo p50 / p95 / p99 ms | network p50 / p95 / p99 ms | p95 ratio | rows in the answer, demo / network |`, '|---|---|---|---|---|', ...rows];
 }
 
 const sizeLine = ({ size }: SizeRun) =>

@@ -17,7 +17,8 @@ export const SCREENS: readonly (readonly [label: string, path: (ids: Ids) => str
   ['builds, booked, by date', () => '/api/builds?status=booked&sort=bookedFor&order=asc'],
   ['builds, text search: customer', () => '/api/builds?q=Holloway'],
   ['builds, text search: serial', () => '/api/builds?q=LK2506'],
-  ['builds, page 20', () => '/api/builds?page=20'],
+  // Rows 476 to 500: a page the demo's lead also has (540 builds in the shop).
+  ['builds, page 20', () => '/api/builds?page=20&pageSize=25'],
   ['build detail', (ids) => `/api/builds/${ids.buildId}`],
   ['build detail, power plan', (ids) => `/api/builds/${ids.buildId}/plan`],
   ['serial search, prefix', () => '/api/serials?q=NV25'],
@@ -60,8 +61,19 @@ export interface Ids {
   regionId: number;
 }
 
-/** Figures of one screen for one person: latencies, or the refusal they get (a lead reads no audit log). */
-export type ScreenFigure = Latency | { status: number };
+/**
+ * Figures of one screen for one person: latencies and how many rows the answer held (a short page
+ * at the demo's size is not like for like with a full one; a report's rows grow with the shops), or
+ * the refusal they get (a lead reads no audit log).
+ */
+export type ScreenFigure = (Latency & { rows: number | null }) | { status: number };
+
+/** The rows of a list's page, a report's rows or a month close's shops; null for a single record. */
+function rowsOf(body: string): number | null {
+  const answer = JSON.parse(body) as Record<string, unknown>;
+  const rows = [answer.items, answer.rows, answer.locations].find(Array.isArray);
+  return rows ? rows.length : null;
+}
 
 /** The first record of one of the person's lists. */
 async function firstOf(person: Person, list: string): Promise<number> {
@@ -97,7 +109,7 @@ export async function measureScreens(person: Person, samples: number, onScreen: 
       if (answer.status !== 200) throw new Error(`${label} answered ${answer.status} while timed: ${answer.body.slice(0, 200)}`);
       times.push(answer.ms);
     }
-    figures.set(label, latency(times));
+    figures.set(label, { ...latency(times), rows: rowsOf(first.body) });
   }
   return figures;
 }
