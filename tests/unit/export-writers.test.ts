@@ -32,7 +32,7 @@ describe('the workbook writer', () => {
   it('goes on in a second and third sheet past its row limit, each with its own totals row', async () => {
     const file = join(dir, 'parts.xlsx');
     // Five rows a sheet: a header, three rows and the totals row.
-    const writer = xlsxWriter(file, 5);
+    const writer = await xlsxWriter(file, 5);
     await writer.sheet('Lines', COLUMNS, inBatches(), noProgress);
     await writer.finish();
     const book = XLSX.read(readFileSync(file), { type: 'buffer', cellFormula: true });

@@ -1,5 +1,4 @@
 import { FAILURE_MODE_LABELS, type FailureMode } from '@busbar/shared';
-import sharp from 'sharp';
 
 /** What the demo's files show of a claim. */
 export interface DemoClaimFacts {
@@ -16,7 +15,7 @@ export interface DemoClaimFacts {
 const escapeXml = (text: string) => text.replace(/[<>&"']/g, (c) => `&#${c.charCodeAt(0)};`);
 
 /** A drawn stand-in for a photo of the failed unit (no real photos in the demo): the unit's box with its claim, SKU and serial number. */
-export function demoPhoto(claim: DemoClaimFacts): Promise<Buffer> {
+export async function demoPhoto(claim: DemoClaimFacts): Promise<Buffer> {
   const label = (y: number, size: number, text: string, fill = '#f3efe9') =>
     `<text x="160" y="${y}" font-family="sans-serif" font-size="${size}" fill="${fill}" text-anchor="middle">${escapeXml(text)}</text>`;
   const svg = `<svg xmlns="http://www.w3.org/2000/svg" width="320" height="240">
@@ -28,6 +27,8 @@ export function demoPhoto(claim: DemoClaimFacts): Promise<Buffer> {
     ${label(166, 13, FAILURE_MODE_LABELS[claim.failureMode])}
     ${label(222, 11, 'Demo photo drawn by Busbar', '#d9dce0')}
   </svg>`;
+  // Loaded here, not with the app: only the demo's first seeding draws photos.
+  const { default: sharp } = await import('sharp');
   return sharp(Buffer.from(svg)).png().toBuffer();
 }
 

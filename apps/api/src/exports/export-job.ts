@@ -71,7 +71,7 @@ export async function runExport(spec: ExportSpec): Promise<void> {
         // Lets the thread's other work (a report someone is waiting for) run between batches.
         await new Promise((resolve) => setImmediate(resolve));
       };
-      const writer = spec.format === 'xlsx' ? xlsxWriter(part) : csvWriter(part);
+      const writer = spec.format === 'xlsx' ? await xlsxWriter(part) : csvWriter(part);
       for (const s of sheets) await writer.sheet(EXPORT_SHEET_NAMES[s.key], shown(s.columns, spec.hidden), s.batches(), wrote);
       await writer.finish();
       await sql`commit`.execute(trx);

@@ -1,7 +1,7 @@
 import { once } from 'node:events';
 import type { Writable } from 'node:stream';
 import { setTimeout as sleep } from 'node:timers/promises';
-import ExcelJS from 'exceljs';
+import type ExcelJS from 'exceljs';
 import type { CellKind, Column } from './columns.ts';
 import { TOTAL_LABEL } from './columns.ts';
 import { inUnits, Totals } from './cells.ts';
@@ -62,10 +62,12 @@ const forgetFormulas = (sheet: ExcelJS.Worksheet) => {
 /**
  * Writes a workbook as it goes, a row at a time (exceljs's streaming writer), so memory stays flat
  * however many rows: each sheet with its header row frozen and filtered, widths and number formats
- * set, and a totals row of SUM formulas whose cached values are the exact sums.
+ * set, and a totals row of SUM formulas whose cached values are the exact sums. The workbook library
+ * is loaded on the first workbook: it is about 18 MB in each process that never writes one.
  */
-export function xlsxWriter(file: string, sheetRows = SHEET_ROWS): ExportWriter {
-  const book = new ExcelJS.stream.xlsx.WorkbookWriter({ filename: file, useStyles: true, useSharedStrings: false });
+export async function xlsxWriter(file: string, sheetRows = SHEET_ROWS): Promise<ExportWriter> {
+  const { default: excel } = await import('exceljs');
+  const book = new excel.stream.xlsx.WorkbookWriter({ filename: file, useStyles: true, useSharedStrings: false });
   book.creator = 'Busbar';
 
   /** A sheet begun: its header written; rows go on until `end` writes its totals. */
