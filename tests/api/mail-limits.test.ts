@@ -2,11 +2,11 @@ import type { ClaimDetail } from '@busbar/shared';
 import { simpleParser } from 'mailparser';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { startMailCapture } from '../../apps/api/src/mail/capture.ts';
-import { countMail, reinviteLimits, vendorRequestLimits } from '../../apps/api/src/mail/limits.ts';
+import { countMail, newInviteLimits, reinviteLimits, vendorRequestLimits } from '../../apps/api/src/mail/limits.ts';
 import { createMailer } from '../../apps/api/src/mail/mailer.ts';
 import { demoIds, startHarness, type Agent, type Harness } from '../support/api-harness.ts';
 import { addDeliveredUnit, SMALL_PNG, uploadEvidence } from '../support/claim-fixtures.ts';
-import { addPerson, SIGN_INS } from '../support/staff-fixtures.ts';
+import { addPerson, freshEmail, SIGN_INS } from '../support/staff-fixtures.ts';
 
 let h: Harness;
 beforeEach(async () => {
@@ -49,6 +49,36 @@ describe('re-invites', () => {
     expect(refused.body.error.message).toBe('You have already sent 20 invites again in the last hour. Try again in 60 minutes.');
     expect(mailsTo(person.email)).toBe(0);
     expect((await (await h.signedIn(SIGN_INS.owner)).post(`/api/staff/${person.id}/invite`)).status).toBe(204);
+  });
+});
+
+describe('new invites', () => {
+  it('lets one sender invite at most 50 new people an hour, writing no person when refused', async () => {
+    const lead = await h.signedIn(SIGN_INS.lead);
+    const den = (await demoIds(h.db)).location('DEN');
+    const invite = (email: string) => lead.post('/api/staff/invites').send({ email, name: 'Quillon Tarrant', role: 'technician', locationId: den });
+    const first = freshEmail('new-hire');
+    expect((await invite(first)).status).toBe(201);
+    const leadId = (await demoIds(h.db)).user(SIGN_INS.lead);
+    for (let other = 2; other <= 50; other++) await countMail(h.db, newInviteLimits(leadId), h.clock.now);
+    const email = freshEmail('new-hire');
+    const refused = await invite(email);
+    expect(refused.status).toBe(429);
+    expect(refused.body.error).toEqual({ code: 'too_many_mails', message: 'You have already invited 50 new people in the last hour. Try again in 60 minutes.' });
+    expect(mailsTo(email)).toBe(0);
+    expect(await h.db.selectFrom('users').select('id').where('email', '=', email).execute()).toEqual([]);
+    // The limit is the sender's: the owner still invites.
+    expect((await (await h.signedIn(SIGN_INS.owner)).post('/api/staff/invites').send({ email, name: 'Quillon Tarrant', role: 'technician', locationId: den })).status).toBe(201);
+    later(61);
+    expect((await invite(freshEmail('new-hire'))).status).toBe(201);
+  });
+
+  it('does not count an invite refused for its address', async () => {
+    const lead = await h.signedIn(SIGN_INS.lead);
+    const den = (await demoIds(h.db)).location('DEN');
+    const taken = await lead.post('/api/staff/invites').send({ email: SIGN_INS.tech, name: 'Someone', role: 'technician', locationId: den });
+    expect(taken.status).toBe(409);
+    expect(await h.db.selectFrom('mailSends').select('id').execute()).toEqual([]);
   });
 });
 

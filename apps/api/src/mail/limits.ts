@@ -17,6 +17,11 @@ export const reinviteLimits = (personId: number, senderId: number): MailLimit[] 
   { key: `reinvite:sender:${senderId}`, max: 20, refusal: 'You have already sent 20 invites again in the last hour.' },
 ];
 
+/** One sender invites at most 50 new people an hour: enough to staff a new shop, not to flood addresses. */
+export const newInviteLimits = (senderId: number): MailLimit[] => [
+  { key: `invite:sender:${senderId}`, max: 50, refusal: 'You have already invited 50 new people in the last hour.' },
+];
+
 /** A claim's return request is tried at most 3 times an hour, and one person sends at most 60 return requests an hour. */
 export const vendorRequestLimits = (claimId: number, senderId: number): MailLimit[] => [
   { key: `vendor-request:claim:${claimId}`, max: 3, refusal: "This claim's return request has already been tried 3 times in the last hour." },

@@ -7,7 +7,7 @@ import { hashPassword } from '../auth/password.ts';
 import { checkNewPassword } from '../auth/password-rule.ts';
 import type { AppContext } from '../context.ts';
 import { conflict, forbidden, HttpError, notFound } from '../errors.ts';
-import { countMail, reinviteLimits } from '../mail/limits.ts';
+import { countMail, newInviteLimits, reinviteLimits } from '../mail/limits.ts';
 import { viewerOf } from '../middleware/session.ts';
 import { validate } from '../middleware/validate.ts';
 import { insertAssignment } from '../queries/assignments.ts';
@@ -71,6 +71,7 @@ export function invitesRouter(ctx: AppContext): { staff: Router; public: Router 
       if (await emailTaken(db, body.email)) {
         throw conflict('Someone with this e-mail already has an account: grant them the role instead', { email: 'Already has an account' });
       }
+      await countMail(db, newInviteLimits(viewer.id), now());
       const userId = await sendInvite(body, viewer, body.role, async (trx) => {
         const at = now().toISOString();
         const id = await insertInvitedUser(trx, { email: body.email, name: body.name, createdAt: at });
