@@ -112,6 +112,7 @@ describe('audit log', () => {
       { action: 'session.locked', entityId: person, after: origin },
       { action: 'session.sign_out', entityId: person, after: origin },
       { action: 'person.password_change', entityId: person, after: origin },
+      { action: 'person.password_reset_link', entityId: person, after: origin },
       { action: 'person.password_reset', entityId: person, after: origin },
       { action: 'gadget.recalibrate', entityId: 42, after: { dial: 3 } },
     ];
@@ -127,6 +128,7 @@ describe('audit log', () => {
       'session.locked': ['Sign-in locked for Audra Vell after repeated failures', ...where],
       'session.sign_out': ['Audra Vell signed out', ...where],
       'person.password_change': ['Audra Vell changed their password', ...where],
+      'person.password_reset_link': ['A link to choose a new password was sent to Audra Vell', ...where],
       'person.password_reset': ['Password of Audra Vell was reset', ...where],
       'gadget.recalibrate': ['Gadget recalibrate: Gadget 42', 'Dial: 3'],
     });

@@ -57,9 +57,12 @@ describe('password reset by e-mail', () => {
     expect(await signIn(SIGN_INS.tech, NEW_PASSWORD)).toBe(200);
     const again = await accept(token, 'another fine long passphrase');
     expect([again.status, again.body]).toEqual([404, USED]);
-    const audit = await h.db.selectFrom('auditLog').select(['actorId', 'entityId', 'after']).where('action', '=', 'person.password_reset').execute();
+    const audit = await h.db.selectFrom('auditLog').select(['action', 'actorId', 'entityId', 'after']).where('action', 'like', 'person.password_reset%').orderBy('id').execute();
+    const from = { address: expect.stringMatching(/127\.0\.0\.1$/), userAgent: null };
     expect(audit.map((r) => ({ ...r, after: JSON.parse(r.after!) }))).toEqual([
-      { actorId: ids.user(SIGN_INS.tech), entityId: ids.user(SIGN_INS.tech), after: { sessionsEnded: 1, address: expect.stringMatching(/127\.0\.0\.1$/), userAgent: null } },
+      // The link, asked for by someone not signed in, then the reset by the person.
+      { action: 'person.password_reset_link', actorId: null, entityId: ids.user(SIGN_INS.tech), after: from },
+      { action: 'person.password_reset', actorId: ids.user(SIGN_INS.tech), entityId: ids.user(SIGN_INS.tech), after: { sessionsEnded: 1, ...from } },
     ]);
   });
 
@@ -77,6 +80,8 @@ describe('password reset by e-mail', () => {
     await mailsTo(SIGN_INS.lead, 1);
     expect(h.mail.messages.map((m) => m.to)).toEqual([[SIGN_INS.lead]]);
     expect(await h.db.selectFrom('passwordResets').select('userId').execute()).toEqual([{ userId: (await demoIds(h.db)).user(SIGN_INS.lead) }]);
+    // Only a link sent is audited: the audit log says nothing of the other addresses either.
+    expect(await h.db.selectFrom('auditLog').select('entityId').where('action', '=', 'person.password_reset_link').execute()).toEqual([{ entityId: (await demoIds(h.db)).user(SIGN_INS.lead) }]);
   });
 
   it('refuses an expired link and a link of someone deactivated since', async () => {

@@ -153,6 +153,8 @@ export function auditWords(row: AuditRowWords, names: AuditNames, options: Words
       return says(`Reactivated ${person}`);
     case 'person.password_change':
       return says(`${person} changed their password`, originWords(after));
+    case 'person.password_reset_link':
+      return says(`A link to choose a new password was sent to ${person}`, originWords(after));
     case 'person.password_reset':
       return says(`Password of ${person} was reset`, originWords(after));
     case 'session.sign_in':

@@ -1,6 +1,6 @@
 import { randomBytes } from 'node:crypto';
 import { acceptPasswordResetBody, passwordResetRequestBody, resetTokenParams, type PasswordResetView } from '@busbar/shared';
-import { Router } from 'express';
+import { Router, type Request } from 'express';
 import { checkNewPassword } from '../auth/password-rule.ts';
 import { hashPassword } from '../auth/password.ts';
 import { auditSignInEvent } from '../auth/sign-in-events.ts';
@@ -35,11 +35,17 @@ export function passwordResetsRouter(ctx: AppContext): Router {
   const limits = config.passwordReset;
   const router = Router();
 
-  /** Stores a fresh link, then mails it (stored first, so the link works the moment the mail arrives). */
-  async function sendLink(user: { id: number; email: string; name: string }): Promise<void> {
+  /**
+   * Stores a fresh link and audits it, with where the request came from, then mails it (stored
+   * first, so the link works the moment the mail arrives).
+   */
+  async function sendLink(user: { id: number; email: string; name: string }, req: Request): Promise<void> {
     const token = randomBytes(32).toString('base64url');
     const at = now();
-    await insertPasswordReset(db, { userId: user.id, token, createdAt: at.toISOString(), expiresAt: new Date(at.getTime() + limits.ttlMs).toISOString() });
+    await db.transaction().execute(async (trx) => {
+      await insertPasswordReset(trx, { userId: user.id, token, createdAt: at.toISOString(), expiresAt: new Date(at.getTime() + limits.ttlMs).toISOString() });
+      await auditSignInEvent(trx, req, at, { action: 'person.password_reset_link', actorId: null, userId: user.id });
+    });
     const link = `${config.publicUrl}/reset-password?token=${token}`;
     await mailer.send({ to: user.email, subject: 'Choose a new Busbar password', text: resetText(user.name, link, Math.round(limits.ttlMs / 60_000)), secret: token });
   }
@@ -58,7 +64,7 @@ export function passwordResetsRouter(ctx: AppContext): Router {
       const person = earlier < limits.perAccount ? await findActivePerson(db, body.email) : undefined;
       res.status(202).json(REQUESTED);
       // Mailed after answering, so how long the answer takes does not tell whether an account exists either.
-      if (person) sendLink(person).catch((error: unknown) => console.error('A password reset e-mail failed:', error));
+      if (person) sendLink(person, req).catch((error: unknown) => console.error('A password reset e-mail failed:', error));
     }),
   );
 
