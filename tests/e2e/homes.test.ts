@@ -24,6 +24,8 @@ describe('homes: locations compared and my bay', () => {
     await page.getByRole('heading', { level: 1, name: 'Locations compared' }).waitFor();
     // The harness's clock stands at June 15, 2026: the last 12 whole months.
     await page.getByText('Jun 2025 – May 2026', { exact: false }).waitFor();
+    // The span's picker is named by the label around it, on the input a screen reader reaches.
+    expect(await page.getByRole('combobox', { name: 'Months' }).count()).toBe(1);
     // The last whole month's figures for the region's shops together, against April and May 2025.
     const key = page.getByRole('region', { name: 'May 2026' });
     await key.getByText('Builds delivered').waitFor();
