@@ -38,6 +38,7 @@ import * as createUnitExposureRegions from './036-create-unit-exposure-regions.t
 import * as indexClaimsItemLocation from './037-index-claims-item-location.ts';
 import * as createUnitExposureLifetime from './038-create-unit-exposure-lifetime.ts';
 import * as indexClaimDaysInQueueOrder from './039-index-claim-days-in-queue-order.ts';
+import * as indexUnitFailuresLocation from './040-index-unit-failures-location.ts';
 
 /** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
 export const migrations: Record<string, Migration> = {
@@ -80,4 +81,5 @@ export const migrations: Record<string, Migration> = {
   '037-index-claims-item-location': indexClaimsItemLocation,
   '038-create-unit-exposure-lifetime': createUnitExposureLifetime,
   '039-index-claim-days-in-queue-order': indexClaimDaysInQueueOrder,
+  '040-index-unit-failures-location': indexUnitFailuresLocation,
 };
