@@ -16,6 +16,14 @@ export const YEAR_BY_MONTH: RollupQuery = {
 };
 /** The thirteen weeks up to today. */
 export const QUARTER_BY_WEEK: RollupQuery = { from: isoDate(new Date(today.getTime() - 90 * 86_400_000)), to: isoDate(today), grain: 'week' };
+/**
+ * Last month, whole. The demo's first months hold a claim or two, so a span there would time an
+ * empty page against the network's full one; last month has a full page of claims in both.
+ */
+export const LAST_MONTH = {
+  from: isoDate(new Date(Date.UTC(today.getUTCFullYear(), today.getUTCMonth() - 1, 1))),
+  to: isoDate(new Date(Date.UTC(today.getUTCFullYear(), today.getUTCMonth(), 0))),
+};
 export const rollupPath = (q: RollupQuery) => `/api/rollups?from=${q.from}&to=${q.to}&grain=${q.grain}`;
 
 /**

@@ -1,14 +1,6 @@
 import { call, type Person } from './client.ts';
-import { QUARTER_BY_WEEK, rollupPath, YEAR_BY_MONTH } from './rollups.ts';
+import { LAST_MONTH, QUARTER_BY_WEEK, rollupPath, YEAR_BY_MONTH } from './rollups.ts';
 import { latency, type Latency } from './stats.ts';
-
-/**
- * Last month, whole. The demo's first months hold a claim or two, so a span there would time an
- * empty page against the network's full one; last month has a full page of claims in both.
- */
-const now = new Date();
-const isoDay = (ms: number) => new Date(ms).toISOString().slice(0, 10);
-const LAST_MONTH = { from: isoDay(Date.UTC(now.getUTCFullYear(), now.getUTCMonth() - 1, 1)), to: isoDay(Date.UTC(now.getUTCFullYear(), now.getUTCMonth(), 0)) };
 
 /** The API request behind each list, search, detail and reliability screen, as the screen first asks it. */
 export const SCREENS: readonly (readonly [label: string, path: (ids: Ids) => string])[] = [
