@@ -23,12 +23,13 @@ export interface UnitSums {
 }
 
 /** What the cells are summed by; the location and the bands need the per-location cells. */
-export type CellKey = 'item' | 'itemMonth' | 'category' | 'vendor' | 'month' | 'none' | 'location' | 'bands';
-const NETWORK_KEYS: readonly CellKey[] = ['item', 'itemMonth', 'category', 'vendor', 'month', 'none'];
+export type CellKey = 'item' | 'itemQuarter' | 'category' | 'vendor' | 'month' | 'none' | 'location' | 'bands';
+const NETWORK_KEYS: readonly CellKey[] = ['item', 'itemQuarter', 'category', 'vendor', 'month', 'none'];
 
 const KEY_COLUMNS: Record<CellKey, string> = {
   item: 'x.catalog_item_id',
-  itemMonth: "x.catalog_item_id || ' ' || x.installed_month",
+  // `${itemId} ${YYYY}-Q${1–4}`: a third of the rows of item and month, each row costing more to read than to sum.
+  itemQuarter: "x.catalog_item_id || ' ' || substr(x.installed_month, 1, 4) || '-Q' || ((substr(x.installed_month, 6, 2) + 2) / 3)",
   category: 'ci.category',
   vendor: 'ci.vendor_id',
   month: 'x.installed_month',

@@ -4,22 +4,22 @@ import type { LocationScope } from '../access/locations.ts';
 import { unitSums, type UnitSums } from '../queries/unit-exposure.ts';
 import { addSums, figuresOf, NO_UNITS } from './figures.ts';
 import { catalogNames, labelOf } from './labels.ts';
-import { componentsToWatch, type ItemMonthSums } from './watch.ts';
+import { componentsToWatch, type ItemQuarterSums } from './watch.ts';
 
 /**
  * Every item, category or vendor with units installed in the months at the locations, with its
  * figures, and the components to watch among them. Both come from one sum per catalog item and
- * install month in scope (and one across the network for the peers, when the scope is narrower).
+ * install quarter in scope (and one across the network for the peers, when the scope is narrower).
  */
 export async function reliabilityList(db: Db, scope: LocationScope, query: ReliabilityQuery, today: string, todayDay: number): Promise<ReliabilityList> {
   const months = { from: query.from, to: query.to };
   const names = await catalogNames(db);
-  const byItemMonth = (rows: (UnitSums & { key: string | number })[]): ItemMonthSums => new Map(rows.map(({ key, ...sums }) => [String(key), sums]));
-  const inScope = byItemMonth(await unitSums(db, { scope, ...months }, 'itemMonth', today));
-  const network = scope === 'all' ? inScope : byItemMonth(await unitSums(db, { scope: 'all', ...months }, 'itemMonth', today));
+  const byItemQuarter = (rows: (UnitSums & { key: string | number })[]): ItemQuarterSums => new Map(rows.map(({ key, ...sums }) => [String(key), sums]));
+  const inScope = byItemQuarter(await unitSums(db, { scope, ...months }, 'itemQuarter', today));
+  const network = scope === 'all' ? inScope : byItemQuarter(await unitSums(db, { scope: 'all', ...months }, 'itemQuarter', today));
 
-  const groupOf = (itemMonth: string) => {
-    const item = names.items.get(Number(itemMonth.split(' ')[0]));
+  const groupOf = (itemQuarter: string) => {
+    const item = names.items.get(Number(itemQuarter.split(' ')[0]));
     if (!item) return null;
     return query.groupBy === 'item' ? String(item.id) : query.groupBy === 'category' ? item.category : String(item.vendorId);
   };
@@ -37,10 +37,10 @@ export async function reliabilityList(db: Db, scope: LocationScope, query: Relia
 }
 
 /** Item-month sums added up by the group `groupOf` puts each in (none: left out). */
-function byGroup(sums: ItemMonthSums, groupOf: (itemMonth: string) => string | null): Map<string, UnitSums> {
+function byGroup(sums: ItemQuarterSums, groupOf: (itemQuarter: string) => string | null): Map<string, UnitSums> {
   const groups = new Map<string, UnitSums>();
-  for (const [itemMonth, s] of sums) {
-    const key = groupOf(itemMonth);
+  for (const [itemQuarter, s] of sums) {
+    const key = groupOf(itemQuarter);
     if (key !== null) groups.set(key, addSums([groups.get(key) ?? NO_UNITS, s]));
   }
   return groups;

@@ -1,7 +1,7 @@
 import { benjaminiHochberg, excessChance, poissonRateInterval } from '@busbar/calc';
 import { CATEGORY_LABELS, type WatchRow } from '@busbar/shared';
 import type { UnitSums } from '../queries/unit-exposure.ts';
-import { addSums, unitMonthsOf } from './figures.ts';
+import { unitMonthsOf } from './figures.ts';
 import type { CatalogEntry, CatalogNames } from './labels.ts';
 
 /** The share of listed rows that may be there by chance alone (false discovery rate). */
@@ -9,32 +9,29 @@ export const WATCH_FALSE_DISCOVERY = 0.05;
 /** The most rows the list shows. */
 export const WATCH_LIMIT = 10;
 
-/** Sums per catalog item and install month (`${itemId} ${YYYY-MM}`). */
-export type ItemMonthSums = Map<string, UnitSums>;
+/** Sums per catalog item and install quarter (`${itemId} ${YYYY}-Q${1–4}`). */
+export type ItemQuarterSums = Map<string, UnitSums>;
 
 interface Exposure {
   failures: number;
   unitMonths: number;
 }
 
-const quarterOf = (month: string) => `${month.slice(0, 4)}-Q${Math.ceil(Number(month.slice(5, 7)) / 3)}`;
 const monthsOf = (quarter: string) => {
   const first = (Number(quarter.slice(6)) - 1) * 3 + 1;
   return { from: `${quarter.slice(0, 4)}-${String(first).padStart(2, '0')}`, to: `${quarter.slice(0, 4)}-${String(first + 2).padStart(2, '0')}` };
 };
 
 /** Failures and unit-months per item and install quarter. */
-function byQuarter(sums: ItemMonthSums, todayDay: number): Map<number, Map<string, Exposure>> {
-  const items = new Map<number, Map<string, UnitSums[]>>();
+function byQuarter(sums: ItemQuarterSums, todayDay: number): Map<number, Map<string, Exposure>> {
+  const items = new Map<number, Map<string, Exposure>>();
   for (const [key, s] of sums) {
-    const [item, month] = key.split(' ') as [string, string];
-    const quarters = items.get(Number(item)) ?? new Map<string, UnitSums[]>();
-    quarters.set(quarterOf(month), [...(quarters.get(quarterOf(month)) ?? []), s]);
+    const [item, quarter] = key.split(' ') as [string, string];
+    const quarters = items.get(Number(item)) ?? new Map<string, Exposure>();
+    quarters.set(quarter, exposureOf(s, todayDay));
     items.set(Number(item), quarters);
   }
-  return new Map(
-    [...items].map(([item, quarters]) => [item, new Map([...quarters].map(([q, list]) => [q, exposureOf(addSums(list), todayDay)]))]),
-  );
+  return items;
 }
 
 const exposureOf = (s: UnitSums, todayDay: number): Exposure => ({ failures: s.failures, unitMonths: unitMonthsOf(s, todayDay) });
@@ -49,7 +46,7 @@ const exposureOf = (s: UnitSums, todayDay: number): Exposure => ({ failures: s.f
  * 57:289–300, 1995) lists the rows whose chance is at most k/m × WATCH_FALSE_DISCOVERY for the k-th
  * smallest of m judged, keeping the expected share of chance findings listed at or below it.
  */
-export function componentsToWatch(inScope: ItemMonthSums, network: ItemMonthSums, names: CatalogNames, todayDay: number): WatchRow[] {
+export function componentsToWatch(inScope: ItemQuarterSums, network: ItemQuarterSums, names: CatalogNames, todayDay: number): WatchRow[] {
   const mine = byQuarter(inScope, todayDay);
   const all = byQuarter(network, todayDay);
   const categoryTotals = new Map<string, Exposure>();
