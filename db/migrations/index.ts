@@ -39,6 +39,7 @@ import * as indexClaimsItemLocation from './037-index-claims-item-location.ts';
 import * as createUnitExposureLifetime from './038-create-unit-exposure-lifetime.ts';
 import * as indexClaimDaysInQueueOrder from './039-index-claim-days-in-queue-order.ts';
 import * as indexUnitFailuresLocation from './040-index-unit-failures-location.ts';
+import * as indexUnitFailureAges from './041-index-unit-failure-ages.ts';
 
 /** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
 export const migrations: Record<string, Migration> = {
@@ -82,4 +83,5 @@ export const migrations: Record<string, Migration> = {
   '038-create-unit-exposure-lifetime': createUnitExposureLifetime,
   '039-index-claim-days-in-queue-order': indexClaimDaysInQueueOrder,
   '040-index-unit-failures-location': indexUnitFailuresLocation,
+  '041-index-unit-failure-ages': indexUnitFailureAges,
 };

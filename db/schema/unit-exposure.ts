@@ -1,3 +1,4 @@
+import type { GeneratedAlways } from 'kysely';
 import type { Coverage, FailureMode } from '@busbar/shared';
 
 /** Reliability counts per catalog item, location and install month (YYYY-MM) (migration 019). */
@@ -52,4 +53,6 @@ export interface UnitFailuresTable {
   failedDay: number;
   failureMode: FailureMode;
   coverage: Coverage;
+  /** failedDay − installedDay, worked out by SQLite. */
+  ageDays: GeneratedAlways<number>;
 }

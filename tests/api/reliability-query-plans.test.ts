@@ -82,7 +82,8 @@ describe('reliability query plans', () => {
     expect(tables).toEqual(expect.arrayContaining(['unit_exposure_network', 'unit_exposure_lifetime', 'unit_exposure_bands_network']));
     expect(tables).not.toContain('unit_exposure');
     expect(plans.match(/SEARCH x USING PRIMARY KEY \(catalog_item_id=\?\)/g)).toHaveLength(5);
-    expect(plans).toMatch(/SEARCH unit_failures USING COVERING INDEX unit_failures_item \(catalog_item_id=\?\)/);
+    // Its failure ages in the order of the ages' index: counted, not sorted, per item.
+    expect(plans).toMatch(/SEARCH unit_failures USING INDEX unit_failures_age \(catalog_item_id=\?\)\n(?!USE TEMP B-TREE)/);
     expect(plans).not.toMatch(/SCAN (x|unit_exposure|unit_failures)\b/);
     expect(plans).not.toMatch(/builds|build_items|warranty_claims/);
   });

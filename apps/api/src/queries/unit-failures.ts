@@ -20,9 +20,20 @@ function failuresOf(db: Db, { itemIds, from, to, scope }: FailureFilter): Select
   return query;
 }
 
-/** How many units failed at each age in days (failed day − install day). */
+/**
+ * How many units failed at each age in days (failed day − install day). The whole network's are
+ * counted per item in the order of the ages' index (migration 041), then the items' counts per age
+ * added up: sorting them was most of an item's time on 200 shops. A scope's fewer failures are
+ * sought by shop or by install day and sorted.
+ */
 export function failureAges(db: Db, filter: FailureFilter): Promise<{ days: number; failures: number }[]> {
-  return failuresOf(db, filter).select([sql<number>`failed_day - installed_day`.as('days'), sql<number>`count(*)`.as('failures')]).groupBy('days').execute();
+  const failures = sql<number>`count(*)`.as('failures');
+  if (filter.scope !== 'all') return failuresOf(db, filter).select([sql<number>`failed_day - installed_day`.as('days'), failures]).groupBy('days').execute();
+  return db
+    .selectFrom(failuresOf(db, filter).select(['ageDays', failures]).groupBy(['catalogItemId', 'ageDays']).as('perItem'))
+    .select(['ageDays as days', sql<number>`sum(failures)`.as('failures')])
+    .groupBy('ageDays')
+    .execute();
 }
 
 /**
