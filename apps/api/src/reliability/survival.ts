@@ -4,6 +4,8 @@ import type { UnitSums } from '../queries/unit-exposure.ts';
 
 /** A failure on the day of install counts as half a day in service (times must be above 0). */
 const SAME_DAY = 0.5;
+/** The survival curve's least step, in days of service. */
+const STEP_DAYS = 7;
 /** Failures needed before the Weibull shape is read aloud: fewer leave it too uncertain to name. */
 export const WEIBULL_MIN_FAILURES_TO_READ = 10;
 
@@ -24,16 +26,28 @@ export function observationsOf(ages: readonly { days: number; failures: number }
   return observations;
 }
 
+/**
+ * The Kaplan–Meier curve, one step per week of service at most: years of history fail on a thousand
+ * or more distinct days, steps no chart or table tells apart (and a few hundred kilobytes to send).
+ * Each step is the exact curve and band after the week's last failure.
+ */
 export function survivalCurve(observations: readonly SurvivalObservation[]): SurvivalPoint[] {
   if (observations.length === 0) return [];
-  return kaplanMeier(observations).map((row) => ({
-    months: row.time / DAYS_PER_MONTH,
-    atRisk: row.atRisk,
-    failures: row.events,
-    survival: row.survival,
-    lower: row.lower,
-    upper: row.upper,
-  }));
+  const points: SurvivalPoint[] = [];
+  let week = -1;
+  for (const row of kaplanMeier(observations)) {
+    const earlier = Math.floor(row.time / STEP_DAYS) === week ? points.pop() : undefined;
+    week = Math.floor(row.time / STEP_DAYS);
+    points.push({
+      months: row.time / DAYS_PER_MONTH,
+      atRisk: earlier?.atRisk ?? row.atRisk,
+      failures: (earlier?.failures ?? 0) + row.events,
+      survival: row.survival,
+      lower: row.lower,
+      upper: row.upper,
+    });
+  }
+  return points;
 }
 
 /** The Weibull fit in months with a plain reading of its shape (early, steady or wear-out, by the likelihood-ratio test), or why there is none. */

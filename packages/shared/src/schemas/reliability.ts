@@ -150,6 +150,7 @@ export interface FunnelLimit {
   upper998: number;
 }
 
+/** The survival curve at the last failure of a week of service: the units in service at the week's first failure, and the week's failures. */
 export interface SurvivalPoint {
   /** Months in service. */
   months: number;
