@@ -94,6 +94,32 @@ describe('claims list query plans', () => {
     expect(tableScans(plans)).toEqual([]);
   });
 
+  it.each([['the queue', {}], ['a deep page', { page: '4' }]])(
+    "walks the network's queue order for a whole region's page instead of sorting all its claims: %s",
+    async (_name, query) => {
+      const ids = await demoIds(h.db);
+      const region = ids.locations.filter((l) => l.regionId === ids.locations.find((m) => m.code === 'DEN')!.regionId).map((l) => l.id);
+      const { plans, page } = await listPlans(region, query);
+      expect(page).toEqual(['SCAN w USING INDEX warranty_claims_queue_order']);
+      // Its count still seeks each shop's claims.
+      const count = plans.find((lines) => lines.some((line) => line.includes('CO-ROUTINE')))!;
+      expect(count.join('\n')).toMatch(/SEARCH w USING COVERING INDEX \w+ \(location_id=\?\)/);
+      const listed = await listClaims(h.db, region, claimQuery.parse(query), AT);
+      const byHand = await h.db
+        .selectFrom('warrantyClaims')
+        .select('id')
+        .where('locationId', 'in', region)
+        .orderBy(sql`due_on is null`)
+        .orderBy('dueOn')
+        .orderBy('id')
+        .limit(listed.pageSize)
+        .offset((listed.page - 1) * listed.pageSize)
+        .execute();
+      expect(listed.items.map((c) => c.id)).toEqual(byHand.map((c) => c.id));
+      expect(listed.items).toHaveLength(listed.pageSize);
+    },
+  );
+
   // A shop's claims are few: whichever index the statistics choose (the shop's, or a status's in order), nothing is read whole.
   it.each([...Object.entries(IN_ORDER), ...Object.entries(BY_ITEM), ...Object.entries(BY_DAYS).map(([name, [query]]) => [name, query] as const)])(
     "reads a lead's page by searching an index: %s",

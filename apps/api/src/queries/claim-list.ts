@@ -31,6 +31,21 @@ function overdue(eb: Claims, zones: Map<string, number[]>, now: Date): Expressio
 /** The list's filters as conditions on `warranty_claims` alone, so paging and counting need no join. */
 const byUnit = (query: ClaimQuery) => query.vendorId !== undefined || query.category !== undefined;
 
+/**
+ * Whether a page of the scope's claims is found sooner by walking the queue order of the whole
+ * network and keeping the scope's than by sorting every claim of the scope: so for a scope of a
+ * good share of the network's shops (a region of 93 shops of 200: 4.5 ms of sorting against 0.05),
+ * unless a vendor or category narrows the claims through the item's index first.
+ */
+async function walksQueue(db: Db, scope: LocationScope, query: ClaimQuery): Promise<boolean> {
+  if (scope === 'all' || scope.length < 2 || byUnit(query)) return false;
+  const { locations } = await db.selectFrom('locations').select((eb) => eb.fn.countAll<number>().as('locations')).executeTakeFirstOrThrow();
+  return scope.length >= locations * WALK_SHARE;
+}
+/** The least share of the network's shops whose claims walk the queue order. */
+const WALK_SHARE = 0.25;
+
+/** The claims the query finds; `walk` keeps the location indexes out of it (see walksQueue). */
 async function matchingClaims(db: Db, scope: LocationScope, query: ClaimQuery, now: Date) {
   let catalogIds: number[] = [];
   if (byUnit(query)) {
@@ -40,23 +55,24 @@ async function matchingClaims(db: Db, scope: LocationScope, query: ClaimQuery, n
     catalogIds = (await items.execute()).map((i) => i.id);
   }
   const zones = query.overdue ? await locationsByZone(db, scope) : new Map<string, number[]>();
-  return db.selectFrom('warrantyClaims as w').where((eb) => {
-    const conditions: Expression<SqlBool>[] = [];
-    if (scope !== 'all') conditions.push(eb('w.locationId', 'in', scope));
-    if (query.status) conditions.push(eb('w.status', '=', query.status));
-    if (query.coverage) conditions.push(eb('w.coverage', '=', query.coverage));
-    if (query.failureMode) conditions.push(eb('w.failureMode', '=', query.failureMode));
-    if (query.buildId) conditions.push(eb('w.buildId', '=', query.buildId));
-    if (query.failedFrom) conditions.push(eb('w.failedOn', '>=', query.failedFrom));
-    if (query.failedTo) conditions.push(eb('w.failedOn', '<=', query.failedTo));
-    // The day each claim was logged at its location, kept with it (as the month close and the roll-ups count it).
-    if (query.loggedFrom) conditions.push(eb('w.loggedOn', '>=', query.loggedFrom));
-    if (query.loggedTo) conditions.push(eb('w.loggedOn', '<=', query.loggedTo));
-    if (query.overdue) conditions.push(overdue(eb, zones, now));
-    // The catalog is small: its matching items are looked up once, and each claim keeps its unit's item.
-    if (byUnit(query)) conditions.push(catalogIds.length > 0 ? eb('w.catalogItemId', 'in', catalogIds) : sql<SqlBool>`0`);
-    return eb.and(conditions);
-  });
+  return (walk: boolean) =>
+    db.selectFrom('warrantyClaims as w').where((eb) => {
+      const conditions: Expression<SqlBool>[] = [];
+      if (scope !== 'all') conditions.push(eb(walk ? sql<number>`+w.location_id` : 'w.locationId', 'in', scope));
+      if (query.status) conditions.push(eb('w.status', '=', query.status));
+      if (query.coverage) conditions.push(eb('w.coverage', '=', query.coverage));
+      if (query.failureMode) conditions.push(eb('w.failureMode', '=', query.failureMode));
+      if (query.buildId) conditions.push(eb('w.buildId', '=', query.buildId));
+      if (query.failedFrom) conditions.push(eb('w.failedOn', '>=', query.failedFrom));
+      if (query.failedTo) conditions.push(eb('w.failedOn', '<=', query.failedTo));
+      // The day each claim was logged at its location, kept with it (as the month close and the roll-ups count it).
+      if (query.loggedFrom) conditions.push(eb('w.loggedOn', '>=', query.loggedFrom));
+      if (query.loggedTo) conditions.push(eb('w.loggedOn', '<=', query.loggedTo));
+      if (query.overdue) conditions.push(overdue(eb, zones, now));
+      // The catalog is small: its matching items are looked up once, and each claim keeps its unit's item.
+      if (byUnit(query)) conditions.push(catalogIds.length > 0 ? eb('w.catalogItemId', 'in', catalogIds) : sql<SqlBool>`0`);
+      return eb.and(conditions);
+    });
 }
 
 /**
@@ -68,14 +84,14 @@ export async function listClaims(db: Db, scope: LocationScope, query: ClaimQuery
   const paging = { page: query.page, pageSize: query.pageSize };
   if (scope !== 'all' && scope.length === 0) return { items: [], total: 0, totalCapped: false, ...paging };
   const matching = await matchingClaims(db, scope, query, now);
-  const pageIds = matching
+  const pageIds = matching(await walksQueue(db, scope, query))
     .select('w.id')
     .orderBy(sql`w.due_on is null`)
     .orderBy('w.dueOn', 'asc')
     .orderBy('w.id', 'asc')
     .limit(query.pageSize)
     .offset(offsetOf(query.page, query.pageSize));
-  const [keys, count] = await Promise.all([pageIds.execute(), cappedCount(db, matching.select('w.id'))]);
+  const [keys, count] = await Promise.all([pageIds.execute(), cappedCount(db, matching(false).select('w.id'))]);
   const rows = keys.length === 0 ? [] : await claimsWithNames(db).where('w.id', 'in', keys.map((k) => k.id)).execute();
   const byId = new Map(rows.map((row) => [row.id, toRow(row)]));
   return { items: keys.map((k) => byId.get(k.id)!), ...count, ...paging };
