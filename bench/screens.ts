@@ -39,6 +39,8 @@ export const SCREENS: readonly (readonly [label: string, path: (ids: Ids) => str
   // What the comparison screen asks for its key figures and trend: the sums without a row per shop.
   ['roll-ups, a year by month, sums only', () => `${rollupPath(YEAR_BY_MONTH)}&rows=none`],
   ['roll-ups, a quarter by week', () => rollupPath(QUARTER_BY_WEEK)],
+  // The comparison screen's table: each shop of the scope over the months, judged against the network.
+  ['roll-ups, shops compared', () => `/api/rollups/locations?from=${YEAR_BY_MONTH.from.slice(0, 7)}&to=${YEAR_BY_MONTH.to.slice(0, 7)}`],
   ['month close, last month', () => `/api/closes?month=${YEAR_BY_MONTH.to.slice(0, 7)}`],
   ['month close, a region', (ids) => `/api/closes?month=2025-03&regionId=${ids.regionId}`],
 ];
