@@ -40,6 +40,7 @@ import * as createUnitExposureLifetime from './038-create-unit-exposure-lifetime
 import * as indexClaimDaysInQueueOrder from './039-index-claim-days-in-queue-order.ts';
 import * as indexUnitFailuresLocation from './040-index-unit-failures-location.ts';
 import * as indexUnitFailureAges from './041-index-unit-failure-ages.ts';
+import * as createRollupSums from './042-create-rollup-sums.ts';
 
 /** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
 export const migrations: Record<string, Migration> = {
@@ -84,4 +85,5 @@ export const migrations: Record<string, Migration> = {
   '039-index-claim-days-in-queue-order': indexClaimDaysInQueueOrder,
   '040-index-unit-failures-location': indexUnitFailuresLocation,
   '041-index-unit-failure-ages': indexUnitFailureAges,
+  '042-create-rollup-sums': createRollupSums,
 };

@@ -20,7 +20,7 @@ import type { PowerPlanRevisionsTable } from './power-plan-revisions.ts';
 import type { PowerPlansTable } from './power-plans.ts';
 import type { RegionsTable } from './regions.ts';
 import type { RoleAssignmentsTable } from './role-assignments.ts';
-import type { RollupFiguresTable } from './rollups.ts';
+import type { RollupFiguresTable, RollupNetworkTable, RollupRegionTable } from './rollups.ts';
 import type { SessionsTable } from './sessions.ts';
 import type { SignInAttemptsTable } from './sign-in-attempts.ts';
 import type {
@@ -68,6 +68,8 @@ export interface Database {
   planMargins: PlanMarginsTable;
   unitFailures: UnitFailuresTable;
   rollupFigures: RollupFiguresTable;
+  rollupNetwork: RollupNetworkTable;
+  rollupRegion: RollupRegionTable;
   accessChanges: AccessChangesTable;
   weeklyDigests: WeeklyDigestsTable;
   royaltyTerms: RoyaltyTermsTable;

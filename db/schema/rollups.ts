@@ -25,3 +25,11 @@ export interface RollupFiguresTable extends JobMixColumns {
   warrantyCostCents: number;
   creditsReceivedCents: number;
 }
+
+/** The same sums over every location of the network, per grain and period (migration 042). */
+export type RollupNetworkTable = Omit<RollupFiguresTable, 'locationId'>;
+
+/** The same sums over each region's locations, per grain, period and region (migration 042). */
+export interface RollupRegionTable extends RollupNetworkTable {
+  regionId: number;
+}

@@ -45,29 +45,34 @@ export async function rollupReportJson(db: Db, query: RollupQuery, scope: Locati
   const inScope = new Set(scopeIds);
   const regionLocations = (regionId: number) => locations.filter((l) => l.regionId === regionId).map((l) => l.id);
   const whole = [...new Set(locations.map((l) => l.regionId))].filter((r) => regionLocations(r).every((id) => inScope.has(id)));
-  const [locationId, regionId, period] = [sql.ref<number>('f.location_id'), sql.ref<number>('l.region_id'), sql.ref<string>('f.period')];
+  const [locationId, regionId, period] = [sql.ref<number>('f.location_id'), sql.ref<number>('f.region_id'), sql.ref<string>('f.period')];
   const asked = sql`f.grain = ${grain} and f.period in (${sql.join(keys)})`;
+  /** The rows of a table of sums, as `f`, in the asked periods and meeting `where`. */
+  const of = (table: string, where: RawBuilder<unknown> = sql`true`) => sql`${sql.table(table)} f where ${asked} and ${where}`;
+  const inLocations = scope === 'all' ? sql`true` : sql`f.location_id in (${sql.join(scope)})`;
+  const inRegions = (ids: number[]) => sql`f.region_id in (${sql.join(ids.length > 0 ? ids : [0])})`;
 
-  const ofScope = scope === 'all' ? sql`` : sql`and f.location_id in (${sql.join(scope)})`;
   const rows =
     query.rows === 'none'
       ? '[]'
       : await jsonArrayOf(
           db,
           byMoneyReads(locationId, scopeIds, (id) => reads([id]), (r) => figuresJson([['locationId', locationId], ['period', period]], own, r)),
-          sql`rollup_figures f where ${asked} ${ofScope} and ${holdsAny(own)}`,
+          sql`${of('rollup_figures', inLocations)} and ${holdsAny(own)}`,
         );
-  const sumsOf = (within: RawBuilder<unknown>) =>
-    jsonArrayOf(db, sql`json(j)`, sql`(select ${figuresJson([['period', period]], summed, reads(scopeIds))} as j from rollup_figures f where ${asked} ${within} group by f.period having ${holdsAny(summed)})`);
-  const regionSums = byMoneyReads(regionId, whole, (id) => reads(regionLocations(id)), (r) => figuresJson([['regionId', regionId], ['period', period]], summed, r));
-  const regions = await jsonArrayOf(
-    db,
-    sql`json(j)`,
-    sql`(select ${regionSums} as j from rollup_figures f join locations l on l.id = f.location_id
-      where ${asked} and l.region_id in (${sql.join(whole.length > 0 ? whole : [0])}) group by l.region_id, f.period having ${holdsAny(summed)})`,
-  );
-  const network = await sumsOf(sql``);
-  const scopeSums = scope === 'all' ? network : await sumsOf(ofScope);
+  // The regions' and the network's sums are kept (migration 042): one row a period.
+  const kept = (json: RawBuilder<string>, from: RawBuilder<unknown>, order: RawBuilder<unknown>) =>
+    jsonArrayOf(db, sql`json(j)`, sql`(select ${json} as j from ${from} and ${holdsAny(own)} order by ${order})`);
+  const regionSums = byMoneyReads(regionId, whole, (id) => reads(regionLocations(id)), (r) => figuresJson([['regionId', regionId], ['period', period]], own, r));
+  const regions = await kept(regionSums, of('rollup_region', inRegions(whole)), sql`f.region_id, f.period`);
+  const network = await kept(figuresJson([['period', period]], own, reads(scopeIds)), of('rollup_network'), period);
+  // A scope of whole regions (a regional manager's) sums its regions' rows; any other, its locations'.
+  const summedOver = (from: RawBuilder<unknown>) =>
+    jsonArrayOf(db, sql`json(j)`, sql`(select ${figuresJson([['period', period]], summed, reads(scopeIds))} as j from ${from} group by f.period having ${holdsAny(summed)})`);
+  const regionOf = new Map(locations.map((l) => [l.id, l.regionId]));
+  const scopeRegions = [...new Set(scopeIds.map((id) => regionOf.get(id)!))];
+  const scopeSums =
+    scope === 'all' ? network : await summedOver(scopeRegions.every((r) => whole.includes(r)) ? of('rollup_region', inRegions(scopeRegions)) : of('rollup_figures', inLocations));
   return utf8Of([`{"grain":${JSON.stringify(grain)},"periods":${JSON.stringify(periods)},"rows":`, rows, ',"scope":', scopeSums, ',"regions":', regions, ',"network":', network, '}']);
 }
 
