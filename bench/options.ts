@@ -2,8 +2,8 @@ import { parseArgs } from 'node:util';
 import { z } from 'zod';
 
 /**
- * `pnpm bench -- --locations 200 --years 5`: the generated network's size (default 40 × 2, about ten
- * minutes in all). `--reuse` keeps the generated database in the temp folder for the next run of
+ * `pnpm bench -- --locations 200 --years 5`: the generated network's size (default 40 × 2).
+ * `--reuse` keeps the generated database in the temp folder for the next run of
  * the same size; `--samples` is how many timed requests each screen gets after its warm-up (200:
  * with 40, the p95 of a screen of a few milliseconds moved by 20–50 % from one run to the next).
  */
