@@ -36,7 +36,7 @@ export async function reliabilityList(db: Db, scope: LocationScope, query: Relia
   return { asOf: today, groupBy: query.groupBy, rows, watch: componentsToWatch(inScope, network, names, todayDay) };
 }
 
-/** Item-month sums added up by the group `groupOf` puts each in (none: left out). */
+/** Item-quarter sums added up by the group `groupOf` puts each in (none: left out). */
 function byGroup(sums: ItemQuarterSums, groupOf: (itemQuarter: string) => string | null): Map<string, UnitSums> {
   const groups = new Map<string, UnitSums>();
   for (const [itemQuarter, s] of sums) {
