@@ -3,4 +3,4 @@ export type { Database } from './schema/index.ts';
 export { seedDemoNetwork, DEMO_PASSWORD } from './demo/generate.ts';
 export { seedNetwork, type NetworkCounts } from './demo/network-history.ts';
 export { demoEvidenceKinds } from './demo/claims-evidence.ts';
-export { REFILL_ROLLUPS } from './migrations/021-create-rollups.ts';
+export { REFILL_ROLLUPS } from './migrations/042-create-rollup-sums.ts';

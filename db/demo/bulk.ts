@@ -1,6 +1,6 @@
 import type SQLite from 'better-sqlite3';
 import { REFILL_UNIT_EXPOSURE } from '../migrations/038-create-unit-exposure-lifetime.ts';
-import { REFILL_ROLLUPS } from '../migrations/021-create-rollups.ts';
+import { REFILL_ROLLUPS } from '../migrations/042-create-rollup-sums.ts';
 
 /**
  * Bulk loading into SQLite: secondary indexes and triggers are dropped before and re-created from

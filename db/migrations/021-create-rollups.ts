@@ -24,7 +24,8 @@ export const MIX_CATEGORIES = [
   'switch_panel', 'battery_monitor', 'air_compressor', 'cable_terminals', 'tray_mount', 'other',
 ];
 const MIX = MIX_CATEGORIES.map((c) => `mix_${c}`);
-const FIGURES = ['builds_delivered', 'builds_booked', 'revenue_cents', 'parts_cost_cents', 'labor_centihours', 'claims_opened', 'warranty_cost_cents', 'credits_received_cents', ...MIX];
+/** The summed columns of `rollup_figures`. */
+export const FIGURES = ['builds_delivered', 'builds_booked', 'revenue_cents', 'parts_cost_cents', 'labor_centihours', 'claims_opened', 'warranty_cost_cents', 'credits_received_cents', ...MIX];
 /** Every summed column, `values` given and the rest 0. */
 const columns = (values: Record<string, string>) => FIGURES.map((f) => `${values[f] ?? '0'} as ${f}`).join(', ');
 

@@ -3,7 +3,8 @@ import { CATEGORIES, type BuildStatus } from '@busbar/shared';
 import fc from 'fast-check';
 import { sql } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { MIX_CATEGORIES, REFILL_ROLLUPS } from '../../db/migrations/021-create-rollups.ts';
+import { MIX_CATEGORIES } from '../../db/migrations/021-create-rollups.ts';
+import { REFILL_ROLLUPS } from '../../db/migrations/042-create-rollup-sums.ts';
 import { refillRollups } from '../../apps/api/src/queries/rollups-refill.ts';
 import { startHarness, type Harness } from '../support/api-harness.ts';
 import { afterRefill, rolledBack } from '../support/kept-tables.ts';
@@ -229,6 +230,8 @@ describe('the roll-up table follows every change', () => {
     const kept = await keptTables(h.db);
     await sql`delete from rollup_figures where grain = 'month'`.execute(h.db);
     await sql`update rollup_figures set revenue_cents = 0 where grain = 'day'`.execute(h.db);
+    await sql`update rollup_network set builds_delivered = builds_delivered + 1`.execute(h.db);
+    await sql`delete from rollup_region where grain = 'week'`.execute(h.db);
     expect(await keptTables(h.db)).not.toEqual(kept);
     await refillRollups(h.db);
     expect(await keptTables(h.db)).toEqual(kept);
