@@ -154,6 +154,21 @@ describe('generated network, 3 locations × 1 year', () => {
   });
 });
 
+describe('generated network, roll-ups', () => {
+  it("keeps the network's and each region's sums of the shops' roll-ups", async () => {
+    const network = await sql`select grain, period, builds_delivered, revenue_cents, claims_opened from rollup_network
+      where builds_delivered <> 0 or revenue_cents <> 0 or claims_opened <> 0 order by 1, 2`.execute(db);
+    const summed = await sql`select grain, period, sum(builds_delivered) as builds_delivered, sum(revenue_cents) as revenue_cents, sum(claims_opened) as claims_opened
+      from rollup_figures group by 1, 2 having sum(builds_delivered) <> 0 or sum(revenue_cents) <> 0 or sum(claims_opened) <> 0 order by 1, 2`.execute(db);
+    expect(network.rows.length).toBeGreaterThan(300);
+    expect(network.rows).toEqual(summed.rows);
+    const regions = await sql`select grain, period, region_id, builds_delivered from rollup_region where builds_delivered <> 0 order by 1, 2, 3`.execute(db);
+    const byRegion = await sql`select f.grain, f.period, l.region_id, sum(f.builds_delivered) as builds_delivered from rollup_figures f join locations l on l.id = f.location_id
+      group by 1, 2, 3 having sum(f.builds_delivered) <> 0 order by 1, 2, 3`.execute(db);
+    expect(regions.rows).toEqual(byRegion.rows);
+  });
+});
+
 describe('network of 200 shops', () => {
   const network = generateNetwork(seededRandom(1), 200, 1826);
   it('has unique codes, real time zones and an area for every shop', () => {
