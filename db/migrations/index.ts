@@ -41,6 +41,7 @@ import * as indexClaimDaysInQueueOrder from './039-index-claim-days-in-queue-ord
 import * as indexUnitFailuresLocation from './040-index-unit-failures-location.ts';
 import * as indexUnitFailureAges from './041-index-unit-failure-ages.ts';
 import * as createRollupSums from './042-create-rollup-sums.ts';
+import * as createUnitFailureSums from './043-create-unit-failure-sums.ts';
 
 /** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
 export const migrations: Record<string, Migration> = {
@@ -86,4 +87,5 @@ export const migrations: Record<string, Migration> = {
   '040-index-unit-failures-location': indexUnitFailuresLocation,
   '041-index-unit-failure-ages': indexUnitFailureAges,
   '042-create-rollup-sums': createRollupSums,
+  '043-create-unit-failure-sums': createUnitFailureSums,
 };

@@ -32,6 +32,10 @@ import type {
   UnitExposureNetworkTable,
   UnitExposureRegionTable,
   UnitExposureTable,
+  UnitFailureAgesNetworkTable,
+  UnitFailureAgesRegionTable,
+  UnitFailureKindsNetworkTable,
+  UnitFailureKindsRegionTable,
   UnitFailuresTable,
 } from './unit-exposure.ts';
 import type { UsersTable, WeeklyDigestsTable } from './users.ts';
@@ -67,6 +71,10 @@ export interface Database {
   unitExposureLifetime: UnitExposureLifetimeTable;
   planMargins: PlanMarginsTable;
   unitFailures: UnitFailuresTable;
+  unitFailureAgesNetwork: UnitFailureAgesNetworkTable;
+  unitFailureAgesRegion: UnitFailureAgesRegionTable;
+  unitFailureKindsNetwork: UnitFailureKindsNetworkTable;
+  unitFailureKindsRegion: UnitFailureKindsRegionTable;
   rollupFigures: RollupFiguresTable;
   rollupNetwork: RollupNetworkTable;
   rollupRegion: RollupRegionTable;

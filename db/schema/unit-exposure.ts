@@ -56,3 +56,24 @@ export interface UnitFailuresTable {
   /** failedDay − installedDay, worked out by SQLite. */
   ageDays: GeneratedAlways<number>;
 }
+
+/** Failures per catalog item and age in days (failed day − install day), over every location (migration 043). */
+export interface UnitFailureAgesNetworkTable {
+  catalogItemId: number;
+  ageDays: number;
+  failures: number;
+}
+
+/** The same per region. */
+export type UnitFailureAgesRegionTable = UnitFailureAgesNetworkTable & { regionId: number };
+
+/** Failures per catalog item, coverage and failure mode, over every location (migration 043). */
+export interface UnitFailureKindsNetworkTable {
+  catalogItemId: number;
+  coverage: Coverage;
+  failureMode: FailureMode;
+  failures: number;
+}
+
+/** The same per region. */
+export type UnitFailureKindsRegionTable = UnitFailureKindsNetworkTable & { regionId: number };

@@ -4,7 +4,7 @@ import { DAYS_PER_MONTH, type ReliabilityDetail } from '@busbar/shared';
 import fc from 'fast-check';
 import { sql } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { REFILL_UNIT_EXPOSURE } from '../../db/migrations/038-create-unit-exposure-lifetime.ts';
+import { REFILL_UNIT_EXPOSURE } from '../../db/migrations/043-create-unit-failure-sums.ts';
 import { demoIds, startHarness, type Harness } from '../support/api-harness.ts';
 import { afterRefill, rolledBack } from '../support/kept-tables.ts';
 import { addCatalogItem, addVendor } from '../support/catalog-fixtures.ts';
@@ -117,7 +117,14 @@ async function keptTables(db: Db) {
   const bandsRegion = await sql<object>`select * from unit_exposure_bands_region where units != 0 or failures != 0 order by 1, 2, 3, 4, 5`.execute(db);
   const lifetime = await sql<object>`select * from unit_exposure_lifetime where units != 0 or failures != 0 order by 1, 2`.execute(db);
   const failures = await sql<object>`select * from unit_failures order by claim_id`.execute(db);
-  return { cells: cells.rows, bands: bands.rows, network: network.rows, bandsNetwork: bandsNetwork.rows, region: region.rows, bandsRegion: bandsRegion.rows, lifetime: lifetime.rows, failures: failures.rows };
+  const failureSums = await Promise.all(
+    // Each table by its key's columns, all but the last (the count).
+    ([['ages_network', 2], ['ages_region', 3], ['kinds_network', 3], ['kinds_region', 4]] as const).map(async ([t, keys]) => {
+      const order = sql.raw(Array.from({ length: keys }, (_, i) => i + 1).join(', '));
+      return (await sql<object>`select * from ${sql.table(`unit_failure_${t}`)} order by ${order}`.execute(db)).rows;
+    }),
+  );
+  return { cells: cells.rows, bands: bands.rows, network: network.rows, bandsNetwork: bandsNetwork.rows, region: region.rows, bandsRegion: bandsRegion.rows, lifetime: lifetime.rows, failures: failures.rows, failureSums };
 }
 
 const SUMS = sql.raw(
@@ -137,6 +144,29 @@ async function cellsByLocation(db: Db) {
   const { rows } = await sql<object>`select x.catalog_item_id, x.location_id, ${SUMS}
     from unit_exposure x group by 1, 2 having sum(x.units) != 0 or sum(x.failures) != 0 order by 1, 2`.execute(db);
   return rows;
+}
+
+/** The failures counted one by one, by age and by kind, over the network and by each location's region as it stands. */
+async function failuresCounted(db: Db) {
+  const regionOf = new Map((await db.selectFrom('locations').select(['id', 'regionId']).execute()).map((l) => [l.id, l.regionId]));
+  const failures = await db.selectFrom('unitFailures').select(['catalogItemId', 'locationId', 'installedDay', 'failedDay', 'coverage', 'failureMode']).execute();
+  const counted = (key: (f: (typeof failures)[number]) => (string | number)[], names: string[]) => {
+    const counts = new Map<string, { key: (string | number)[]; failures: number }>();
+    for (const f of failures) {
+      const k = key(f);
+      const entry = counts.get(JSON.stringify(k)) ?? { key: k, failures: 0 };
+      counts.set(JSON.stringify(k), { ...entry, failures: entry.failures + 1 });
+    }
+    const byKey = (a: (string | number)[], b: (string | number)[]) => a.map((v, i) => (v < b[i]! ? -1 : v > b[i]! ? 1 : 0)).find((d) => d !== 0) ?? 0;
+    return [...counts.values()].sort((a, b) => byKey(a.key, b.key)).map(({ key: k, failures: n }) => ({ ...Object.fromEntries(names.map((name, i) => [name, k[i]])), failures: n }));
+  };
+  const age = (f: (typeof failures)[number]) => f.failedDay - f.installedDay;
+  return [
+    counted((f) => [f.catalogItemId, age(f)], ['catalogItemId', 'ageDays']),
+    counted((f) => [f.catalogItemId, regionOf.get(f.locationId)!, age(f)], ['catalogItemId', 'regionId', 'ageDays']),
+    counted((f) => [f.catalogItemId, f.coverage, f.failureMode], ['catalogItemId', 'coverage', 'failureMode']),
+    counted((f) => [f.catalogItemId, regionOf.get(f.locationId)!, f.coverage, f.failureMode], ['catalogItemId', 'regionId', 'coverage', 'failureMode']),
+  ];
 }
 
 const refilled = (db: Db) => afterRefill(db, REFILL_UNIT_EXPOSURE, keptTables);
@@ -166,6 +196,7 @@ describe('the kept tables follow every change', () => {
           expect(kept).toEqual(await refilled(h.db));
           expect({ region: kept.region, bandsRegion: kept.bandsRegion }).toEqual(await cellsByRegion(h.db));
           expect(kept.lifetime).toEqual(await cellsByLocation(h.db));
+          expect(kept.failureSums).toEqual(await failuresCounted(h.db));
         });
       }),
       { seed: 10_019, numRuns: 60 },

@@ -116,7 +116,7 @@ export async function serviceByLocation(db: Db, filter: UnitFilter, today: strin
  * The regions the locations make up when they are every location of each region they touch (a
  * regional manager's scope), so that the regions' sums stand in for their cells; otherwise null.
  */
-async function wholeRegions(db: Db, scope: number[]): Promise<number[] | null> {
+export async function wholeRegions(db: Db, scope: number[]): Promise<number[] | null> {
   const locations = await db.selectFrom('locations').select(['id', 'regionId']).execute();
   const chosen = new Set(scope);
   const touched = new Set(locations.filter((l) => chosen.has(l.id)).map((l) => l.regionId));

@@ -3,6 +3,7 @@ import type { Database, Db } from '@busbar/db';
 import type { Coverage, FailureMode } from '@busbar/shared';
 import { sql, type SelectQueryBuilder } from 'kysely';
 import type { LocationScope } from '../access/locations.ts';
+import { wholeRegions } from './unit-exposure.ts';
 
 /** Which failures: of these catalog items, among units installed in the months (YYYY-MM, inclusive), at these locations. */
 export interface FailureFilter {
@@ -12,8 +13,10 @@ export interface FailureFilter {
   scope: LocationScope;
 }
 
+const itemsIn = (itemIds: number[]) => (itemIds.length > 0 ? itemIds : [0]);
+
 function failuresOf(db: Db, { itemIds, from, to, scope }: FailureFilter): SelectQueryBuilder<Database, 'unitFailures', object> {
-  let query = db.selectFrom('unitFailures').where('catalogItemId', 'in', itemIds.length > 0 ? itemIds : [0]);
+  let query = db.selectFrom('unitFailures').where('catalogItemId', 'in', itemsIn(itemIds));
   if (from) query = query.where('installedDay', '>=', dayOfIso(`${from}-01`));
   if (to) query = query.where('installedDay', '<', dayOfIso(addMonthsIso(`${to}-01`, 1)));
   if (scope !== 'all') query = query.where('locationId', 'in', scope.length > 0 ? scope : [0]);
@@ -21,31 +24,71 @@ function failuresOf(db: Db, { itemIds, from, to, scope }: FailureFilter): Select
 }
 
 /**
- * How many units failed at each age in days (failed day − install day). The whole network's are
- * counted per item in the order of the ages' index (migration 041), then the items' counts per age
- * added up: sorting them was most of an item's time on 200 shops. A scope's fewer failures are
- * sought by shop or by install day and sorted.
+ * Where the failures `filter` picks are counted already (migration 043): over every install month,
+ * the whole network's or whole regions' (a regional manager's scope); otherwise null.
  */
-export function failureAges(db: Db, filter: FailureFilter): Promise<{ days: number; failures: number }[]> {
+async function keptCounts(db: Db, { from, to, scope }: FailureFilter): Promise<'network' | number[] | null> {
+  if (from || to) return null;
+  return scope === 'all' ? 'network' : wholeRegions(db, scope);
+}
+
+/**
+ * How many units failed at each age in days (failed day − install day): from the kept counts when
+ * they hold them. Else the whole network's are counted per item in the order of the ages' index
+ * (migration 041), then the items' counts per age added up; a scope's fewer failures are sought by
+ * shop or by install day and sorted.
+ */
+export async function failureAges(db: Db, filter: FailureFilter): Promise<{ days: number; failures: number }[]> {
+  const kept = await keptCounts(db, filter);
+  const summed = sql<number>`sum(failures)`.as('failures');
+  if (kept === 'network') {
+    return db.selectFrom('unitFailureAgesNetwork').where('catalogItemId', 'in', itemsIn(filter.itemIds)).select(['ageDays as days', summed]).groupBy('ageDays').execute();
+  }
+  if (kept) {
+    return db
+      .selectFrom('unitFailureAgesRegion')
+      .where('catalogItemId', 'in', itemsIn(filter.itemIds))
+      .where('regionId', 'in', kept)
+      .select(['ageDays as days', summed])
+      .groupBy('ageDays')
+      .execute();
+  }
   const failures = sql<number>`count(*)`.as('failures');
   if (filter.scope !== 'all') return failuresOf(db, filter).select([sql<number>`failed_day - installed_day`.as('days'), failures]).groupBy('days').execute();
   return db
     .selectFrom(failuresOf(db, filter).select(['ageDays', failures]).groupBy(['catalogItemId', 'ageDays']).as('perItem'))
-    .select(['ageDays as days', sql<number>`sum(failures)`.as('failures')])
+    .select(['ageDays as days', summed])
     .groupBy('ageDays')
     .execute();
 }
 
+type Share = { failureMode: FailureMode; coverage: Coverage; claims: number };
+
 /**
- * Claims by failure mode and coverage: counted per item in the order of the claims' index by item,
- * coverage and mode (migration 038), which a count by mode and coverage alone would sort first.
+ * Claims by failure mode and coverage: from the kept counts when they hold them, else counted per
+ * item in the order of the claims' index by item, coverage and mode (migration 038), which a count
+ * by mode and coverage alone would sort first.
  */
-export async function claimShares(db: Db, filter: FailureFilter): Promise<{ failureMode: FailureMode; coverage: Coverage; claims: number }[]> {
+export async function claimShares(db: Db, filter: FailureFilter): Promise<Share[]> {
+  const kept = await keptCounts(db, filter);
+  const claims = sql<number>`sum(failures)`.as('claims');
+  if (kept === 'network') {
+    return db.selectFrom('unitFailureKindsNetwork').where('catalogItemId', 'in', itemsIn(filter.itemIds)).select(['failureMode', 'coverage', claims]).groupBy(['coverage', 'failureMode']).execute();
+  }
+  if (kept) {
+    return db
+      .selectFrom('unitFailureKindsRegion')
+      .where('catalogItemId', 'in', itemsIn(filter.itemIds))
+      .where('regionId', 'in', kept)
+      .select(['failureMode', 'coverage', claims])
+      .groupBy(['coverage', 'failureMode'])
+      .execute();
+  }
   const perItem = await failuresOf(db, filter)
     .select(['failureMode', 'coverage', sql<number>`count(*)`.as('claims')])
     .groupBy(['catalogItemId', 'coverage', 'failureMode'])
     .execute();
-  const shares = new Map<string, { failureMode: FailureMode; coverage: Coverage; claims: number }>();
+  const shares = new Map<string, Share>();
   for (const row of perItem) {
     const key = `${row.failureMode} ${row.coverage}`;
     shares.set(key, { ...row, claims: (shares.get(key)?.claims ?? 0) + row.claims });
