@@ -4,7 +4,7 @@
  * and search screen for the owner, a regional manager and a location lead, 50 connections mixing reads and writes,
  * a lead's build detail while the owner imports and reads, the app's peak memory, and the
  * accountant's workbook of twelve months (rows a second, peak memory, a lead's reads meanwhile). Prints the
- * figures and writes them to bench/RESULTS.md; asserts nothing.
+ * figures and writes them to bench/RESULTS.md; asserts nothing. What it wrote it takes out again.
  */
 import { rmSync } from 'node:fs';
 import { loadavg } from 'node:os';
@@ -19,6 +19,7 @@ import { PEOPLE, report, writeReport, type SizeRun } from './results.ts';
 import { compareRollups, rollupLines, type RollupComparison } from './rollups.ts';
 import { idsFor, measureScreens } from './screens.ts';
 import { startApp } from './server.ts';
+import { forgetBenchWrites } from './tidy.ts';
 
 const log = (text: string) => process.stderr.write(`${text}\n`);
 
@@ -43,6 +44,8 @@ async function measure(dir: string, label: string, generatedSeconds: number | nu
     return { size, screens, load, contention, memory: app.peakMemory(), rollups };
   } finally {
     await app.stop();
+    const removed = await forgetBenchWrites(dir);
+    log(`${label}: took the run's ${removed.builds} imported builds and ${removed.customers} customers out again`);
   }
 }
 

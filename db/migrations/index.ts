@@ -42,6 +42,7 @@ import * as indexUnitFailuresLocation from './040-index-unit-failures-location.t
 import * as indexUnitFailureAges from './041-index-unit-failure-ages.ts';
 import * as createRollupSums from './042-create-rollup-sums.ts';
 import * as createUnitFailureSums from './043-create-unit-failure-sums.ts';
+import * as indexClaimReplacements from './044-index-claim-replacements.ts';
 
 /** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
 export const migrations: Record<string, Migration> = {
@@ -88,4 +89,5 @@ export const migrations: Record<string, Migration> = {
   '041-index-unit-failure-ages': indexUnitFailureAges,
   '042-create-rollup-sums': createRollupSums,
   '043-create-unit-failure-sums': createUnitFailureSums,
+  '044-index-claim-replacements': indexClaimReplacements,
 };
