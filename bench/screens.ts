@@ -42,7 +42,7 @@ export const SCREENS: readonly (readonly [label: string, path: (ids: Ids) => str
   ['roll-ups API, every shop, a quarter by week', () => rollupPath(QUARTER_BY_WEEK)],
   // The comparison screen's table: each shop of the scope over the months, judged against the network.
   ['roll-ups, shops compared', () => `/api/rollups/locations?from=${YEAR_BY_MONTH.from.slice(0, 7)}&to=${YEAR_BY_MONTH.to.slice(0, 7)}`],
-  ['month close, last month', () => `/api/closes?month=${YEAR_BY_MONTH.to.slice(0, 7)}`],
+  ['month close, last month', () => `/api/closes?month=${LAST_MONTH.from.slice(0, 7)}`],
   ['month close, a region', (ids) => `/api/closes?month=2025-03&regionId=${ids.regionId}`],
 ];
 

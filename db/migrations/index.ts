@@ -43,6 +43,7 @@ import * as indexUnitFailureAges from './041-index-unit-failure-ages.ts';
 import * as createRollupSums from './042-create-rollup-sums.ts';
 import * as createUnitFailureSums from './043-create-unit-failure-sums.ts';
 import * as indexClaimReplacements from './044-index-claim-replacements.ts';
+import * as indexDeliveredBuildSums from './045-index-delivered-build-sums.ts';
 
 /** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
 export const migrations: Record<string, Migration> = {
@@ -90,4 +91,5 @@ export const migrations: Record<string, Migration> = {
   '042-create-rollup-sums': createRollupSums,
   '043-create-unit-failure-sums': createUnitFailureSums,
   '044-index-claim-replacements': indexClaimReplacements,
+  '045-index-delivered-build-sums': indexDeliveredBuildSums,
 };

@@ -21,18 +21,21 @@ export type LiveClose = Omit<LocationClose, 'status' | 'finalizedAt' | 'finalize
  */
 export async function liveCloses(db: Db, month: string, scope: LocationScope): Promise<LiveClose[]> {
   const [first, last] = [`${month}-01`, `${month}-31`];
+  const inScope = scope === 'all' || scope.length === 0 ? [0] : scope;
   let query = db
     .selectFrom('locations as l')
     .leftJoin(
       (eb) =>
+        // Each shop's month of delivered builds, one seek through their sums' index (migration 045), in shop order.
         eb
-          .selectFrom('builds')
-          // By the day delivered: `+` keeps SQLite off the status index, which holds most of the network's builds.
-          .where(sql`+status`, '=', 'delivered')
-          .where('deliveredOn', '>=', first)
-          .where('deliveredOn', '<=', last)
-          .groupBy('locationId')
-          .select(['locationId', sql<number>`count(*)`.as('delivered'), sql<number>`sum(parts_price_cents)`.as('parts'), sql<number>`sum(labor_cents)`.as('labor'), sql<number>`sum(total_cents)`.as('revenue'), sql<number>`sum(parts_cost_cents)`.as('cost')])
+          .selectFrom('locations as bl')
+          .innerJoin('builds', 'builds.locationId', 'bl.id')
+          .where('builds.status', '=', 'delivered')
+          .where('builds.deliveredOn', '>=', first)
+          .where('builds.deliveredOn', '<=', last)
+          .$if(scope !== 'all', (q) => q.where('bl.id', 'in', inScope))
+          .groupBy('bl.id')
+          .select(['bl.id as locationId', sql<number>`count(*)`.as('delivered'), sql<number>`sum(parts_price_cents)`.as('parts'), sql<number>`sum(labor_cents)`.as('labor'), sql<number>`sum(total_cents)`.as('revenue'), sql<number>`sum(parts_cost_cents)`.as('cost')])
           .as('b'),
       (join) => join.onRef('b.locationId', '=', 'l.id'),
     )
@@ -63,7 +66,7 @@ export async function liveCloses(db: Db, month: string, scope: LocationScope): P
     )
     .select(['l.id', 'l.timeZone', 't.royaltyBasisPoints', 't.marketingBasisPoints', 's.basisPoints as taxBasisPoints', 's.laborTaxed', 'b.delivered', 'b.parts', 'b.labor', 'b.revenue', 'b.cost', 'c.claims', 'c.requested', 'c.received', 'c.outstanding'])
     .orderBy('l.code');
-  if (scope !== 'all') query = query.where('l.id', 'in', scope.length > 0 ? scope : [0]);
+  if (scope !== 'all') query = query.where('l.id', 'in', inScope);
   const rows = await query.execute();
 
   return rows.map((r) => {
