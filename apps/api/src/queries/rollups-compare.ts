@@ -13,7 +13,10 @@ const FUNNEL_CONFIDENCE = 0.998;
 const PRICE_FIGURES: readonly string[] = ['revenueCents', 'averageTicketCents', 'warrantyCostShare'];
 const COST_FIGURES: readonly string[] = ['grossMarginShare'];
 
-function compared(all: RollupFigures): ComparedFigures {
+/** The roll-up figures the compared ones are read from: the job mix and the rest are not summed for nothing. */
+const FROM_FIGURES = ['buildsDelivered', 'claimsOpened', 'revenueCents', 'averageTicketCents', 'grossMarginCents', 'laborHoursPerBuild', 'claimsPer100Builds', 'warrantyCostShare'] as const;
+
+function compared(all: Pick<RollupFigures, (typeof FROM_FIGURES)[number]>): ComparedFigures {
   return {
     buildsDelivered: all.buildsDelivered,
     claimsOpened: all.claimsOpened,
@@ -60,7 +63,7 @@ export async function compareLocations(db: Db, query: ComparisonQuery, scope: Lo
   const first = periodNumber('month', `${query.from}-01`);
   const keys = Array.from({ length: periodNumber('month', `${query.to}-01`) - first + 1 }, (_, i) => periodKey('month', first + i));
   const { rows } = await sql<{ id: number; json: string }>`
-    select l.id, ${figuresJson([], summed, { prices: true, costs: true })} as json
+    select l.id, ${figuresJson([], summed, { prices: true, costs: true }, FROM_FIGURES)} as json
     from locations l left join rollup_figures f on f.location_id = l.id and f.grain = 'month' and f.period in (${sql.join(keys)})
     group by l.id order by l.id`.execute(db);
   const all = rows.map((row) => ({ locationId: row.id, figures: compared(JSON.parse(row.json) as RollupFigures) }));
