@@ -21,6 +21,7 @@ export type LiveClose = Omit<LocationClose, 'status' | 'finalizedAt' | 'finalize
  */
 export async function liveCloses(db: Db, month: string, scope: LocationScope): Promise<LiveClose[]> {
   const [first, last] = [`${month}-01`, `${month}-31`];
+  // The scope's ids for `in (…)`, which SQL allows no empty list of (read only when the scope is not the network).
   const inScope = scope === 'all' || scope.length === 0 ? [0] : scope;
   let query = db
     .selectFrom('locations as l')
