@@ -1,5 +1,5 @@
 import type SQLite from 'better-sqlite3';
-import { REFILL_UNIT_EXPOSURE } from '../migrations/043-create-unit-failure-sums.ts';
+import { REFILL_UNIT_EXPOSURE } from '../migrations/046-create-workmanship-counts.ts';
 import { REFILL_ROLLUPS } from '../migrations/042-create-rollup-sums.ts';
 
 /**

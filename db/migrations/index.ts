@@ -44,6 +44,7 @@ import * as createRollupSums from './042-create-rollup-sums.ts';
 import * as createUnitFailureSums from './043-create-unit-failure-sums.ts';
 import * as indexClaimReplacements from './044-index-claim-replacements.ts';
 import * as indexDeliveredBuildSums from './045-index-delivered-build-sums.ts';
+import * as createWorkmanshipCounts from './046-create-workmanship-counts.ts';
 
 /** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
 export const migrations: Record<string, Migration> = {
@@ -92,4 +93,5 @@ export const migrations: Record<string, Migration> = {
   '043-create-unit-failure-sums': createUnitFailureSums,
   '044-index-claim-replacements': indexClaimReplacements,
   '045-index-delivered-build-sums': indexDeliveredBuildSums,
+  '046-create-workmanship-counts': createWorkmanshipCounts,
 };

@@ -37,6 +37,7 @@ import type {
   UnitFailureKindsNetworkTable,
   UnitFailureKindsRegionTable,
   UnitFailuresTable,
+  UnitFailureWorkmanshipTable,
 } from './unit-exposure.ts';
 import type { UsersTable, WeeklyDigestsTable } from './users.ts';
 
@@ -75,6 +76,7 @@ export interface Database {
   unitFailureAgesRegion: UnitFailureAgesRegionTable;
   unitFailureKindsNetwork: UnitFailureKindsNetworkTable;
   unitFailureKindsRegion: UnitFailureKindsRegionTable;
+  unitFailureWorkmanship: UnitFailureWorkmanshipTable;
   rollupFigures: RollupFiguresTable;
   rollupNetwork: RollupNetworkTable;
   rollupRegion: RollupRegionTable;

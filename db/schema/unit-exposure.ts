@@ -77,3 +77,10 @@ export interface UnitFailureKindsNetworkTable {
 
 /** The same per region. */
 export type UnitFailureKindsRegionTable = UnitFailureKindsNetworkTable & { regionId: number };
+
+/** Claims under the shop's own workmanship warranty per catalog item and location (migration 046). */
+export interface UnitFailureWorkmanshipTable {
+  catalogItemId: number;
+  locationId: number;
+  failures: number;
+}

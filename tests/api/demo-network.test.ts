@@ -170,12 +170,14 @@ describe('generated network, roll-ups', () => {
 });
 
 describe('generated network, failure counts', () => {
-  it('keeps every failure counted by age and by kind, over the network and in its region', async () => {
+  it('keeps every failure counted by age and by kind, over the network and in its region, and the workmanship claims by shop', async () => {
     const failures = Number((await sql<{ n: number }>`select count(*) as n from unit_failures`.execute(db)).rows[0]!.n);
     expect(failures).toBeGreaterThan(100);
     for (const table of ['unit_failure_ages_network', 'unit_failure_ages_region', 'unit_failure_kinds_network', 'unit_failure_kinds_region']) {
       expect((await sql<{ n: number }>`select sum(failures) as n from ${sql.table(table)}`.execute(db)).rows[0]!.n, table).toBe(failures);
     }
+    const workmanship = await sql<{ n: number }>`select (select sum(failures) from unit_failure_workmanship) - (select count(*) from unit_failures where coverage = 'workmanship') as n`.execute(db);
+    expect(workmanship.rows[0]!.n).toBe(0);
     const ages = await sql`select catalog_item_id, region_id, age_days, failures from unit_failure_ages_region order by 1, 2, 3`.execute(db);
     const counted = await sql`select u.catalog_item_id, l.region_id, u.failed_day - u.installed_day as age_days, count(*) as failures
       from unit_failures u join locations l on l.id = u.location_id group by 1, 2, 3 order by 1, 2, 3`.execute(db);

@@ -4,7 +4,7 @@ import { DAYS_PER_MONTH, type ReliabilityDetail } from '@busbar/shared';
 import fc from 'fast-check';
 import { sql } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { REFILL_UNIT_EXPOSURE } from '../../db/migrations/043-create-unit-failure-sums.ts';
+import { REFILL_UNIT_EXPOSURE } from '../../db/migrations/046-create-workmanship-counts.ts';
 import { demoIds, startHarness, type Harness } from '../support/api-harness.ts';
 import { afterRefill, rolledBack } from '../support/kept-tables.ts';
 import { addCatalogItem, addVendor } from '../support/catalog-fixtures.ts';
@@ -119,7 +119,7 @@ async function keptTables(db: Db) {
   const failures = await sql<object>`select * from unit_failures order by claim_id`.execute(db);
   const failureSums = await Promise.all(
     // Each table by its key's columns, all but the last (the count).
-    ([['ages_network', 2], ['ages_region', 3], ['kinds_network', 3], ['kinds_region', 4]] as const).map(async ([t, keys]) => {
+    ([['ages_network', 2], ['ages_region', 3], ['kinds_network', 3], ['kinds_region', 4], ['workmanship', 2]] as const).map(async ([t, keys]) => {
       const order = sql.raw(Array.from({ length: keys }, (_, i) => i + 1).join(', '));
       return (await sql<object>`select * from ${sql.table(`unit_failure_${t}`)} order by ${order}`.execute(db)).rows;
     }),
@@ -146,13 +146,14 @@ async function cellsByLocation(db: Db) {
   return rows;
 }
 
-/** The failures counted one by one, by age and by kind, over the network and by each location's region as it stands. */
+/** The failures counted one by one, by age and by kind, over the network and by each location's region as it stands, and the workmanship claims by shop. */
 async function failuresCounted(db: Db) {
   const regionOf = new Map((await db.selectFrom('locations').select(['id', 'regionId']).execute()).map((l) => [l.id, l.regionId]));
   const failures = await db.selectFrom('unitFailures').select(['catalogItemId', 'locationId', 'installedDay', 'failedDay', 'coverage', 'failureMode']).execute();
-  const counted = (key: (f: (typeof failures)[number]) => (string | number)[], names: string[]) => {
+  type Failure = (typeof failures)[number];
+  const counted = (key: (f: Failure) => (string | number)[], names: string[], which: (f: Failure) => boolean = () => true) => {
     const counts = new Map<string, { key: (string | number)[]; failures: number }>();
-    for (const f of failures) {
+    for (const f of failures.filter(which)) {
       const k = key(f);
       const entry = counts.get(JSON.stringify(k)) ?? { key: k, failures: 0 };
       counts.set(JSON.stringify(k), { ...entry, failures: entry.failures + 1 });
@@ -160,12 +161,13 @@ async function failuresCounted(db: Db) {
     const byKey = (a: (string | number)[], b: (string | number)[]) => a.map((v, i) => (v < b[i]! ? -1 : v > b[i]! ? 1 : 0)).find((d) => d !== 0) ?? 0;
     return [...counts.values()].sort((a, b) => byKey(a.key, b.key)).map(({ key: k, failures: n }) => ({ ...Object.fromEntries(names.map((name, i) => [name, k[i]])), failures: n }));
   };
-  const age = (f: (typeof failures)[number]) => f.failedDay - f.installedDay;
+  const age = (f: Failure) => f.failedDay - f.installedDay;
   return [
     counted((f) => [f.catalogItemId, age(f)], ['catalogItemId', 'ageDays']),
     counted((f) => [f.catalogItemId, regionOf.get(f.locationId)!, age(f)], ['catalogItemId', 'regionId', 'ageDays']),
     counted((f) => [f.catalogItemId, f.coverage, f.failureMode], ['catalogItemId', 'coverage', 'failureMode']),
     counted((f) => [f.catalogItemId, regionOf.get(f.locationId)!, f.coverage, f.failureMode], ['catalogItemId', 'regionId', 'coverage', 'failureMode']),
+    counted((f) => [f.catalogItemId, f.locationId], ['catalogItemId', 'locationId'], (f) => f.coverage === 'workmanship'),
   ];
 }
 

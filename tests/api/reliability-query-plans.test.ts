@@ -87,23 +87,28 @@ describe('reliability query plans', () => {
     expect(plans).not.toMatch(/builds|build_items|warranty_claims/);
   });
 
-  it("a shop's category seeks the shop's failures of its items; the funnel's workmanship claims seek each item's", async () => {
-    const run = (db: typeof h.db) => reliabilityDetail(db, { groupBy: 'category', key: 'house_battery' }, [ids.location('DEN')], new Map(), {}, TODAY.today, TODAY.todayDay);
-    const reads = (await plansOf(h.db, run)).flat().filter((line) => /^(SEARCH|SCAN) unit_failures\b/.test(line));
+  it("a shop's category seeks the shop's failures of its items; asked for months, the funnel's workmanship claims are sought by item", async () => {
+    const category = (query: { from?: string; to?: string }) => (db: typeof h.db) =>
+      reliabilityDetail(db, { groupBy: 'category', key: 'house_battery' }, [ids.location('DEN')], new Map(), query, TODAY.today, TODAY.todayDay);
+    const readsOf = async (query: { from?: string; to?: string }) => (await plansOf(h.db, category(query))).flat().filter((line) => /^(SEARCH|SCAN) unit_failures\b/.test(line));
     // The failure ages (on 200 shops the claim shares too: on the demo's 8 the item's index is as good).
+    const reads = await readsOf({});
     expect(reads, reads.join('\n')).toContain('SEARCH unit_failures USING COVERING INDEX unit_failures_location (location_id=? AND catalog_item_id=?)');
-    // Every shop's workmanship claims: each item's, never a skip through every shop's.
-    expect(reads).toContain('SEARCH unit_failures USING COVERING INDEX unit_failures_kinds (catalog_item_id=? AND coverage=?)');
-    expect(reads.filter((line) => line.startsWith('SCAN') || line.includes('ANY('))).toEqual([]);
+    // Every shop's workmanship claims over every install month are counted already.
+    expect(await tablesOf(category({}))).toContain('unit_failure_workmanship');
+    expect(reads.filter((line) => line.startsWith('SCAN') || line.includes('ANY(') || line.includes('coverage=?'))).toEqual([]);
+    // Some months: the workmanship claims sought by item, never a skip through every shop's.
+    const months = await readsOf({ from: '2025-01', to: '2026-06' });
+    expect(months.some((line) => line.includes('(catalog_item_id=?'))).toBe(true);
+    expect(months.filter((line) => line.startsWith('SCAN') || line.includes('ANY('))).toEqual([]);
   });
 
-  it("a category's funnel reads each shop's lifetime sums, and its failure ages and kinds the kept counts", async () => {
+  it("a category's funnel reads each shop's lifetime sums and workmanship claims, and its failure ages and kinds the kept counts", async () => {
     const run = (db: typeof h.db) => reliabilityDetail(db, { groupBy: 'category', key: 'house_battery' }, 'all', new Map(), {}, TODAY.today, TODAY.todayDay);
     const tables = await tablesOf(run);
-    expect(tables).toEqual(expect.arrayContaining(['unit_exposure_lifetime', 'unit_failure_ages_network', 'unit_failure_kinds_network']));
+    expect(tables).toEqual(expect.arrayContaining(['unit_exposure_lifetime', 'unit_failure_ages_network', 'unit_failure_kinds_network', 'unit_failure_workmanship']));
     expect(tables).not.toContain('unit_exposure');
-    // Only the funnel's workmanship claims read failures one by one.
-    const reads = (await plansOf(h.db, run)).flat().filter((line) => /^(SEARCH|SCAN) unit_failures\b/.test(line));
-    expect(reads).toEqual(['SEARCH unit_failures USING COVERING INDEX unit_failures_kinds (catalog_item_id=? AND coverage=?)']);
+    // No failure is read one by one.
+    expect((await plansOf(h.db, run)).flat().filter((line) => /^(SEARCH|SCAN) unit_failures\b/.test(line))).toEqual([]);
   });
 });

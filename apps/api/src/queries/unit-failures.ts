@@ -96,8 +96,17 @@ export async function claimShares(db: Db, filter: FailureFilter): Promise<Share[
   return [...shares.values()];
 }
 
-/** Claims under the shop's own workmanship warranty, by location. */
+/** Claims under the shop's own workmanship warranty, by location: the whole network's over every install month as counted (migration 046). */
 export async function workmanshipClaims(db: Db, filter: FailureFilter): Promise<Map<number, number>> {
+  if (filter.scope === 'all' && !filter.from && !filter.to) {
+    const counted = await db
+      .selectFrom('unitFailureWorkmanship')
+      .where('catalogItemId', 'in', itemsIn(filter.itemIds))
+      .select(['locationId', sql<number>`sum(failures)`.as('claims')])
+      .groupBy('locationId')
+      .execute();
+    return new Map(counted.map((row) => [row.locationId, row.claims]));
+  }
   const rows = await failuresOf(db, filter)
     .where('coverage', '=', 'workmanship')
     .select(['locationId', sql<number>`count(*)`.as('claims')])
