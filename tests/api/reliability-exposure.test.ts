@@ -174,7 +174,7 @@ async function failuresCounted(db: Db) {
 const refilled = (db: Db) => afterRefill(db, REFILL_UNIT_EXPOSURE, keptTables);
 
 describe('the kept tables follow every change', () => {
-  it('match a refill from scratch after any mix of deliveries, corrections, claims, plans, moves and shops changing region, the regions and lifetimes summing their cells', async () => {
+  it('match a refill from scratch after any mix of deliveries, corrections, claims, plans, moves and shops changing region, the regions and lifetimes summing their cells and the failure counts counting the failures', async () => {
     const units = await h.db.selectFrom('buildItems').select(['id', 'buildId']).execute();
     const builds = [...new Set(units.map((u) => u.buildId))];
     const claims = await h.db.selectFrom('warrantyClaims').select('id').execute();
