@@ -45,6 +45,7 @@ import * as createUnitFailureSums from './043-create-unit-failure-sums.ts';
 import * as indexClaimReplacements from './044-index-claim-replacements.ts';
 import * as indexDeliveredBuildSums from './045-index-delivered-build-sums.ts';
 import * as createWorkmanshipCounts from './046-create-workmanship-counts.ts';
+import * as indexLoggedClaimSums from './047-index-logged-claim-sums.ts';
 
 /** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
 export const migrations: Record<string, Migration> = {
@@ -94,4 +95,5 @@ export const migrations: Record<string, Migration> = {
   '044-index-claim-replacements': indexClaimReplacements,
   '045-index-delivered-build-sums': indexDeliveredBuildSums,
   '046-create-workmanship-counts': createWorkmanshipCounts,
+  '047-index-logged-claim-sums': indexLoggedClaimSums,
 };

@@ -42,13 +42,16 @@ export async function liveCloses(db: Db, month: string, scope: LocationScope): P
     )
     .leftJoin(
       (eb) =>
+        // Likewise each shop's claims logged in the month, through their sums' index (migration 047).
         eb
-          .selectFrom('warrantyClaims')
-          .where('loggedOn', '>=', first)
-          .where('loggedOn', '<=', last)
-          .groupBy('locationId')
+          .selectFrom('locations as cl')
+          .innerJoin('warrantyClaims', 'warrantyClaims.locationId', 'cl.id')
+          .where('warrantyClaims.loggedOn', '>=', first)
+          .where('warrantyClaims.loggedOn', '<=', last)
+          .$if(scope !== 'all', (q) => q.where('cl.id', 'in', inScope))
+          .groupBy('cl.id')
           .select([
-            'locationId',
+            'cl.id as locationId',
             sql<number>`count(*)`.as('claims'),
             sql<number>`sum(credit_requested_cents)`.as('requested'),
             sql<number>`sum(coalesce(credit_received_cents, 0))`.as('received'),
