@@ -16,7 +16,9 @@ const COST_FIGURES: readonly string[] = ['grossMarginShare'];
 /** The roll-up figures the compared ones are read from: the job mix and the rest are not summed for nothing. */
 const FROM_FIGURES = ['buildsDelivered', 'claimsOpened', 'revenueCents', 'averageTicketCents', 'grossMarginCents', 'laborHoursPerBuild', 'claimsPer100Builds', 'warrantyCostShare'] as const;
 
-function compared(all: Pick<RollupFigures, (typeof FROM_FIGURES)[number]>): ComparedFigures {
+type FromFigures = Pick<RollupFigures, (typeof FROM_FIGURES)[number]>;
+
+function compared(all: FromFigures): ComparedFigures {
   return {
     buildsDelivered: all.buildsDelivered,
     claimsOpened: all.claimsOpened,
@@ -66,7 +68,7 @@ export async function compareLocations(db: Db, query: ComparisonQuery, scope: Lo
     select l.id, ${figuresJson([], summed, { prices: true, costs: true }, FROM_FIGURES)} as json
     from locations l left join rollup_figures f on f.location_id = l.id and f.grain = 'month' and f.period in (${sql.join(keys)})
     group by l.id order by l.id`.execute(db);
-  const all = rows.map((row) => ({ locationId: row.id, figures: compared(JSON.parse(row.json) as RollupFigures) }));
+  const all = rows.map((row) => ({ locationId: row.id, figures: compared(JSON.parse(row.json) as FromFigures) }));
   const active = all.filter((f) => f.figures.buildsDelivered > 0);
   const marks = outliersOf(active);
 

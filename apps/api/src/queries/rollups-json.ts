@@ -23,9 +23,9 @@ type Pair = [name: string, value: RawBuilder<unknown>];
 /**
  * The figures of RollupFigures made from the sums, as one JSON object per row built by SQLite, after
  * `head` (the location or region and the period), without the money the person may not read (and,
- * given `only`, with only those figures). The answer of a year of the network's roll-ups is 5,000 such objects: made in SQL, the owner's year by
- * month took 37 ms in process instead of 69 as rows turned into objects and back into text, with
- * nothing left for the collector. The arithmetic is JavaScript's
+ * given `only`, with only those figures). The answer of a year of the network's roll-ups is 5,000
+ * such objects: made in SQL, the owner's year by month took 37 ms in process instead of 69 as rows
+ * turned into objects and back into text, with nothing left for the collector. The arithmetic is JavaScript's
  * (IEEE doubles; SQLite writes the shortest text that reads back as the same double). SQLite's
  * functions: on PostgreSQL `json_object` is `json_build_object` and `json_patch('{}', …)`, which
  * drops the job mix's empty categories, is `jsonb_strip_nulls`.
