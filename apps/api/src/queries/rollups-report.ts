@@ -6,7 +6,7 @@ import type { Viewer } from '../access/viewer.ts';
 import { invalidField } from '../errors.ts';
 import { utf8Of } from '../utf8.ts';
 import { byMoneyReads, figuresJson, holdsAny, jsonArrayOf, own, summed, type MoneyReads } from './rollups-json.ts';
-import { locationRegions } from './rollups.ts';
+import { locationRegions, regionsMadeOf } from './regions.ts';
 
 /** The asked periods with the keys of the period before each and of the same period a year before. */
 export function askedPeriods({ grain, from, to }: RollupQuery) {
@@ -69,10 +69,8 @@ export async function rollupReportJson(db: Db, query: RollupQuery, scope: Locati
   // A scope of whole regions (a regional manager's) sums its regions' rows; any other, its locations'.
   const summedOver = (from: RawBuilder<unknown>) =>
     jsonArrayOf(db, sql`json(j)`, sql`(select ${figuresJson([['period', period]], summed, reads(scopeIds))} as j from ${from} group by f.period having ${holdsAny(summed)})`);
-  const regionOf = new Map(locations.map((l) => [l.id, l.regionId]));
-  const scopeRegions = [...new Set(scopeIds.map((id) => regionOf.get(id)!))];
-  const scopeSums =
-    scope === 'all' ? network : await summedOver(scopeRegions.every((r) => whole.includes(r)) ? of('rollup_region', inRegions(scopeRegions)) : of('rollup_figures', inLocations));
+  const scopeRegions = scope === 'all' ? null : regionsMadeOf(locations, scope);
+  const scopeSums = scope === 'all' ? network : await summedOver(scopeRegions ? of('rollup_region', inRegions(scopeRegions)) : of('rollup_figures', inLocations));
   return utf8Of([`{"grain":${JSON.stringify(grain)},"periods":${JSON.stringify(periods)},"rows":`, rows, ',"scope":', scopeSums, ',"regions":', regions, ',"network":', network, '}']);
 }
 

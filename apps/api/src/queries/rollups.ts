@@ -1,4 +1,4 @@
-import type { Database, Db } from '@busbar/db';
+import type { Database } from '@busbar/db';
 import { CATEGORIES, type Category } from '@busbar/shared';
 
 /** The stored sums of a period (migration 021), from which every roll-up figure is made. */
@@ -13,6 +13,3 @@ export const SUM_FIELDS = [
   ...CATEGORIES.map(mixColumn),
 ] as const satisfies readonly (keyof RollupSums)[];
 export type SumField = (typeof SUM_FIELDS)[number];
-
-/** Every location with its region, to sum regions wholly in a person's scope. */
-export const locationRegions = (db: Db) => db.selectFrom('locations').select(['id', 'regionId']).execute();

@@ -2,6 +2,7 @@ import type { Database, Db } from '@busbar/db';
 import type { Category, ReliabilityGroup } from '@busbar/shared';
 import { sql, type ExpressionBuilder, type RawBuilder, type SqlBool } from 'kysely';
 import type { LocationScope } from '../access/locations.ts';
+import { wholeRegions } from './regions.ts';
 
 /** Which units: an item, category or vendor (or all), at these locations, installed in these months (YYYY-MM, inclusive). */
 export interface UnitFilter {
@@ -110,18 +111,6 @@ export async function serviceByLocation(db: Db, filter: UnitFilter, today: strin
     .groupBy('x.locationId')
     .execute();
   return new Map(rows.map(({ locationId, ...sums }) => [locationId, sums]));
-}
-
-/**
- * The regions the locations make up when they are every location of each region they touch (a
- * regional manager's scope), so that the regions' sums stand in for their cells; otherwise null.
- */
-export async function wholeRegions(db: Db, scope: number[]): Promise<number[] | null> {
-  const locations = await db.selectFrom('locations').select(['id', 'regionId']).execute();
-  const chosen = new Set(scope);
-  const touched = new Set(locations.filter((l) => chosen.has(l.id)).map((l) => l.regionId));
-  if (touched.size === 0 || locations.some((l) => touched.has(l.regionId) && !chosen.has(l.id))) return null;
-  return [...touched];
 }
 
 function conditions(eb: Cells, { group, scope, from, to }: UnitFilter, regions: number[] | null) {

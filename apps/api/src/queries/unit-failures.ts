@@ -3,7 +3,7 @@ import type { Database, Db } from '@busbar/db';
 import type { Coverage, FailureMode } from '@busbar/shared';
 import { sql, type SelectQueryBuilder } from 'kysely';
 import type { LocationScope } from '../access/locations.ts';
-import { wholeRegions } from './unit-exposure.ts';
+import { wholeRegions } from './regions.ts';
 
 /** Which failures: of these catalog items, among units installed in the months (YYYY-MM, inclusive), at these locations. */
 export interface FailureFilter {
