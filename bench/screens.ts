@@ -59,15 +59,23 @@ export interface Ids {
 /**
  * Figures of one screen for one person: latencies and how many rows the answer held (a short page
  * at the demo's size is not like for like with a full one; a report's rows grow with the shops), or
- * the refusal they get (a lead reads no audit log).
+ * the refusal they get (a lead reads no audit log). `sameRows`: the same list asked for a page of
+ * the demo's rows, where the demo's page was shorter.
  */
-export type ScreenFigure = (Latency & { rows: number | null }) | { status: number };
+export type ScreenFigure = (Latency & { rows: number | null; sameRows?: Latency }) | { status: number };
 
 /** The rows of a list's page, a report's rows or a month close's shops; null for a single record. */
 function rowsOf(body: string): number | null {
   const answer = JSON.parse(body) as Record<string, unknown>;
   const rows = [answer.items, answer.rows, answer.locations].find(Array.isArray);
   return rows ? rows.length : null;
+}
+
+/** `path` asking for pages of `rows` rows. */
+function withPageSize(path: string, rows: number): string {
+  const url = new URL(path, 'http://bench');
+  url.searchParams.set('pageSize', String(rows));
+  return `${url.pathname}${url.search}`;
 }
 
 /** The first record of one of the person's lists. */
@@ -86,8 +94,23 @@ export async function idsFor(person: Person): Promise<Ids> {
   return { buildId: await firstOf(person, 'builds'), customerId: await firstOf(person, 'customers'), claimId: await firstOf(person, 'claims'), reliabilityItemId, regionId: location!.regionId };
 }
 
-/** Each screen's request, a few times untimed to warm up, then `samples` times one after another. */
-export async function measureScreens(person: Person, samples: number, onScreen: (label: string) => void): Promise<Map<string, ScreenFigure>> {
+/** A request `warmUps` times untimed, then `samples` times one after another. */
+async function timed(person: Person, label: string, path: string, samples: number, warmUps: number): Promise<Latency> {
+  for (let i = 0; i < warmUps; i++) await call(person, 'GET', path);
+  const times: number[] = [];
+  for (let i = 0; i < samples; i++) {
+    const answer = await call(person, 'GET', path);
+    if (answer.status !== 200) throw new Error(`${label} answered ${answer.status} while timed: ${answer.body.slice(0, 200)}`);
+    times.push(answer.ms);
+  }
+  return latency(times);
+}
+
+/**
+ * Each screen's request, timed (see `timed`). Given the person's figures at the demo's size, a list
+ * whose page there was shorter is timed once more with pages of the demo's rows, like for like.
+ */
+export async function measureScreens(person: Person, samples: number, onScreen: (label: string) => void, demo?: Map<string, ScreenFigure>): Promise<Map<string, ScreenFigure>> {
   const ids = await idsFor(person);
   const figures = new Map<string, ScreenFigure>();
   for (const [label, path] of SCREENS) {
@@ -97,14 +120,15 @@ export async function measureScreens(person: Person, samples: number, onScreen: 
       figures.set(label, { status: first.status });
       continue;
     }
-    for (let i = 0; i < 4; i++) await call(person, 'GET', path(ids));
-    const times: number[] = [];
-    for (let i = 0; i < samples; i++) {
-      const answer = await call(person, 'GET', path(ids));
-      if (answer.status !== 200) throw new Error(`${label} answered ${answer.status} while timed: ${answer.body.slice(0, 200)}`);
-      times.push(answer.ms);
+    const rows = rowsOf(first.body);
+    // The first request warms up too.
+    const figure: ScreenFigure = { ...(await timed(person, label, path(ids), samples, 4)), rows };
+    const demoRows = demo?.get(label);
+    const paged = Array.isArray((JSON.parse(first.body) as { items?: unknown }).items);
+    if (paged && rows !== null && demoRows && 'rows' in demoRows && demoRows.rows !== null && demoRows.rows > 0 && demoRows.rows < rows) {
+      figure.sameRows = await timed(person, label, withPageSize(path(ids), demoRows.rows), samples, 5);
     }
-    figures.set(label, { ...latency(times), rows: rowsOf(first.body) });
+    figures.set(label, figure);
   }
   return figures;
 }
