@@ -1,9 +1,10 @@
-import { existsSync } from 'node:fs';
+import { existsSync, readFileSync } from 'node:fs';
 import { Agent } from 'node:http';
 import { DEMO_PASSWORD } from '@busbar/db';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { call, signIn, type Person } from '../../bench/client.ts';
 import { startApp, type RunningApp } from '../../bench/server.ts';
+import { SEMI_SPACE_MB } from '../../apps/api/src/start/workers.ts';
 import { demoIds, startHarness, type Harness } from '../support/api-harness.ts';
 import { SIGN_INS } from '../support/staff-fixtures.ts';
 
@@ -15,6 +16,8 @@ let h: Harness;
 let app: RunningApp;
 const fresh = new Agent({ keepAlive: false });
 const person = (email: string) => signIn(app.baseUrl, email, DEMO_PASSWORD, fresh);
+/** Whether a process was started with the young generation the app sets for its processes. */
+const youngGenerationSet = (pid: number) => readFileSync(`/proc/${pid}/cmdline`, 'utf8').split('\0').includes(`--max-semi-space-size=${SEMI_SPACE_MB}`);
 const roles = async (who: Person) => (JSON.parse((await call(who, 'GET', '/api/session')).body) as { assignments: { id: number; locationCode: string }[] }).assignments;
 
 beforeAll(async () => {
@@ -88,5 +91,21 @@ describe('the app on two processes', () => {
     expect(app.processes()).toContain(second);
     expect(app.processes()).not.toContain(first);
     expect(app.processes()).toHaveLength(2);
+    expect(app.processes().every(youngGenerationSet)).toBe(true);
   });
+});
+
+describe('the app on one process', () => {
+  it('answers from a process of its own, started with the same young generation as several', async () => {
+    const single = await startApp(h.dataDir, { BUSBAR_PROCESSES: '1', DEMO_DATA: 'false' });
+    try {
+      // The first process started it, so the one answering is another, with the app's heap settings.
+      expect(single.processes()).toHaveLength(1);
+      expect(youngGenerationSet(single.processes()[0]!)).toBe(true);
+      const owner = await signIn(single.baseUrl, SIGN_INS.owner, DEMO_PASSWORD);
+      expect((await call(owner, 'GET', '/api/builds?pageSize=1')).status).toBe(200);
+    } finally {
+      await single.stop();
+    }
+  }, 60_000);
 });

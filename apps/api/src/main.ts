@@ -10,11 +10,8 @@ const announce = () => console.log(`Busbar is running at ${config.publicUrl}${co
 if (cluster.isPrimary) {
   for (const warning of configWarnings(config)) console.warn(warning);
   const mail = await prepare(config, now);
-  if (config.processes === 1) await serve(config, mail, now).then(announce);
-  else {
-    cluster.once('listening', announce);
-    startWorkers(config, mail);
-  }
+  cluster.once('listening', announce);
+  startWorkers(config, mail);
 } else {
   await serve(config, fromPrimary().mail, now);
 }
