@@ -124,7 +124,7 @@ export async function measureScreens(person: Person, samples: number, onScreen: 
     // The first request warms up too.
     const figure: ScreenFigure = { ...(await timed(person, label, path(ids), samples, 4)), rows };
     const demoRows = demo?.get(label);
-    const paged = Array.isArray((JSON.parse(first.body) as { items?: unknown }).items);
+    const paged = typeof (JSON.parse(first.body) as { pageSize?: unknown }).pageSize === 'number';
     if (paged && rows !== null && demoRows && 'rows' in demoRows && demoRows.rows !== null && demoRows.rows > 0 && demoRows.rows < rows) {
       figure.sameRows = await timed(person, label, withPageSize(path(ids), demoRows.rows), samples, 5);
     }

@@ -72,31 +72,42 @@ async function vehicleFor(trx: Db, location: ImportLocation, customerId: number,
 const CHUNK = 500;
 
 /**
- * Rows written per transaction. Each transaction holds SQLite's one write lock, and a person's
- * save waits for it with the whole server: a batch of 100 holds it for about a tenth of a second,
- * where 2,000 rows in one transaction held it for 2-3 s.
+ * How an import takes turns with people's saves for SQLite's one write lock. Measured on the
+ * 200-shop network (bench/contention.ts, two runs each): batches of 100 rows held the lock for
+ * about 200 ms, and a lead's saves meanwhile waited up to 240 ms (p95 193–238); 80 ms batches and
+ * 30 ms pauses: p95 109–119 ms, the 2,000 rows written as fast (5.1–6.2 s); 40 ms and 50 ms: p95
+ * 61–114 ms, but 12–13 s, as each commit writes the full-text indexes' new rows out.
  */
-const ROWS_PER_BATCH = 100;
+export interface Pace {
+  /** How long a transaction may go on taking rows: a batch ends at its first row written past it, on any network. */
+  batchMs: number;
+  /**
+   * A pause between batches, so a save waiting on the lock takes it before the next batch does:
+   * SQLite's busy handler tries a waiting save again every 20–25 ms by then.
+   */
+  pauseMs: number;
+}
 
-/** A pause between batches, so a save waiting on the lock takes it before the next batch does. */
-const PAUSE_MS = 50;
+const PACE: Pace = { batchMs: 80, pauseMs: 30 };
 
 /**
- * Writes checked rows as builds of the location, in file order, a batch per transaction. When a
- * batch fails (a serial number taken since the rows were checked), the batches before it are
- * taken back, so an import is written whole or not at all; people may see its builds meanwhile.
+ * Writes checked rows as builds of the location, in file order, a batch per transaction (see
+ * Pace). When a batch fails (a serial number taken since the rows were checked), the batches
+ * before it are taken back, so an import is written whole or not at all; people may see its
+ * builds meanwhile.
  */
-export async function writeImport(db: Db, location: ImportLocation, rows: CheckedRow[], actorId: number, at: string): Promise<number> {
+export async function writeImport(db: Db, location: ImportLocation, rows: CheckedRow[], actorId: number, at: string, pace = PACE): Promise<number> {
   const written: Written = { builds: [], customers: [], vehicles: [] };
   try {
-    for (let first = 0; first < rows.length; first += ROWS_PER_BATCH) {
-      if (first > 0) await new Promise((resolve) => setTimeout(resolve, PAUSE_MS));
+    for (let next = 0; next < rows.length; ) {
+      if (next > 0) await new Promise((resolve) => setTimeout(resolve, pace.pauseMs));
       const batch = await db.transaction().execute(async (trx) => {
         const created: Written = { builds: [], customers: [], vehicles: [] };
-        await writeBatch(trx, location, rows.slice(first, first + ROWS_PER_BATCH), actorId, at, created);
-        return created;
+        const ended = await writeBatch(trx, location, rows, next, performance.now() + pace.batchMs, { actorId, at }, created);
+        return { created, ended };
       });
-      for (const key of ['builds', 'customers', 'vehicles'] as const) written[key].push(...batch[key]);
+      next = batch.ended;
+      for (const key of ['builds', 'customers', 'vehicles'] as const) written[key].push(...batch.created[key]);
     }
   } catch (failure) {
     await db.transaction().execute((trx) => takeBack(trx, written));
@@ -130,10 +141,14 @@ async function takeBack(trx: Db, written: Written): Promise<void> {
   }
 }
 
-async function writeBatch(trx: Db, location: ImportLocation, rows: CheckedRow[], actorId: number, at: string, written: Written): Promise<void> {
+/** Writes rows from `first` on until one is written past `until` (performance.now()); answers where the next batch begins. */
+async function writeBatch(trx: Db, location: ImportLocation, rows: CheckedRow[], first: number, until: number, by: { actorId: number; at: string }, written: Written): Promise<number> {
+  const { actorId, at } = by;
   const events: { buildId: number; line: number; status: CheckedRow['row']['status'] }[] = [];
   const audits: { buildId: number; after: string }[] = [];
-  for (const { row, items, leadTechnicianId, line } of rows) {
+  let next = first;
+  while (next < rows.length && (next === first || performance.now() < until)) {
+    const { row, items, leadTechnicianId, line } = rows[next++]!;
     const customerId = await customerFor(trx, location, row, at, written);
     const vehicleId = await vehicleFor(trx, location, customerId, row, written);
     const { sequence, number } = await nextBuildNumber(trx, location);
@@ -183,4 +198,5 @@ async function writeBatch(trx: Db, location: ImportLocation, rows: CheckedRow[],
       .values(audits.slice(i, i + CHUNK).map((a) => ({ at, actorId, action: 'build.import', entity: 'build', entityId: a.buildId, before: null, after: a.after })))
       .execute();
   }
+  return next;
 }
