@@ -13,7 +13,7 @@ import { up as createCustomerSearch } from './009-create-customer-search.ts';
  * Both indexes keep no copy of the text: their content is a view. Triggers keep them current the
  * way 005 describes: remove a row as the view still shows it, then add it as it shows it after.
  */
-interface SearchIndex {
+export interface SearchIndex {
   table: string;
   view: string;
   columns: string;
@@ -22,7 +22,7 @@ interface SearchIndex {
   triggers: [string, string, string][];
 }
 
-const BUILDS: SearchIndex = {
+export const BUILDS: SearchIndex = {
   table: 'build_search',
   view: 'build_search_source',
   columns: 'number, customer, vehicle, serials, place, state',
@@ -68,7 +68,7 @@ function triggerBody({ table, view, columns }: SearchIndex, change: string): str
   return `insert into ${table} (${table}, rowid, ${columns}) select 'delete', id, ${columns} from ${view} where ${where};`;
 }
 
-async function create(db: Kysely<any>, index: SearchIndex): Promise<void> {
+export async function create(db: Kysely<any>, index: SearchIndex): Promise<void> {
   await sql.raw(`create view ${index.view} as ${index.source}`).execute(db);
   await sql
     .raw(`create virtual table ${index.table} using fts5(${index.columns}, content = '${index.view}', content_rowid = 'id', tokenize = 'trigram')`)
@@ -78,7 +78,7 @@ async function create(db: Kysely<any>, index: SearchIndex): Promise<void> {
 }
 
 /** Drops an index with its triggers (whatever their names) and its view, if it has one. */
-async function drop(db: Kysely<any>, table: string, view?: string): Promise<void> {
+export async function drop(db: Kysely<any>, table: string, view?: string): Promise<void> {
   const triggers = await sql<{ name: string }>`select name from sqlite_master where type = 'trigger' and name like ${`${table}_%`}`.execute(db);
   for (const { name } of triggers.rows) await sql.raw(`drop trigger ${name}`).execute(db);
   await sql.raw(`drop table ${table}`).execute(db);

@@ -36,7 +36,7 @@ async function everyId<T>(agent: Agent, path: string, query: Record<string, stri
 
 const like = (text: string) => `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
 
-/** Builds whose number, customer name, vehicle or a serial number contains `text`, by LIKE alone (newest first). */
+/** Builds whose number, customer name, vehicle, its VIN or plate, or a serial number contains `text`, by LIKE alone (newest first). */
 async function scanBuilds(text: string, locationId?: number, status?: string[]): Promise<string[]> {
   const pattern = like(text);
   const rows = await sql<{ id: number }>`select b.id from builds b join customers c on c.id = b.customer_id join vehicles v on v.id = b.vehicle_id
@@ -44,16 +44,18 @@ async function scanBuilds(text: string, locationId?: number, status?: string[]):
       and (${status ? null : 1} is not null or b.status in (${sql.join(status ?? [''])}))
       and (b.number like ${pattern} escape '\\' or c.name like ${pattern} escape '\\'
         or (v.year || ' ' || v.make || ' ' || v.model) like ${pattern} escape '\\'
+        or v.vin like ${pattern} escape '\\' or v.plate like ${pattern} escape '\\'
         or exists (select 1 from build_items i where i.build_id = b.id and i.serial_number like ${pattern} escape '\\'))
     order by b.id desc`.execute(h.db);
   return rows.rows.map((r) => String(r.id));
 }
 
-/** Texts to look for, taken from the demo data: pieces of numbers, names, vehicles and serials, in other cases too. */
+/** Texts to look for, taken from the demo data: pieces of numbers, names, vehicles, VINs, plates and serials, in other cases too. */
 async function sampleTexts(): Promise<string[]> {
   const build = await h.db.selectFrom('builds').select('number').where('id', '=', 37).executeTakeFirstOrThrow();
   const customer = await h.db.selectFrom('customers').select('name').orderBy('id').limit(1).offset(11).executeTakeFirstOrThrow();
   const vehicle = await h.db.selectFrom('vehicles').select(['make', 'model']).orderBy('id').limit(1).offset(5).executeTakeFirstOrThrow();
+  const identity = await h.db.selectFrom('vehicles').select(['vin', 'plate']).where('vin', 'is not', null).where('plate', 'is not', null).orderBy('id').limit(1).offset(9).executeTakeFirstOrThrow();
   const serial = await h.db.selectFrom('buildItems').select('serialNumber').where('serialNumber', 'is not', null).orderBy('id').limit(1).offset(40).executeTakeFirstOrThrow();
   return [
     build.number.slice(-4),
@@ -62,6 +64,8 @@ async function sampleTexts(): Promise<string[]> {
     customer.name.slice(1, 6),
     vehicle.make.toLowerCase(),
     vehicle.model.slice(0, 4),
+    identity.vin!.slice(9).toLowerCase(),
+    identity.plate!,
     serial.serialNumber!.slice(2, 8).toLowerCase(),
     'DEN-',
     'an',
@@ -81,13 +85,13 @@ describe('build search', () => {
   }, 60_000);
 
   it("finds for a lead what a plain scan finds at the lead's shop", async () => {
-    for (const q of (await sampleTexts()).slice(0, 8)) {
+    for (const q of (await sampleTexts()).slice(0, 10)) {
       expect(await everyId<BuildView>(lead, '/api/builds', { q }, (b) => String(b.id)), q).toEqual((await scanBuilds(q, den)).sort());
     }
   }, 60_000);
 
   it('finds in the statuses asked for what a plain scan finds, for the owner and a lead', async () => {
-    for (const q of (await sampleTexts()).slice(0, 8)) {
+    for (const q of (await sampleTexts()).slice(0, 10)) {
       for (const status of [['delivered'], ['booked', 'in_bay']]) {
         const query = { q, status };
         expect(await everyId<BuildView>(owner, '/api/builds', query, (b) => String(b.id)), q).toEqual((await scanBuilds(q, undefined, status)).sort());
@@ -111,12 +115,16 @@ describe('build search', () => {
     const customer = (await owner.get(`/api/customers/${build.customerId}`)).body;
     const renamed = await owner.put(`/api/customers/${customer.id}`).send({ name: 'Quillon Verbeck', version: customer.version });
     expect(renamed.status).toBe(200);
+    const before = await h.db.selectFrom('vehicles').select(['vin', 'plate']).where('id', '=', build.vehicleId).executeTakeFirstOrThrow();
     await h.db.updateTable('vehicles').set({ model: 'Thornback XR' }).where('id', '=', build.vehicleId).execute();
+    // Apart, as the vehicle form may change them alone.
+    await h.db.updateTable('vehicles').set({ vin: '7QZWX41J0NV803317', plate: 'QX4 7ZP' }).where('id', '=', build.vehicleId).execute();
     await h.db.updateTable('buildItems').set({ serialNumber: null }).where('buildId', '=', build.id).execute();
-    for (const q of ['quillon verb', 'thornback', customer.name.slice(0, 6), 'KSTR', 'r ve']) {
+    const formerIdentity = [before.vin, before.plate].filter((text): text is string => text !== null);
+    for (const q of ['quillon verb', 'thornback', customer.name.slice(0, 6), 'KSTR', 'r ve', 'nv8033', 'qx4 7', ...formerIdentity]) {
       expect(await everyId<BuildView>(owner, '/api/builds', { q }, (b) => String(b.id)), q).toEqual((await scanBuilds(q)).sort());
     }
-    expect(await everyId<BuildView>(owner, '/api/builds', { q: 'quillon verb' }, (b) => String(b.id))).toContain(String(build.id));
+    for (const q of ['quillon verb', 'nv8033', 'qx4 7']) expect(await everyId<BuildView>(owner, '/api/builds', { q }, (b) => String(b.id)), q).toContain(String(build.id));
     const { status } = await h.db.selectFrom('builds').select('status').where('id', '=', build.id).executeTakeFirstOrThrow();
     const other = status === 'cancelled' ? 'booked' : 'cancelled';
     await h.db.updateTable('builds').set({ status: other }).where('id', '=', build.id).execute();

@@ -57,21 +57,22 @@ export function cappedMatches(newest: readonly { id: number }[]): { ids: number[
 }
 
 /**
- * The FTS5 query for builds whose number, customer name, vehicle or a serial number contains
- * `text`, in the scope and, when some are asked for, in these statuses (the `state` markers).
+ * The FTS5 query for builds whose number, customer name, vehicle, its VIN or plate, or a serial
+ * number contains `text`, in the scope and, when some are asked for, in these statuses (the
+ * `state` markers).
  */
 export function buildTextQuery(text: string, scope: LocationScope, statuses: readonly string[]): string {
-  const query = `{number customer vehicle serials} : ${phrase(text)}`;
+  const query = `{number customer vehicle vin plate serials} : ${phrase(text)}`;
   return inPlaces(statuses.length === 0 ? query : `${query} AND state : (${statuses.map((s) => `"#${s}#"`).join(' OR ')})`, scope);
 }
 
 /**
- * Builds (by `idColumn`) whose number, customer name, vehicle or a serial number contains `text`
- * of 1 or 2 characters, in any case: matched with LIKE against the text the index is made from
- * (`build_search_source`) as the sort order reaches each build.
+ * Builds (by `idColumn`) whose number, customer name, vehicle, VIN, plate or a serial number
+ * contains `text` of 1 or 2 characters, in any case: matched with LIKE against the text the index
+ * is made from (`build_search_source`) as the sort order reaches each build.
  */
 export function shortBuildTextMatch(idColumn: string, text: string): Expression<SqlBool> {
   const like = `%${literal(text)}%`;
-  return sql<SqlBool>`exists (select 1 from build_search_source s where s.id = ${sql.ref(idColumn)} and (s.number like ${like} escape '\\'
-    or s.customer like ${like} escape '\\' or s.vehicle like ${like} escape '\\' or s.serials like ${like} escape '\\'))`;
+  const columns = ['number', 'customer', 'vehicle', 'vin', 'plate', 'serials'].map((column) => sql`${sql.ref(`s.${column}`)} like ${like} escape '\\'`);
+  return sql<SqlBool>`exists (select 1 from build_search_source s where s.id = ${sql.ref(idColumn)} and (${sql.join(columns, sql` or `)}))`;
 }
