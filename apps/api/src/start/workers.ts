@@ -6,9 +6,10 @@ const RESTART_DELAY_MS = 1000;
 
 /**
  * The most each half of an app process's young generation (V8's semi-space) may grow to, in MB.
- * V8 lets it reach 16 MB; under 50 connections the short-lived objects of many requests at once
- * then held an app process about 45 MB higher at its peak (262–298 MB against 299–350 in four runs each
- * of bench/ on the 200-shop network) for about 6 % fewer requests a second, inside the noise.
+ * V8 lets it reach 16 MB; then the short-lived objects of many requests at once held an app
+ * process about 45 MB higher at its peak on the 200-shop network (299–350 MB against 262–298, four
+ * runs each of the bench's 50 connections and import), for about 6 % fewer requests a second,
+ * inside the noise of those runs.
  */
 export const SEMI_SPACE_MB = 4;
 
