@@ -4,3 +4,4 @@ export { seedDemoNetwork, DEMO_PASSWORD } from './demo/generate.ts';
 export { seedNetwork, type NetworkCounts } from './demo/network-history.ts';
 export { demoEvidenceKinds } from './demo/claims-evidence.ts';
 export { REFILL_ROLLUPS } from './migrations/042-create-rollup-sums.ts';
+export { SHOP_SPAN } from './migrations/049-create-shop-build-search.ts';

@@ -2,8 +2,8 @@ import type { Kysely } from 'kysely';
 import { BUILDS, create, drop, type SearchIndex } from './015-add-search-places.ts';
 
 /** `text` with `from` replaced by `to`, which must be there: the index below is 015's with two columns more. */
-function edited(text: string, from: string, to: string): string {
-  if (!text.includes(from)) throw new Error(`048: "${from}" is not in 015's build search index`);
+export function edited(text: string, from: string, to: string): string {
+  if (!text.includes(from)) throw new Error(`"${from}" is not in the build search index it edits`);
   return text.replace(from, to);
 }
 
@@ -13,7 +13,7 @@ function edited(text: string, from: string, to: string): string {
  * model's end and the VIN's start. The index is made again from its view: 46 s, once, on the
  * 200-shop network (1 million builds).
  */
-const WITH_VIN_AND_PLATE: SearchIndex = {
+export const WITH_VIN_AND_PLATE: SearchIndex = {
   ...BUILDS,
   columns: edited(BUILDS.columns, 'vehicle,', 'vehicle, vin, plate,'),
   source: edited(BUILDS.source, 'as vehicle,', `as vehicle, coalesce(v.vin, '') as vin, coalesce(v.plate, '') as plate,`),

@@ -1,6 +1,7 @@
 import type { BuildView, SerialMatch } from '@busbar/shared';
 import { sql } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { readsShopRanges } from '../../apps/api/src/queries/search.ts';
 import { demoIds, startHarness, type Agent, type Harness } from '../support/api-harness.ts';
 import { SIGN_INS } from '../support/staff-fixtures.ts';
 
@@ -37,10 +38,11 @@ async function everyId<T>(agent: Agent, path: string, query: Record<string, stri
 const like = (text: string) => `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
 
 /** Builds whose number, customer name, vehicle, its VIN or plate, or a serial number contains `text`, by LIKE alone (newest first). */
-async function scanBuilds(text: string, locationId?: number, status?: string[]): Promise<string[]> {
+async function scanBuilds(text: string, locationId?: number | number[], status?: string[]): Promise<string[]> {
   const pattern = like(text);
+  const shops = locationId === undefined ? null : [locationId].flat();
   const rows = await sql<{ id: number }>`select b.id from builds b join customers c on c.id = b.customer_id join vehicles v on v.id = b.vehicle_id
-    where (${locationId ?? null} is null or b.location_id = ${locationId ?? null})
+    where (${shops ? null : 1} is not null or b.location_id in (${sql.join(shops ?? [0])}))
       and (${status ? null : 1} is not null or b.status in (${sql.join(status ?? [''])}))
       and (b.number like ${pattern} escape '\\' or c.name like ${pattern} escape '\\'
         or (v.year || ' ' || v.make || ' ' || v.model) like ${pattern} escape '\\'
@@ -90,6 +92,16 @@ describe('build search', () => {
     }
   }, 60_000);
 
+  it("finds for a regional manager what a plain scan finds in the region's shops, each shop's matches read apart", async () => {
+    const regional = await h.signedIn(SIGN_INS.regional);
+    const shops = (await h.db.selectFrom('roleAssignments as r').innerJoin('users as u', 'u.id', 'r.userId').innerJoin('locations as l', 'l.regionId', 'r.regionId').select('l.id').where('u.email', '=', SIGN_INS.regional).execute()).map((l) => l.id);
+    expect(shops.length).toBeGreaterThan(1);
+    expect(readsShopRanges(shops)).toBe(true);
+    for (const q of (await sampleTexts()).slice(0, 10)) {
+      expect(await everyId<BuildView>(regional, '/api/builds', { q }, (b) => String(b.id)), q).toEqual((await scanBuilds(q, shops)).sort());
+    }
+  }, 60_000);
+
   it('finds in the statuses asked for what a plain scan finds, for the owner and a lead', async () => {
     for (const q of (await sampleTexts()).slice(0, 10)) {
       for (const status of [['delivered'], ['booked', 'in_bay']]) {
@@ -124,7 +136,11 @@ describe('build search', () => {
     for (const q of ['quillon verb', 'thornback', customer.name.slice(0, 6), 'KSTR', 'r ve', 'nv8033', 'qx4 7', ...formerIdentity]) {
       expect(await everyId<BuildView>(owner, '/api/builds', { q }, (b) => String(b.id)), q).toEqual((await scanBuilds(q)).sort());
     }
-    for (const q of ['quillon verb', 'nv8033', 'qx4 7']) expect(await everyId<BuildView>(owner, '/api/builds', { q }, (b) => String(b.id)), q).toContain(String(build.id));
+    for (const q of ['quillon verb', 'nv8033', 'qx4 7']) {
+      expect(await everyId<BuildView>(owner, '/api/builds', { q }, (b) => String(b.id)), q).toContain(String(build.id));
+      // The lead's search reads the shop's own index: it follows the same changes.
+      expect(await everyId<BuildView>(lead, '/api/builds', { q }, (b) => String(b.id)), q).toEqual((await scanBuilds(q, den)).sort());
+    }
     const { status } = await h.db.selectFrom('builds').select('status').where('id', '=', build.id).executeTakeFirstOrThrow();
     const other = status === 'cancelled' ? 'booked' : 'cancelled';
     await h.db.updateTable('builds').set({ status: other }).where('id', '=', build.id).execute();
@@ -133,7 +149,15 @@ describe('build search', () => {
       expect(found, asked).toEqual((await scanBuilds('quillon verb', undefined, [asked])).sort());
       expect(found.includes(String(build.id)), asked).toBe(asked === other);
     }
+    // Moved to another shop, the build leaves this shop's part of the per-shop index for the other's.
+    const elsewhere = (await demoIds(h.db)).location('AVL');
+    await h.db.updateTable('builds').set({ locationId: elsewhere, sequence: 99_999 }).where('id', '=', build.id).execute();
+    expect(await everyId<BuildView>(lead, '/api/builds', { q: 'quillon verb' }, (b) => String(b.id))).not.toContain(String(build.id));
+    const lead2 = await h.signedIn(SIGN_INS.lead2);
+    expect(await everyId<BuildView>(lead2, '/api/builds', { q: 'quillon verb' }, (b) => String(b.id))).toEqual((await scanBuilds('quillon verb', elsewhere)).sort());
+    expect(await everyId<BuildView>(lead2, '/api/builds', { q: 'quillon verb' }, (b) => String(b.id))).toContain(String(build.id));
     await sql`insert into build_search (build_search, rank) values ('integrity-check', 1)`.execute(h.db);
+    await sql`insert into shop_build_search (shop_build_search, rank) values ('integrity-check', 1)`.execute(h.db);
   }, 60_000);
 });
 

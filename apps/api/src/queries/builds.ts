@@ -3,7 +3,7 @@ import { SEARCH_CAP, type BuildEventView, type BuildItemView, type BuildQuery, t
 import { sql, type Expression, type SqlBool } from 'kysely';
 import type { LocationScope } from '../access/locations.ts';
 import { afterKey, cappedCount, type Count, decodeCursor, encodeCursor, offsetOf, type Keyset } from './paging.ts';
-import { buildTextQuery, cappedMatches, countCapFor, isIndexable, newestFirst, shortBuildTextMatch } from './search.ts';
+import { buildTextQuery, cappedMatches, countCapFor, isIndexable, inShopRange, newestFirst, newestOfShops, readsShopRanges, shopRowBuildId, shortBuildTextMatch } from './search.ts';
 
 export type BuildRow = Required<Omit<BuildView, 'marginCents'>>;
 
@@ -58,22 +58,41 @@ function filteredBuilds(db: Db, scope: LocationScope, query: BuildQuery) {
 }
 
 /**
- * The builds a list shows and how many there are. Searched text of 3 or more characters walks the
- * full-text index newest first, in the scope's locations, once: the first SEARCH_CAP + 1 builds that
- * pass the other filters are the list (the newest SEARCH_CAP) and its count (one more tells there
- * are more), so a common name costs no more than a rare one.
+ * The newest SEARCH_CAP + 1 of the `filtered` builds whose text holds `q`: for a few shops, from
+ * each one's range of `shop_build_search`; for more, from `build_search` (see search.ts).
+ */
+function newestMatches(filtered: ReturnType<typeof filteredBuilds>, scope: LocationScope, q: string, statuses: readonly string[]): Promise<{ id: number }[]> {
+  if (readsShopRanges(scope)) {
+    const match = buildTextQuery(q, 'all', statuses);
+    const ofShop = (locationId: number) =>
+      filtered
+        .innerJoin(sql<{ rowid: number }>`shop_build_search`.as('s'), (join) => join.on(sql<SqlBool>`b.id = ${shopRowBuildId(locationId)}`))
+        .where(sql<SqlBool>`s.shop_build_search match ${match} and ${inShopRange(locationId)}`)
+        .select('b.id')
+        .orderBy(sql`s.rowid`, 'desc')
+        .limit(SEARCH_CAP + 1)
+        .execute();
+    return newestOfShops(scope, ofShop, (row) => row.id, SEARCH_CAP + 1);
+  }
+  return filtered
+    .innerJoin(sql<{ rowid: number }>`build_search`.as('s'), 's.rowid', 'b.id')
+    .where(sql<SqlBool>`s.build_search match ${buildTextQuery(q, scope, statuses)}`)
+    .select('b.id')
+    .orderBy(newestFirst(scope), 'desc')
+    .limit(SEARCH_CAP + 1)
+    .execute();
+}
+
+/**
+ * The builds a list shows and how many there are. Searched text of 3 or more characters walks a
+ * full-text index newest first, in the scope's locations, once (newestMatches): the first
+ * SEARCH_CAP + 1 builds that pass the other filters are the list (the newest SEARCH_CAP) and its
+ * count (one more tells there are more), so a common name costs no more than a rare one.
  */
 async function matchingBuilds(db: Db, scope: LocationScope, query: BuildQuery): Promise<{ matching: ReturnType<typeof filteredBuilds>; count: Count }> {
   const filtered = filteredBuilds(db, scope, query);
   if (query.q && isIndexable(query.q)) {
-    const newest = await filtered
-      .innerJoin(sql<{ rowid: number }>`build_search`.as('s'), 's.rowid', 'b.id')
-      .where(sql<SqlBool>`s.build_search match ${buildTextQuery(query.q, scope, statusesOf(query))}`)
-      .select('b.id')
-      .orderBy(newestFirst(scope), 'desc')
-      .limit(SEARCH_CAP + 1)
-      .execute();
-    const { ids, count } = cappedMatches(newest);
+    const { ids, count } = cappedMatches(await newestMatches(filtered, scope, query.q, statusesOf(query)));
     return { matching: db.selectFrom('builds as b').where((eb) => (ids.length === 0 ? eb.lit(false) : eb('b.id', 'in', ids))), count };
   }
   const matching = query.q ? filtered.where(shortBuildTextMatch('b.id', query.q)) : filtered;

@@ -3,7 +3,7 @@ import { SEARCH_CAP, type Page, type SerialMatch } from '@busbar/shared';
 import { sql, type SqlBool } from 'kysely';
 import type { LocationScope } from '../access/locations.ts';
 import { offsetOf } from './paging.ts';
-import { cappedMatches, contains, inPlaces, narrowsByPlace, newestFirst, phrase } from './search.ts';
+import { cappedMatches, contains, inPlaces, narrowsByPlace, inShopRange, newestFirst, newestOfShops, phrase, readsShopRanges, shopRowBuildId } from './search.ts';
 
 /**
  * The newest SEARCH_CAP + 1 installed units whose serial number contains `q` (3 or more characters,
@@ -11,7 +11,20 @@ import { cappedMatches, contains, inPlaces, narrowsByPlace, newestFirst, phrase 
  * that hold such a serial as it walks them newest first, so a common piece of a number costs no
  * more than a rare one; LIKE then keeps the units of each build whose own number holds the text.
  */
-function newestUnits(db: Db, scope: LocationScope, q: string) {
+function newestUnits(db: Db, scope: LocationScope, q: string): Promise<{ id: number }[]> {
+  if (readsShopRanges(scope)) {
+    const ofShop = (locationId: number) =>
+      db
+        .selectFrom(sql<{ rowid: number }>`shop_build_search`.as('s'))
+        .innerJoin('buildItems as i', (join) => join.on(sql<SqlBool>`i.build_id = ${shopRowBuildId(locationId)}`))
+        .where(sql<SqlBool>`s.shop_build_search match ${`serials : ${phrase(q)}`} and ${inShopRange(locationId)}`)
+        .where(contains('i.serialNumber', q))
+        .select(['i.id', 'i.buildId'])
+        .orderBy(sql`s.rowid`, 'desc')
+        .limit(SEARCH_CAP + 1)
+        .execute();
+    return newestOfShops(scope, ofShop, (unit) => unit.buildId, SEARCH_CAP + 1);
+  }
   let units = db
     .selectFrom(sql<{ rowid: number }>`build_search`.as('s'))
     .innerJoin('buildItems as i', 'i.buildId', 's.rowid')
