@@ -48,7 +48,7 @@ export const BUILDS: SearchIndex = {
   ],
 };
 
-const CUSTOMERS: SearchIndex = {
+export const CUSTOMERS: SearchIndex = {
   table: 'customer_search',
   view: 'customer_search_source',
   columns: 'name, email, phone, place',

@@ -99,8 +99,8 @@ describe('list query plans', () => {
         const lines = (await plansOf(h.db, run)).flat();
         const reads = lines.filter((line) => /^SCAN s VIRTUAL TABLE/.test(line));
         expect(reads, lines.join('\n')).toHaveLength(1);
-        // A shop's builds: only its range of rowids of the per-shop index.
-        if (list === 'builds' && scope !== 'all') expect(reads[0]).toMatch(/:M\d+></);
+        // A shop's builds and customers: only its range of rowids of the per-shop index.
+        if (scope !== 'all') expect(reads[0], list).toMatch(/:M\d+></);
       }
     }
   });

@@ -162,27 +162,39 @@ describe('build search', () => {
 });
 
 describe('customer search', () => {
-  /** Customers whose name, e-mail or phone contains `text`, by LIKE alone. */
-  async function scanCustomers(text: string): Promise<string[]> {
+  /** Customers whose name, e-mail or phone contains `text`, by LIKE alone, at one location or all. */
+  async function scanCustomers(text: string, locationId?: number): Promise<string[]> {
     const pattern = like(text);
     const rows = await sql<{ id: number }>`select id from customers
-      where name like ${pattern} escape '\\' or email like ${pattern} escape '\\' or phone like ${pattern} escape '\\'`.execute(h.db);
+      where (name like ${pattern} escape '\\' or email like ${pattern} escape '\\' or phone like ${pattern} escape '\\')
+        and (${locationId ?? null} is null or location_id = ${locationId ?? null})`.execute(h.db);
     return rows.rows.map((r) => String(r.id)).sort();
   }
 
-  it('finds for the owner what a plain scan of names, e-mail and phone finds', async () => {
-    const customer = await h.db.selectFrom('customers').select(['name', 'email', 'phone']).where('phone', '!=', '').orderBy('id').limit(1).offset(7).executeTakeFirstOrThrow();
+  /** Every customer a search lists, page by page. */
+  async function everyCustomer(agent: Agent, q: string): Promise<string[]> {
+    const found: string[] = [];
+    for (let page = 1; ; page++) {
+      const res = await agent.get('/api/customers').query({ q, page, pageSize: 200 });
+      expect(res.status).toBe(200);
+      found.push(...res.body.items.map((c: { id: number }) => String(c.id)));
+      if (res.body.items.length < 200) return found.sort();
+    }
+  }
+
+  it("finds for the owner what a plain scan of names, e-mail and phone finds, and for a lead in the lead's shop", async () => {
+    const customer = await h.db.selectFrom('customers').select(['name', 'email', 'phone']).where('phone', '!=', '').where('locationId', '=', den).orderBy('id').limit(1).offset(7).executeTakeFirstOrThrow();
     for (const q of [customer.name.slice(2, 7).toUpperCase(), customer.email.split('@')[0]!, customer.phone.slice(-4), 'an', 'no such customer']) {
       const expected = await scanCustomers(q);
       if (q !== 'no such customer') expect(expected.length, q).toBeGreaterThan(0);
-      const found: string[] = [];
-      for (let page = 1; ; page++) {
-        const res = await owner.get('/api/customers').query({ q, page, pageSize: 200 });
-        found.push(...res.body.items.map((c: { id: number }) => String(c.id)));
-        if (res.body.items.length < 200) break;
-      }
-      expect(found.sort(), q).toEqual(expected);
+      expect(await everyCustomer(owner, q), q).toEqual(expected);
+      expect(await everyCustomer(lead, q), q).toEqual(await scanCustomers(q, den));
     }
+    // Renamed, a customer is found by the new name in the shop's own index too.
+    const { id, version } = await h.db.selectFrom('customers').select(['id', 'version']).where('locationId', '=', den).orderBy('id').limit(1).offset(3).executeTakeFirstOrThrow();
+    expect((await owner.put(`/api/customers/${id}`).send({ name: 'Ysolde Marchbank', version })).status).toBe(200);
+    expect(await everyCustomer(lead, 'ysolde march')).toEqual([String(id)]);
+    await sql`insert into shop_customer_search (shop_customer_search, rank) values ('integrity-check', 1)`.execute(h.db);
   }, 60_000);
 });
 

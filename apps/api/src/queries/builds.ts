@@ -3,7 +3,7 @@ import { SEARCH_CAP, type BuildEventView, type BuildItemView, type BuildQuery, t
 import { sql, type Expression, type SqlBool } from 'kysely';
 import type { LocationScope } from '../access/locations.ts';
 import { afterKey, cappedCount, type Count, decodeCursor, encodeCursor, offsetOf, type Keyset } from './paging.ts';
-import { buildTextQuery, cappedMatches, countCapFor, isIndexable, inShopRange, newestFirst, newestOfShops, readsShopRanges, shopRowBuildId, shortBuildTextMatch } from './search.ts';
+import { buildTextQuery, cappedMatches, countCapFor, isIndexable, inShopRange, newestFirst, newestOfShops, readsShopRanges, shopRowId, shortBuildTextMatch } from './search.ts';
 
 export type BuildRow = Required<Omit<BuildView, 'marginCents'>>;
 
@@ -66,7 +66,7 @@ function newestMatches(filtered: ReturnType<typeof filteredBuilds>, scope: Locat
     const match = buildTextQuery(q, 'all', statuses);
     const ofShop = (locationId: number) =>
       filtered
-        .innerJoin(sql<{ rowid: number }>`shop_build_search`.as('s'), (join) => join.on(sql<SqlBool>`b.id = ${shopRowBuildId(locationId)}`))
+        .innerJoin(sql<{ rowid: number }>`shop_build_search`.as('s'), (join) => join.on(sql<SqlBool>`b.id = ${shopRowId(locationId)}`))
         .where(sql<SqlBool>`s.shop_build_search match ${match} and ${inShopRange(locationId)}`)
         .select('b.id')
         .orderBy(sql`s.rowid`, 'desc')

@@ -3,7 +3,7 @@ import { sql, type Expression, type ExpressionBuilder, type SqlBool } from 'kyse
 import { SEARCH_CAP, type CustomerBody, type CustomerView, type Page } from '@busbar/shared';
 import type { LocationScope } from '../access/locations.ts';
 import { cappedCount, offsetOf, type Count } from './paging.ts';
-import { cappedMatches, contains, countCapFor, inPlaces, isIndexable, newestFirst, phrase } from './search.ts';
+import { cappedMatches, contains, countCapFor, inPlaces, inShopRange, isIndexable, newestFirst, newestOfShops, phrase, readsShopRanges, shopRowId } from './search.ts';
 
 const CUSTOMER_COLUMNS = [
   'id', 'locationId', 'name', 'email', 'phone', 'addressLine1', 'addressLine2', 'city', 'region', 'postalCode', 'notes', 'version',
@@ -61,14 +61,26 @@ async function matchingCustomers(db: Db, filter: CustomerFilter): Promise<{ matc
   const fields = [['email', filter.emailScope], ['phone', filter.phoneScope]] as const;
   const partly = fields.some(([, at]) => at !== 'all' && at.length > 0 && !sameScope(at, scope));
   const columns = ['name', ...fields.filter(([, at]) => at === 'all' || at.length > 0).map(([name]) => name)];
-  const candidates = inScopeOf(db, scope, false);
-  const newest = await (partly ? candidates.where((eb) => textMatches(eb, filter, q)) : candidates)
-    .innerJoin(sql<{ rowid: number }>`customer_search`.as('s'), 's.rowid', 'customers.id')
-    .where(sql<SqlBool>`s.customer_search match ${inPlaces(`{${columns.join(' ')}} : ${phrase(q)}`, scope)}`)
-    .select('customers.id')
-    .orderBy(newestFirst(scope), 'desc')
-    .limit(SEARCH_CAP + 1)
-    .execute();
+  const candidates = (shops: LocationScope) => (partly ? inScopeOf(db, shops, false).where((eb) => textMatches(eb, filter, q)) : inScopeOf(db, shops, false));
+  const match = `{${columns.join(' ')}} : ${phrase(q)}`;
+  // A few shops: each one's range of the per-shop index (see search.ts).
+  const ofShop = (locationId: number) =>
+    candidates([locationId])
+      .innerJoin(sql<{ rowid: number }>`shop_customer_search`.as('s'), (join) => join.on(sql<SqlBool>`customers.id = ${shopRowId(locationId)}`))
+      .where(sql<SqlBool>`s.shop_customer_search match ${match} and ${inShopRange(locationId)}`)
+      .select('customers.id')
+      .orderBy(sql`s.rowid`, 'desc')
+      .limit(SEARCH_CAP + 1)
+      .execute();
+  const newest = readsShopRanges(scope)
+    ? await newestOfShops(scope, ofShop, (row) => row.id, SEARCH_CAP + 1)
+    : await candidates(scope)
+        .innerJoin(sql<{ rowid: number }>`customer_search`.as('s'), 's.rowid', 'customers.id')
+        .where(sql<SqlBool>`s.customer_search match ${inPlaces(match, scope)}`)
+        .select('customers.id')
+        .orderBy(newestFirst(scope), 'desc')
+        .limit(SEARCH_CAP + 1)
+        .execute();
   const { ids, count } = cappedMatches(newest);
   return { matching: () => db.selectFrom('customers').where((eb) => (ids.length === 0 ? eb.lit(false) : eb('id', 'in', ids))), count };
 }

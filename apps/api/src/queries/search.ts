@@ -40,28 +40,32 @@ export function inPlaces(query: string, scope: LocationScope): string {
   return `(${query}) AND place : (${scope.map((id) => `"@${id}@"`).join(' OR ')})`;
 }
 
-/** Up to this many shops, a build search reads each one's range of `shop_build_search`, and merges them. */
+/** Up to this many shops, a search reads each one's range of a per-shop index, and merges them. */
 const SHOP_RANGES_MAX = 4;
 
-/** Whether a build search reads the scope's shops' ranges of `shop_build_search` (see SHOP_SPAN). */
+/**
+ * Whether a search reads the scope's shops' ranges of the per-shop indexes `shop_build_search`
+ * and `shop_customer_search` (migrations 049, 050), whose rowids are the shop's id times SHOP_SPAN
+ * plus the build's or customer's id: so a shop's search costs what its own history does.
+ */
 export const readsShopRanges = (scope: LocationScope): scope is number[] => scope !== 'all' && scope.length <= SHOP_RANGES_MAX;
 
 /**
- * A shop's part of `shop_build_search` (`s`): its rowids are the shop's id times SHOP_SPAN plus the
- * build's id. The bounds are cast to integers in SQL: a number past 2^31 is bound as a real, and
- * with a real bound FTS5 read the whole network's match lists (19 ms instead of 1.7 for one shop).
+ * A shop's part of a per-shop index (`s`). The bounds are cast to integers in SQL: a number past
+ * 2^31 is bound as a real, and with a real bound FTS5 read the whole network's match lists (19 ms
+ * instead of 1.7 for one shop).
  */
 export function inShopRange(locationId: number): RawBuilder<SqlBool> {
   return sql<SqlBool>`s.rowid between cast(${locationId * SHOP_SPAN} as integer) and cast(${(locationId + 1) * SHOP_SPAN - 1} as integer)`;
 }
 
-/** The build id of a row of a shop's part of `shop_build_search` (`s`). */
-export const shopRowBuildId = (locationId: number): RawBuilder<number> => sql<number>`s.rowid - cast(${locationId * SHOP_SPAN} as integer)`;
+/** The build's or customer's id of a row of a shop's part of a per-shop index (`s`). */
+export const shopRowId = (locationId: number): RawBuilder<number> => sql<number>`s.rowid - cast(${locationId * SHOP_SPAN} as integer)`;
 
-/** The newest `limit` of each shop's matches (by build id, which `rowsOf` reads), merged newest first. */
-export async function newestOfShops<T>(shops: readonly number[], rowsOf: (locationId: number) => Promise<T[]>, buildIdOf: (row: T) => number, limit: number): Promise<T[]> {
+/** The newest `limit` of each shop's matches (by the id `idOf` reads), merged newest first. */
+export async function newestOfShops<T>(shops: readonly number[], rowsOf: (locationId: number) => Promise<T[]>, idOf: (row: T) => number, limit: number): Promise<T[]> {
   const rows = (await Promise.all(shops.map(rowsOf))).flat();
-  return rows.sort((a, b) => buildIdOf(b) - buildIdOf(a)).slice(0, limit);
+  return rows.sort((a, b) => idOf(b) - idOf(a)).slice(0, limit);
 }
 
 /**

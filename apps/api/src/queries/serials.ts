@@ -3,7 +3,7 @@ import { SEARCH_CAP, type Page, type SerialMatch } from '@busbar/shared';
 import { sql, type SqlBool } from 'kysely';
 import type { LocationScope } from '../access/locations.ts';
 import { offsetOf } from './paging.ts';
-import { cappedMatches, contains, inPlaces, narrowsByPlace, inShopRange, newestFirst, newestOfShops, phrase, readsShopRanges, shopRowBuildId } from './search.ts';
+import { cappedMatches, contains, inPlaces, narrowsByPlace, inShopRange, newestFirst, newestOfShops, phrase, readsShopRanges, shopRowId } from './search.ts';
 
 /**
  * The newest SEARCH_CAP + 1 installed units whose serial number contains `q` (3 or more characters,
@@ -16,7 +16,7 @@ function newestUnits(db: Db, scope: LocationScope, q: string): Promise<{ id: num
     const ofShop = (locationId: number) =>
       db
         .selectFrom(sql<{ rowid: number }>`shop_build_search`.as('s'))
-        .innerJoin('buildItems as i', (join) => join.on(sql<SqlBool>`i.build_id = ${shopRowBuildId(locationId)}`))
+        .innerJoin('buildItems as i', (join) => join.on(sql<SqlBool>`i.build_id = ${shopRowId(locationId)}`))
         .where(sql<SqlBool>`s.shop_build_search match ${`serials : ${phrase(q)}`} and ${inShopRange(locationId)}`)
         .where(contains('i.serialNumber', q))
         .select(['i.id', 'i.buildId'])
