@@ -1,7 +1,7 @@
 import { addMonthsIso, dayOfIso } from '@busbar/calc';
 import type { Database, Db } from '@busbar/db';
 import type { Coverage, FailureMode } from '@busbar/shared';
-import { sql, type SelectQueryBuilder } from 'kysely';
+import { sql, type SelectQueryBuilder, type SqlBool } from 'kysely';
 import type { LocationScope } from '../access/locations.ts';
 import { wholeRegions } from './regions.ts';
 
@@ -33,6 +33,17 @@ async function keptCounts(db: Db, { from, to, scope }: FailureFilter): Promise<'
 }
 
 /**
+ * The kept counts (migration 043) of ages or of kinds of failure of the items, the network's or
+ * those regions' (typed as the network's table, whose columns the regions' has too).
+ */
+function keptRows(db: Db, kind: 'Ages', kept: 'network' | number[], itemIds: number[]): SelectQueryBuilder<Database, 'unitFailureAgesNetwork', object>;
+function keptRows(db: Db, kind: 'Kinds', kept: 'network' | number[], itemIds: number[]): SelectQueryBuilder<Database, 'unitFailureKindsNetwork', object>;
+function keptRows(db: Db, kind: 'Ages' | 'Kinds', kept: 'network' | number[], itemIds: number[]): SelectQueryBuilder<Database, 'unitFailureAgesNetwork' | 'unitFailureKindsNetwork', object> {
+  const rows = db.selectFrom(`unitFailure${kind}${kept === 'network' ? 'Network' : 'Region'}` as 'unitFailureAgesNetwork').where('catalogItemId', 'in', itemsIn(itemIds));
+  return kept === 'network' ? rows : rows.where(sql<SqlBool>`region_id in (${sql.join(kept)})`);
+}
+
+/**
  * How many units failed at each age in days (failed day − install day): from the kept counts when
  * they hold them. Else the whole network's are counted per item in the order of the ages' index
  * (migration 041), then the items' counts per age added up; a scope's fewer failures are sought by
@@ -41,18 +52,7 @@ async function keptCounts(db: Db, { from, to, scope }: FailureFilter): Promise<'
 export async function failureAges(db: Db, filter: FailureFilter): Promise<{ days: number; failures: number }[]> {
   const kept = await keptCounts(db, filter);
   const summed = sql<number>`sum(failures)`.as('failures');
-  if (kept === 'network') {
-    return db.selectFrom('unitFailureAgesNetwork').where('catalogItemId', 'in', itemsIn(filter.itemIds)).select(['ageDays as days', summed]).groupBy('ageDays').execute();
-  }
-  if (kept) {
-    return db
-      .selectFrom('unitFailureAgesRegion')
-      .where('catalogItemId', 'in', itemsIn(filter.itemIds))
-      .where('regionId', 'in', kept)
-      .select(['ageDays as days', summed])
-      .groupBy('ageDays')
-      .execute();
-  }
+  if (kept) return keptRows(db, 'Ages', kept, filter.itemIds).select(['ageDays as days', summed]).groupBy('ageDays').execute();
   const failures = sql<number>`count(*)`.as('failures');
   if (filter.scope !== 'all') return failuresOf(db, filter).select([sql<number>`failed_day - installed_day`.as('days'), failures]).groupBy('days').execute();
   return db
@@ -71,18 +71,8 @@ type Share = { failureMode: FailureMode; coverage: Coverage; claims: number };
  */
 export async function claimShares(db: Db, filter: FailureFilter): Promise<Share[]> {
   const kept = await keptCounts(db, filter);
-  const claims = sql<number>`sum(failures)`.as('claims');
-  if (kept === 'network') {
-    return db.selectFrom('unitFailureKindsNetwork').where('catalogItemId', 'in', itemsIn(filter.itemIds)).select(['failureMode', 'coverage', claims]).groupBy(['coverage', 'failureMode']).execute();
-  }
   if (kept) {
-    return db
-      .selectFrom('unitFailureKindsRegion')
-      .where('catalogItemId', 'in', itemsIn(filter.itemIds))
-      .where('regionId', 'in', kept)
-      .select(['failureMode', 'coverage', claims])
-      .groupBy(['coverage', 'failureMode'])
-      .execute();
+    return keptRows(db, 'Kinds', kept, filter.itemIds).select(['failureMode', 'coverage', sql<number>`sum(failures)`.as('claims')]).groupBy(['coverage', 'failureMode']).execute();
   }
   const perItem = await failuresOf(db, filter)
     .select(['failureMode', 'coverage', sql<number>`count(*)`.as('claims')])
