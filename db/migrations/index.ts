@@ -49,6 +49,7 @@ import * as indexLoggedClaimSums from './047-index-logged-claim-sums.ts';
 import * as searchBuildsByVinAndPlate from './048-search-builds-by-vin-and-plate.ts';
 import * as createShopBuildSearch from './049-create-shop-build-search.ts';
 import * as createShopCustomerSearch from './050-create-shop-customer-search.ts';
+import * as indexDueClaimsByLocation from './051-index-due-claims-by-location.ts';
 
 /** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
 export const migrations: Record<string, Migration> = {
@@ -102,4 +103,5 @@ export const migrations: Record<string, Migration> = {
   '048-search-builds-by-vin-and-plate': searchBuildsByVinAndPlate,
   '049-create-shop-build-search': createShopBuildSearch,
   '050-create-shop-customer-search': createShopCustomerSearch,
+  '051-index-due-claims-by-location': indexDueClaimsByLocation,
 };

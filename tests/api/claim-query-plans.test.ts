@@ -120,6 +120,36 @@ describe('claims list query plans', () => {
     },
   );
 
+  it("counts the network's overdue claims by each shop's own day, from one range of an index", async () => {
+    // 05:30 UTC: the 10th in the eastern shops, still the 9th in the western ones.
+    const straddle = new Date('2026-03-10T05:30:00Z');
+    const dayAt = (timeZone: string) => new Intl.DateTimeFormat('en-CA', { timeZone }).format(straddle);
+    const zones = new Map((await h.db.selectFrom('locations').select(['id', 'timeZone']).execute()).map((l) => [l.id, dayAt(l.timeZone)]));
+    const rolledBack = new Error('rolled back');
+    await expect(
+      h.db.transaction().execute(async (trx) => {
+        // A third of the claims open again, due on a day of March 1 to 20 (undone after).
+        await sql`update warranty_claims set status = 'sent_to_vendor', due_on = date('2026-03-01', '+' || (id % 20) || ' days') where id % 3 = 0`.execute(trx);
+        const plans = await plansOf(trx, (db) => listClaims(db, 'all', claimQuery.parse({ overdue: 'true' }), straddle));
+        const count = plans.find((lines) => lines.some((line) => line.includes('CO-ROUTINE')))!;
+        // One range of due days (skipping through the few shops, or the due-day index with the shop), no seek per shop in turn.
+        expect(count.filter((line) => /^(SCAN|SEARCH) w\b|INDEX \d+/.test(line))).toEqual([
+          expect.stringMatching(/^SEARCH w USING COVERING INDEX warranty_claims_due\w* \((ANY\(location_id\) AND )?due_on<\?\)$/),
+        ]);
+
+        const due = await trx.selectFrom('warrantyClaims').select(['id', 'locationId', 'dueOn']).where('dueOn', 'is not', null).orderBy('dueOn').orderBy('id').execute();
+        const overdue = due.filter((c) => c.dueOn! < zones.get(c.locationId)!);
+        // Claims due on the 9th are overdue in the east only: the shop's zone decides.
+        expect(due.filter((c) => c.dueOn! < '2026-03-09').length).toBeLessThan(overdue.length);
+        expect(overdue.length).toBeLessThan(due.filter((c) => c.dueOn! < '2026-03-10').length);
+        const listed = await listClaims(trx, 'all', claimQuery.parse({ overdue: 'true', pageSize: '100' }), straddle);
+        expect(listed.total).toBe(overdue.length);
+        expect(listed.items.map((c) => c.id)).toEqual(overdue.slice(0, 100).map((c) => c.id));
+        throw rolledBack;
+      }),
+    ).rejects.toBe(rolledBack);
+  });
+
   // A shop's claims are few: whichever index the statistics choose (the shop's, or a status's in order), nothing is read whole.
   it.each([...Object.entries(IN_ORDER), ...Object.entries(BY_ITEM), ...Object.entries(BY_DAYS).map(([name, [query]]) => [name, query] as const)])(
     "reads a lead's page by searching an index: %s",

@@ -18,14 +18,15 @@ async function locationsByZone(db: Db, scope: LocationScope): Promise<Map<string
 
 /**
  * Claims whose next step was due before today at their location. The latest "today" of all zones
- * first, as a range of the queue-order index (which walks only due claims, overdue first); then
- * each zone exactly.
+ * first, as a range of the queue-order index (which walks only due claims, overdue first); a claim
+ * due before the earliest is overdue everywhere; only those due between (zones differ by a day at
+ * most) are judged by their location's zone, its ids unindexed so no seek per location is planned.
  */
 function overdue(eb: Claims, zones: Map<string, number[]>, now: Date): Expression<SqlBool> {
   const todays = [...zones].map(([zone, ids]) => ({ ids, today: localToday(zone, now) }));
-  const latest = todays.map((t) => t.today).sort().at(-1)!;
-  const exactly = eb.or(todays.map(({ ids, today }) => eb.and([eb('w.locationId', 'in', ids), eb('w.dueOn', '<', today)])));
-  return eb.and([eb('w.dueOn', '<', latest), exactly]);
+  const days = todays.map((t) => t.today).sort();
+  const exactly = eb.or(todays.map(({ ids, today }) => eb.and([eb(sql<number>`+w.location_id`, 'in', ids), eb('w.dueOn', '<', today)])));
+  return eb.and([eb('w.dueOn', '<', days.at(-1)!), eb.or([eb('w.dueOn', '<', days[0]!), exactly])]);
 }
 
 /** The list's filters as conditions on `warranty_claims` alone, so paging and counting need no join. */
