@@ -18,7 +18,7 @@ export interface RunningApp {
   stop(): Promise<void>;
 }
 
-async function freePort(): Promise<number> {
+export async function freePort(): Promise<number> {
   return new Promise((resolve, reject) => {
     const server = createServer();
     server.listen(0, '127.0.0.1', () => {
@@ -51,10 +51,11 @@ function childrenOf(pid: number): number[] {
 
 /**
  * Starts the real app as `pnpm start` does (built to dist/api by scripts/build-api.ts), as its
- * own process on a free port, on the database in `dataDir`, with `env` added to its environment.
+ * own process on `port` (a free one unless given), on the database in `dataDir`, with `env` added
+ * to its environment.
  */
-export async function startApp(dataDir: string, env: Record<string, string> = {}): Promise<RunningApp> {
-  const port = await freePort();
+export async function startApp(dataDir: string, env: Record<string, string> = {}, port?: number): Promise<RunningApp> {
+  port ??= await freePort();
   await buildApi();
   const child = spawn(process.execPath, [APP], {
     env: { ...process.env, PORT: String(port), BUSBAR_DATA_DIR: dataDir, SMTP_CAPTURE_PORT: '0', NODE_ENV: 'production', ...env },

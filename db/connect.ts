@@ -70,12 +70,23 @@ function reusingStatements(sqlite: SQLite.Database): SqliteDatabase {
   };
 }
 
-/** Applies every pending migration; throws with the failing migration's name. */
-export async function migrateToLatest(db: Kysely<any>): Promise<void> {
+/** A migration about to run: its name, how many of the pending ones ran before it, and of how many. */
+export interface MigrationStep {
+  name: string;
+  done: number;
+  of: number;
+}
+
+/**
+ * Applies every pending migration, one at a time, telling `onStep` before each (on a network's
+ * database one can take minutes); throws with the failing migration's name.
+ */
+export async function migrateToLatest(db: Kysely<any>, onStep: (step: MigrationStep) => void = () => {}): Promise<void> {
   const migrator = new Migrator({ db, provider: { getMigrations: async () => migrations } });
-  const { error, results } = await migrator.migrateToLatest();
-  if (error) {
-    const failed = results?.find((r) => r.status === 'Error')?.migrationName ?? 'unknown';
-    throw new Error(`Migration ${failed} failed: ${String(error)}`);
+  const pending = (await migrator.getMigrations()).filter((m) => !m.executedAt);
+  for (const [done, { name }] of pending.entries()) {
+    onStep({ name, done, of: pending.length });
+    const { error } = await migrator.migrateUp();
+    if (error) throw new Error(`Migration ${name} failed: ${String(error)}`);
   }
 }

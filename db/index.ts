@@ -1,4 +1,4 @@
-export { openDatabase, migrateToLatest, type Db } from './connect.ts';
+export { openDatabase, migrateToLatest, type Db, type MigrationStep } from './connect.ts';
 export type { Database } from './schema/index.ts';
 export { seedDemoNetwork, DEMO_PASSWORD } from './demo/generate.ts';
 export { seedNetwork, type NetworkCounts } from './demo/network-history.ts';

@@ -11,7 +11,12 @@ import { dirname } from 'node:path';
 
 export const API_DIST = 'dist/api';
 /** The files that start it and that its background threads load (threads/job-thread.ts finds them beside main.mjs). */
-const ENTRIES = { main: 'apps/api/src/main.ts', jobs: 'apps/api/src/threads/jobs.ts', 'job-worker': 'apps/api/src/threads/job-worker.mjs' };
+const ENTRIES = {
+  main: 'apps/api/src/main.ts',
+  jobs: 'apps/api/src/threads/jobs.ts',
+  'job-worker': 'apps/api/src/threads/job-worker.mjs',
+  'getting-ready': 'apps/api/src/start/getting-ready.ts',
+};
 
 /** Packages that are not Busbar's own, imported from where they are installed. */
 const installedPackages: Plugin = {

@@ -1,7 +1,7 @@
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { migrateToLatest, openDatabase, seedDemoNetwork, type Db } from '@busbar/db';
+import { migrateToLatest, openDatabase, seedDemoNetwork, type Db, type MigrationStep } from '@busbar/db';
 import { Migrator, NO_MIGRATIONS, sql } from 'kysely';
 import { afterEach, describe, expect, it } from 'vitest';
 import { migrations } from '../../db/migrations/index.ts';
@@ -67,6 +67,32 @@ describe('database', () => {
     expect(await tables()).toEqual(
       expect.arrayContaining(['users', 'role_assignments', 'sessions', 'audit_log', 'invites', 'mail_log', 'builds', 'build_items']),
     );
+    await db.destroy();
+  });
+
+  it('tells each pending migration before it runs, in order, and nothing once all have run', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'busbar-db-'));
+    dirs.push(dir);
+    const db = openDatabase(join(dir, 'busbar.sqlite'));
+    const names = Object.keys(migrations);
+    const applied = async () => (await sql<{ name: string }>`select name from kysely_migration order by name`.execute(db)).rows.map((r) => r.name);
+    expect((await new Migrator({ db, provider: { getMigrations: async () => migrations } }).migrateTo(names[23]!)).error).toBeUndefined();
+    // Told before it runs: a step that fails at the telling never reaches the database.
+    const stopAt = new Error('stopped at the telling');
+    const failAt30 = (step: MigrationStep) => {
+      if (step.name === names[30]) throw stopAt;
+    };
+    await expect(migrateToLatest(db, failAt30)).rejects.toBe(stopAt);
+    expect(await applied()).toEqual(names.slice(0, 30));
+    const steps: MigrationStep[] = [];
+    await migrateToLatest(db, (step) => steps.push(step));
+    expect(steps.map((s) => s.name)).toEqual(names.slice(30));
+    expect(steps.map((s) => s.done)).toEqual(names.slice(30).map((_, i) => i));
+    expect(new Set(steps.map((s) => s.of))).toEqual(new Set([names.length - 30]));
+    expect(await applied()).toEqual(names);
+    const again: MigrationStep[] = [];
+    await migrateToLatest(db, (step) => again.push(step));
+    expect(again).toEqual([]);
     await db.destroy();
   });
 

@@ -18,14 +18,16 @@ export interface MailRoute {
  * What runs once for the whole app, before any process answers requests: migrations, the demo
  * network for an empty database, exports a stopped app left unfinished marked failed, the
  * planner's statistics and session pruning (both kept up on a schedule), the local mail capture
- * when no SMTP server is set, and the weekly e-mail (looked for every hour).
+ * when no SMTP server is set, and the weekly e-mail (looked for every hour). `tell` hears each
+ * long step before it runs (start/ready.ts shows it to whoever opens Busbar meanwhile).
  */
-export async function prepare(config: Config, now: () => Date): Promise<MailRoute> {
+export async function prepare(config: Config, now: () => Date, tell: (words: string) => void = () => {}): Promise<MailRoute> {
   const db = openDatabase(config.databaseFile);
-  await migrateToLatest(db);
-  if (config.demoData && (await ensureDemoData(db, config.scryptLogN, now(), config.dataDir))) {
+  await migrateToLatest(db, ({ name, done, of }) => tell(`Bringing the database up to date: step ${done + 1} of ${of} (${name.replace(/^\d+-/, '').replaceAll('-', ' ')})`));
+  if (config.demoData && (await ensureDemoData(db, config.scryptLogN, now(), config.dataDir, () => tell('Filling the empty database with the demo network')))) {
     console.log('Filled the empty database with the demo network.');
   }
+  tell('Gathering statistics for the database');
   await keepPlannerStatistics(db);
   await pruneSessions(db, now());
   await failUnfinishedExports(db, now());

@@ -1,8 +1,5 @@
-import { JobThread } from './job-thread.ts';
+import { JobThread, ownExtension } from './job-thread.ts';
 import type * as Jobs from './jobs.ts';
-
-/** `.ts` where this runs as TypeScript (tsx), `.mjs` where it was built (scripts/build-api.ts puts jobs.mjs beside it). */
-const ownExtension = () => /\.[a-z]+$/.exec(new URL(import.meta.url).pathname)![0];
 
 /**
  * The one thread each app process runs long work on (jobs.ts): reads that take tens or hundreds
@@ -13,4 +10,4 @@ const ownExtension = () => /\.[a-z]+$/.exec(new URL(import.meta.url).pathname)![
  * by default) keeps an import's many short-lived row objects from pushing the app past its memory
  * target; the largest file (5,000 rows, 5 MB) fits the old generation with room to spare.
  */
-export const background = new JobThread<typeof Jobs>(new URL(`./jobs${ownExtension()}`, import.meta.url), { maxYoungGenerationSizeMb: 8, maxOldGenerationSizeMb: 256 });
+export const background = new JobThread<typeof Jobs>(new URL(`./jobs${ownExtension(import.meta.url)}`, import.meta.url), { maxYoungGenerationSizeMb: 8, maxOldGenerationSizeMb: 256 });

@@ -1,6 +1,9 @@
 import { Worker, type ResourceLimits } from 'node:worker_threads';
 import { HttpError } from '../errors.ts';
 
+/** `.ts` where the module at `url` runs as TypeScript (tsx), `.mjs` where it was built (scripts/build-api.ts puts each thread's module beside it). */
+export const ownExtension = (url: string) => /\.[a-z]+$/.exec(new URL(url).pathname)![0];
+
 type Jobs = Record<string, (...args: never[]) => Promise<unknown>>;
 /** An error as it crosses threads: a thrown error loses its own fields (`status`, `code`) on the way. */
 export interface JobFailure {
@@ -35,6 +38,13 @@ export class JobThread<J extends Jobs> {
       this.waiting.set(id, { resolve: resolve as (result: unknown) => void, reject });
       this.thread().postMessage({ id, name, args });
     });
+  }
+
+  /** Ends the thread (a job after this starts a new one). */
+  async stop(): Promise<void> {
+    const stopping = this.worker;
+    this.worker = null;
+    await stopping?.terminate();
   }
 
   private thread(): Worker {
