@@ -55,6 +55,41 @@ describe('importing historical builds', () => {
     expect(imported[0]).toMatchObject({ status: 'cancelled', deliveredAt: null, totalCents: 0 });
   });
 
+  it("files each row's VIN and plate with its vehicle, finds the builds by them, and refuses a VIN that does not add up", async () => {
+    const header = 'customer_name,customer_email,vehicle_year,vehicle_body_style,vehicle_make,vehicle_model,vehicle_vin,vehicle_plate,delivered_on,items';
+    // Check digits worked in tests/external/vin.test.ts (1M8GDM9AXKP042788: 49 CFR 565 worked example).
+    const file = (...rows: string[]) => [header, ...rows].join('\r\n');
+    const rows = [
+      `Wren Calloway,wren@example.test,2021,van,Alder,Trekker,,OLD 1,2024-02-01,${parts.fuse.sku}`,
+      `Wren Calloway,wren@example.test,2021,van,Alder,Trekker,1m8gdm9axkp 042788,wrn 42,2025-03-04,${parts.fuse.sku}`,
+      `Wren Calloway,wren@example.test,2021,van,Alder,Trekker,1M8GDM9AXKP042788,,2025-06-01,${parts.fuse.sku} x2`,
+    ];
+    const bad = await lead.post('/api/imports/builds').send({ locationId: den, csv: file(...rows, `Bad Vin,,2021,van,Alder,Trekker,1M8GDM9A1KP042788,,2025-06-01,${parts.fuse.sku}`), dryRun: true });
+    expect(bad.body.ok).toBe(false);
+    expect(bad.body.rows[3].errors).toEqual({ vehicle_vin: 'This VIN does not add up: check each character against the vehicle (the 9th is a check digit)' });
+    expect(bad.body.rows[1].summary).toBe('Delivered 2025-03-04: Wren Calloway, 2021 Alder Trekker (VIN 1M8GDM9AXKP042788), 1 component line, 0 h labor');
+
+    const real = await lead.post('/api/imports/builds').send({ locationId: den, csv: file(...rows), dryRun: false });
+    expect(real.body).toMatchObject({ ok: true, created: 3 });
+    const [withoutVin, first, second] = await h.db
+      .selectFrom('builds as b')
+      .innerJoin('vehicles as v', 'v.id', 'b.vehicleId')
+      .select(['b.id', 'b.number', 'v.id as vehicleId', 'v.vin', 'v.plate'])
+      .orderBy('b.id', 'desc')
+      .limit(3)
+      .execute()
+      .then((r) => r.reverse());
+    // A vehicle on file without a VIN is not taken for the one with it: the customer may have two of the model.
+    expect(withoutVin).toMatchObject({ vin: null, plate: 'OLD 1' });
+    expect(first).toMatchObject({ vin: '1M8GDM9AXKP042788', plate: 'WRN 42' });
+    expect(second!.vehicleId).toBe(first!.vehicleId);
+    expect(withoutVin!.vehicleId).not.toBe(first!.vehicleId);
+    const found = await lead.get('/api/builds').query({ q: 'KP042788' });
+    expect(found.body.items.map((b: { number: string }) => b.number).sort()).toEqual([first!.number, second!.number].sort());
+    const byPlate = await lead.get('/api/builds').query({ q: 'WRN 42' });
+    expect(byPlate.body.items.map((b: { number: string }) => b.number).sort()).toEqual([first!.number, second!.number].sort());
+  });
+
   it('names every bad cell by row and column and writes nothing if any row fails', async () => {
     const file = csv(
       `Good Row,,2020,pickup,Alder,Hauler,delivered,2025-01-02,2025-01-03,,1,${parts.fuse.sku}`,

@@ -152,6 +152,6 @@ async function checkSerials(db: Db, rows: CheckedRow[], results: ImportRowResult
 
 function summarize(row: ImportRow, itemCount: number): string {
   const status = row.status === 'delivered' ? `Delivered ${row.delivered_on}` : 'Cancelled';
-  const vehicle = `${row.vehicle_year} ${row.vehicle_make} ${row.vehicle_model}`;
+  const vehicle = `${row.vehicle_year} ${row.vehicle_make} ${row.vehicle_model}${row.vehicle_vin ? ` (VIN ${row.vehicle_vin})` : ''}`;
   return `${status}: ${row.customer_name}, ${vehicle}, ${itemCount} component line${itemCount === 1 ? '' : 's'}, ${row.labor_hours} h labor`;
 }

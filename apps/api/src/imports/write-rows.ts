@@ -48,20 +48,22 @@ async function customerFor(trx: Db, location: ImportLocation, row: CheckedRow['r
   return created.id;
 }
 
+/**
+ * The customer's vehicle the row names: by its VIN when the row gives one (the one with that VIN,
+ * else a new one: a vehicle on file without a VIN may be another of the same model), otherwise the
+ * one of the same year, make and model, else a new one. A vehicle on file is never changed.
+ */
 async function vehicleFor(trx: Db, location: ImportLocation, customerId: number, row: CheckedRow['row'], written: Written): Promise<number> {
   const vehicle = { year: row.vehicle_year, make: row.vehicle_make, model: row.vehicle_model };
-  const existing = await trx
-    .selectFrom('vehicles')
-    .select('id')
-    .where('customerId', '=', customerId)
-    .where('year', '=', vehicle.year)
-    .where('make', '=', vehicle.make)
-    .where('model', '=', vehicle.model)
-    .executeTakeFirst();
+  const mine = trx.selectFrom('vehicles').select('id').where('customerId', '=', customerId);
+  const existing = await (row.vehicle_vin
+    ? mine.where('vin', '=', row.vehicle_vin)
+    : mine.where('year', '=', vehicle.year).where('make', '=', vehicle.make).where('model', '=', vehicle.model)
+  ).executeTakeFirst();
   if (existing) return existing.id;
   const created = await trx
     .insertInto('vehicles')
-    .values({ ...vehicle, customerId, locationId: location.id, bodyStyle: row.vehicle_body_style, notes: '' })
+    .values({ ...vehicle, customerId, locationId: location.id, bodyStyle: row.vehicle_body_style, vin: row.vehicle_vin, plate: row.vehicle_plate, notes: '' })
     .returning('id')
     .executeTakeFirstOrThrow();
   written.vehicles.push(created.id);

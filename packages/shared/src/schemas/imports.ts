@@ -3,6 +3,7 @@ import { buildNotesSchema, laborHoursSchema, serialNumberSchema } from './builds
 import { skuSchema } from './catalog.ts';
 import { emailSchema, optionalText } from './common.ts';
 import { customerFields, vehicleFields } from './customers.ts';
+import { plateSchema, vinSchema } from './vehicle-identity.ts';
 
 /** The columns of a historical build import, in the order the template lists them. */
 export const IMPORT_COLUMNS = [
@@ -13,6 +14,8 @@ export const IMPORT_COLUMNS = [
   'vehicle_body_style',
   'vehicle_make',
   'vehicle_model',
+  'vehicle_vin',
+  'vehicle_plate',
   'status',
   'booked_for',
   'delivered_on',
@@ -72,6 +75,8 @@ export const importRow = z
     vehicle_body_style: z.string().trim().toLowerCase().transform((s) => s.replaceAll(' ', '_')).pipe(vehicleFields.bodyStyle),
     vehicle_make: vehicleFields.make,
     vehicle_model: vehicleFields.model,
+    vehicle_vin: vinSchema,
+    vehicle_plate: plateSchema,
     status: z.string().trim().toLowerCase().transform((s) => s || 'delivered').pipe(z.enum(['delivered', 'cancelled'], { error: 'Use delivered or cancelled' })),
     booked_for: z.union([blank, isoDate]),
     delivered_on: z.union([blank, isoDate]),
