@@ -86,6 +86,8 @@ describe('importing historical builds', () => {
     expect(withoutVin!.vehicleId).not.toBe(first!.vehicleId);
     const found = await lead.get('/api/builds').query({ q: 'KP042788' });
     expect(found.body.items.map((b: { number: string }) => b.number).sort()).toEqual([first!.number, second!.number].sort());
+    // Each row carries its vehicle's VIN and plate, so the list can say which one the search found.
+    expect(found.body.items[0]).toMatchObject({ vehicleVin: '1M8GDM9AXKP042788', vehiclePlate: 'WRN 42' });
     const byPlate = await lead.get('/api/builds').query({ q: 'WRN 42' });
     expect(byPlate.body.items.map((b: { number: string }) => b.number).sort()).toEqual([first!.number, second!.number].sort());
   });

@@ -16,7 +16,7 @@ function buildsWithNames(db: Db) {
     .leftJoin('users as t', 't.id', 'b.leadTechnicianId')
     .select([
       'b.id', 'b.number', 'b.locationId', 'l.code as locationCode', 'b.customerId', 'c.name as customerName', 'b.vehicleId',
-      sql<string>`v.year || ' ' || v.make || ' ' || v.model`.as('vehicleLabel'),
+      sql<string>`v.year || ' ' || v.make || ' ' || v.model`.as('vehicleLabel'), 'v.vin as vehicleVin', 'v.plate as vehiclePlate',
       'b.status', 'b.leadTechnicianId', 't.name as leadTechnicianName', 'b.bookedFor', 'b.startedAt', 'b.deliveredAt',
       'b.laborHours', 'b.laborRateCents', 'b.laborCents', 'b.partsPriceCents', 'b.partsCostCents', 'b.totalCents',
       'b.notes', 'b.version', 'b.createdAt', 'b.updatedAt',

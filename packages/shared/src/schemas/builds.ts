@@ -185,6 +185,8 @@ export interface BuildView {
   customerName: string;
   vehicleId: number;
   vehicleLabel: string;
+  vehicleVin: string | null;
+  vehiclePlate: string | null;
   status: BuildStatus;
   leadTechnicianId: number | null;
   leadTechnicianName: string | null;

@@ -1,4 +1,4 @@
-import { BUILD_SORTS, BUILD_STATUSES, type BuildStatus } from '@busbar/shared';
+import { BUILD_SORTS, BUILD_STATUSES, type BuildStatus, type BuildView } from '@busbar/shared';
 import type { LocationQuery } from 'vue-router';
 import type { BuildSort } from '../../api/builds.ts';
 import { positiveInt } from '../../composables/usePagedList.ts';
@@ -28,4 +28,17 @@ export type BuildFilters = ReturnType<typeof readBuildFilters>;
 /** Whether any filter narrows the list (the order does not count). */
 export function isFiltered(f: BuildFilters): boolean {
   return f.status.length > 0 || Boolean(f.locationId || f.technicianId || f.from || f.to || f.deliveredFrom || f.deliveredTo || f.q);
+}
+
+/**
+ * The VIN or plate a build was found by, in words ("VIN 1M8GDM9AXKP042788"), or null: the list
+ * shows year, make and model, which alone would not say why a search for a plate found the build.
+ * The search matches any part of either, letter case aside, as this does.
+ */
+export function foundByVehicle(build: Pick<BuildView, 'vehicleVin' | 'vehiclePlate'>, q: string | undefined): string | null {
+  const text = q?.trim().toUpperCase();
+  if (!text) return null;
+  if (build.vehicleVin?.includes(text)) return `VIN ${build.vehicleVin}`;
+  if (build.vehiclePlate?.includes(text)) return `Plate ${build.vehiclePlate}`;
+  return null;
 }
