@@ -21,11 +21,14 @@ import { sql, type Kysely } from 'kysely';
  */
 const DAY = (date: string) => `cast(julianday(${date}) - 2440587.5 as integer)`;
 
-const UNIT_SOURCE = `select i.id as build_item_id, i.build_id, i.catalog_item_id, b.location_id, i.quantity,
-    max(date(b.delivered_at), substr(i.created_at, 1, 10)) as installed_on,
+/** The installed units, each on the day `installedOn` gives (an expression over line `i` and build `b`). */
+export const unitSource = (installedOn: string) => `select i.id as build_item_id, i.build_id, i.catalog_item_id, b.location_id, i.quantity,
+    ${installedOn} as installed_on,
     coalesce(m.drop_band, 0) as drop_band, coalesce(m.load_band, 0) as load_band, coalesce(m.discharge_band, 0) as discharge_band
   from build_items i join builds b on b.id = i.build_id left join plan_margins m on m.build_id = b.id
   where b.status = 'delivered' and b.delivered_at is not null`;
+/** The UTC date of the delivery, or of the line's adding if later (migration 052 takes the shop's day of the delivery). */
+export const UTC_INSTALL_DAY = 'max(date(b.delivered_at), substr(i.created_at, 1, 10))';
 
 const FAILURE_SOURCE = `select c.id as claim_id, u.build_item_id, u.build_id, u.catalog_item_id, u.location_id, u.installed_on,
     u.drop_band, u.load_band, u.discharge_band, c.failed_on, 1 - c.out_of_warranty as in_warranty, c.failure_mode, c.coverage
@@ -147,7 +150,7 @@ export async function up(db: Kysely<any>): Promise<void> {
   await sql`create index unit_failures_build on unit_failures (build_id)`.execute(db);
   await sql`create index unit_failures_build_item on unit_failures (build_item_id)`.execute(db);
   for (const [name, when, values, sums] of NETWORK_TRIGGERS) await sql.raw(`create trigger ${name} ${when} begin ${toNetwork(sums, values)} end`).execute(db);
-  await sql.raw(`create view installed_unit_source as ${UNIT_SOURCE}`).execute(db);
+  await sql.raw(`create view installed_unit_source as ${unitSource(UTC_INSTALL_DAY)}`).execute(db);
   await sql.raw(`create view failed_unit_source as ${FAILURE_SOURCE}`).execute(db);
   for (const [name, when, sign, where, what] of TRIGGERS) await sql.raw(`create trigger ${name} ${when} begin ${change(sign, where, what)} end`).execute(db);
   for (const [name, when, body] of FAILURE_TRIGGERS) await sql.raw(`create trigger ${name} ${when} begin ${body} end`).execute(db);

@@ -173,6 +173,30 @@ async function failuresCounted(db: Db) {
 
 const refilled = (db: Db) => afterRefill(db, REFILL_UNIT_EXPOSURE, keptTables);
 
+describe("a unit's install day", () => {
+  it("is the shop's day of the delivery: an evening delivery on a month's last day is that day, in that month", async () => {
+    // 18:30 on 31 March in Denver (MDT, UTC−6) is 00:30 on 1 April in UTC.
+    const deliveredAt = '2026-04-01T00:30:00.000Z';
+    const shopDay = new Intl.DateTimeFormat('en-CA', { timeZone: 'America/Denver' }).format(new Date(deliveredAt));
+    expect(shopDay).toBe('2026-03-31');
+    const unit = await addDeliveredUnit(h.db, ids.location('DEN'), { deliveredAt });
+    await h.db.updateTable('builds').set({ deliveredOn: shopDay }).where('id', '=', unit.buildId).execute();
+    await h.db
+      .insertInto('warrantyClaims')
+      .values({
+        locationId: ids.location('DEN'), sequence: 99_001, number: 'DEN-W99001', buildId: unit.buildId, buildItemId: unit.buildItemId, catalogItemId: unit.item.id,
+        failedOn: shopDay, failureMode: 'will_not_charge', coverage: 'vendor_defect', symptoms: 'Dead on the way home', foundHow: '', laborHours: 0, outOfWarranty: 0,
+        status: 'logged', dueOn: null, creditRequestedCents: 0, createdBy: null, createdAt: '2026-04-01T02:00:00.000Z', updatedAt: '2026-04-01T02:00:00.000Z',
+      })
+      .execute();
+    const failure = await h.db.selectFrom('unitFailures').select(['installedDay', 'failedDay']).where('buildItemId', '=', unit.buildItemId).executeTakeFirstOrThrow();
+    expect(failure).toEqual({ installedDay: dayOfIso('2026-03-31'), failedDay: dayOfIso('2026-03-31') });
+    // The cell the unit was first counted in, before the shop's day was set, stays behind empty.
+    const cells = await h.db.selectFrom('unitExposure').select(['installedMonth', 'units', 'failures']).where('catalogItemId', '=', unit.item.id).where('units', '>', 0).execute();
+    expect(cells).toEqual([{ installedMonth: '2026-03', units: 1, failures: 1 }]);
+  });
+});
+
 describe('the kept tables follow every change', () => {
   it('match a refill from scratch after any mix of deliveries, corrections, claims, plans, moves and shops changing region, the regions and lifetimes summing their cells and the failure counts counting the failures', async () => {
     const units = await h.db.selectFrom('buildItems').select(['id', 'buildId']).execute();
@@ -183,6 +207,7 @@ describe('the kept tables follow every change', () => {
     const day = fc.integer({ min: 0, max: 500 }).map((d) => new Date(Date.UTC(2025, 0, 1) + d * 86_400_000).toISOString());
     const change = fc.oneof(
       fc.record({ kind: fc.constant('status' as const), buildId: pick(builds), delivered: fc.boolean(), at: day }),
+      fc.record({ kind: fc.constant('deliveredOn' as const), buildId: pick(builds), at: day }),
       fc.record({ kind: fc.constant('quantity' as const), id: pick(units.map((u) => u.id)), quantity: fc.integer({ min: 1, max: 6 }) }),
       fc.record({ kind: fc.constant('failedOn' as const), id: pick(claims.map((c) => c.id)), at: day }),
       fc.record({ kind: fc.constant('plan' as const), buildId: pick(builds), band: fc.integer({ min: 0, max: 4 }) }),
@@ -208,6 +233,7 @@ describe('the kept tables follow every change', () => {
 
 type Change =
   | { kind: 'status'; buildId: number; delivered: boolean; at: string }
+  | { kind: 'deliveredOn'; buildId: number; at: string }
   | { kind: 'quantity'; id: number; quantity: number }
   | { kind: 'failedOn'; id: number; at: string }
   | { kind: 'plan'; buildId: number; band: number }
@@ -217,8 +243,13 @@ type Change =
 
 async function apply(db: Db, c: Change) {
   if (c.kind === 'status') {
-    const values = c.delivered ? { status: 'delivered' as const, deliveredAt: c.at } : { status: 'quality_check' as const, deliveredAt: null };
+    // The shop's day of the delivery, as the app keeps it: here a shop seven hours behind UTC.
+    const shopDay = new Date(Date.parse(c.at) - 7 * 3_600_000).toISOString().slice(0, 10);
+    const values = c.delivered ? { status: 'delivered' as const, deliveredAt: c.at, deliveredOn: shopDay } : { status: 'quality_check' as const, deliveredAt: null, deliveredOn: null };
     await db.updateTable('builds').set(values).where('id', '=', c.buildId).execute();
+  } else if (c.kind === 'deliveredOn') {
+    // The day alone corrected.
+    await db.updateTable('builds').set({ deliveredOn: c.at.slice(0, 10) }).where('id', '=', c.buildId).where('status', '=', 'delivered').execute();
   } else if (c.kind === 'quantity') await db.updateTable('buildItems').set({ quantity: c.quantity }).where('id', '=', c.id).execute();
   else if (c.kind === 'failedOn') await db.updateTable('warrantyClaims').set({ failedOn: c.at.slice(0, 10) }).where('id', '=', c.id).execute();
   else if (c.kind === 'coverage') {
