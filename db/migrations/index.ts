@@ -51,6 +51,7 @@ import * as createShopBuildSearch from './049-create-shop-build-search.ts';
 import * as createShopCustomerSearch from './050-create-shop-customer-search.ts';
 import * as indexDueClaimsByLocation from './051-index-due-claims-by-location.ts';
 import * as installOnTheShopsDay from './052-install-on-the-shops-day.ts';
+import * as dropSerialNocaseIndex from './053-drop-serial-nocase-index.ts';
 
 /** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
 export const migrations: Record<string, Migration> = {
@@ -106,4 +107,5 @@ export const migrations: Record<string, Migration> = {
   '050-create-shop-customer-search': createShopCustomerSearch,
   '051-index-due-claims-by-location': indexDueClaimsByLocation,
   '052-install-on-the-shops-day': installOnTheShopsDay,
+  '053-drop-serial-nocase-index': dropSerialNocaseIndex,
 };

@@ -4,7 +4,8 @@ import { sql } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { LocationScope } from '../../apps/api/src/access/locations.ts';
 import { listAudit } from '../../apps/api/src/queries/audit.ts';
-import { buildHistory } from '../../apps/api/src/queries/build-changes.ts';
+import { checkImport } from '../../apps/api/src/imports/check-rows.ts';
+import { buildHistory, serialHolder } from '../../apps/api/src/queries/build-changes.ts';
 import { listBuilds } from '../../apps/api/src/queries/builds.ts';
 import { listCustomers } from '../../apps/api/src/queries/customers.ts';
 import { listQuickPlans } from '../../apps/api/src/queries/plans.ts';
@@ -119,6 +120,16 @@ describe('list query plans', () => {
       // A shop's search reads only its range of rowids of the per-shop index (the `>` and `<` bounds).
       if (scope !== 'all' && scope !== padded) expect(lines.find((line) => line.startsWith('SCAN s VIRTUAL TABLE'))).toMatch(/:M\d+></);
     }
+  });
+
+  it('checks a serial number for a second use through the unique (SKU, serial) index, with or without the SKU', async () => {
+    const unit = await h.db.selectFrom('buildItems').select(['sku', 'serialNumber']).where('serialNumber', 'is not', null).limit(1).executeTakeFirstOrThrow();
+    const one = await plansOf(h.db, (db) => serialHolder(db, unit.sku, unit.serialNumber!));
+    expect(one.flat().filter((line) => /\bi\b/.test(line))).toEqual([expect.stringMatching(/^SEARCH i USING (COVERING )?INDEX build_items_serial \(sku=\? AND serial_number=\?\)$/)]);
+    // An import's serial numbers, each looked for under any SKU.
+    const csv = `customer_name,vehicle_year,vehicle_body_style,vehicle_make,vehicle_model,delivered_on,items\nPlan Check,2020,van,Alder,Trekker,2025-01-02,"${unit.sku} #${unit.serialNumber}"`;
+    const imported = await plansOf(h.db, (db) => checkImport(db, { id: den, timeZone: 'America/Denver' }, csv, '2026-01-01T00:00:00.000Z'));
+    expect(imported.flat().filter((line) => line.includes('build_items'))).toEqual(['SEARCH build_items USING COVERING INDEX build_items_serial (ANY(sku) AND serial_number=?)']);
   });
 
   it.each([
