@@ -11,9 +11,10 @@ import { sql, type Kysely } from 'kysely';
  *
  * A unit is a line of a delivered build, counted by its quantity, installed the later of the day
  * the build was delivered and the day the line was added (a replacement or a correction after
- * delivery starts its life on its own day). Days are UTC calendar days of those times. A failure is
- * a warranty claim on the unit. `plan_margins` holds the bands of a build's power plan (1 is the
- * most margin, 4 past the limit; 0 no plan), filled by the API whenever a build's plan changes.
+ * delivery starts its life on its own day). Days are UTC calendar days of those times (since 052,
+ * the delivery's day at its shop). A failure is a warranty claim on the unit. `plan_margins` holds
+ * the bands of a build's power plan (1 is the most margin, 4 past the limit; 0 no plan), filled by
+ * the API whenever a build's plan changes.
  *
  * Triggers keep the tables current the way the search indexes are (migration 015): before a change,
  * take the rows concerned out as the source views show them; after it, put them back.
