@@ -6,6 +6,7 @@ import { sendWeeklyDigests } from '../digest/weekly-digest.ts';
 import { startMailCapture } from '../mail/capture.ts';
 import { createMailer } from '../mail/mailer.ts';
 import { failUnfinishedExports } from '../queries/exports.ts';
+import { keepSearchIndexesMerged } from '../queries/search-upkeep.ts';
 import { keepPlannerStatistics } from '../queries/statistics.ts';
 
 /** Where the app's mail goes: the configured server, or the local capture this start-up runs. */
@@ -17,9 +18,10 @@ export interface MailRoute {
 /**
  * What runs once for the whole app, before any process answers requests: migrations, the demo
  * network for an empty database, exports a stopped app left unfinished marked failed, the
- * planner's statistics and session pruning (both kept up on a schedule), the local mail capture
- * when no SMTP server is set, and the weekly e-mail (looked for every hour). `tell` hears each
- * long step before it runs (start/ready.ts shows it to whoever opens Busbar meanwhile).
+ * planner's statistics, session pruning and the search indexes' merging (all kept up on a
+ * schedule), the local mail capture when no SMTP server is set, and the weekly e-mail (looked for
+ * every hour). `tell` hears each long step before it runs (start/ready.ts shows it to whoever
+ * opens Busbar meanwhile).
  */
 export async function prepare(config: Config, now: () => Date, tell: (words: string) => void = () => {}): Promise<MailRoute> {
   const db = openDatabase(config.databaseFile);
@@ -32,6 +34,7 @@ export async function prepare(config: Config, now: () => Date, tell: (words: str
   await pruneSessions(db, now());
   await failUnfinishedExports(db, now());
   setInterval(() => void pruneSessions(db, now()), 3_600_000).unref();
+  keepSearchIndexesMerged(db, now);
   const mail = await mailRoute(config);
   const mailer = createMailer(db, mail.smtpUrl, config.mailFrom, now, mail.captured);
   const sendDigests = () => void sendWeeklyDigests(db, mailer, config.publicUrl, now()).catch((error: unknown) => console.error('The weekly e-mail failed:', error));
