@@ -25,7 +25,11 @@ export interface MailRoute {
  */
 export async function prepare(config: Config, now: () => Date, tell: (words: string) => void = () => {}): Promise<MailRoute> {
   const db = openDatabase(config.databaseFile);
-  await migrateToLatest(db, ({ name, done, of }) => tell(`Bringing the database up to date: step ${done + 1} of ${of} (${name.replace(/^\d+-/, '').replaceAll('-', ' ')})`));
+  // The page says how far along; the log, which migration (not for whoever opens the address).
+  await migrateToLatest(db, ({ name, done, of }) => {
+    console.log(`Bringing the database up to date, ${done + 1} of ${of}: ${name}`);
+    tell(`Bringing the database up to date: step ${done + 1} of ${of}`);
+  });
   if (config.demoData && (await ensureDemoData(db, config.scryptLogN, now(), config.dataDir, () => tell('Filling the empty database with the demo network')))) {
     console.log('Filled the empty database with the demo network.');
   }
