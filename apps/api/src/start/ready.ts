@@ -20,11 +20,14 @@ export async function answerWhilePreparing(port: number): Promise<Preparing & { 
     console.warn(`Nothing answers on port ${port} while Busbar gets ready: ${String(error)}`);
     return null;
   });
+  let finished = false;
   return {
     port: answering,
     // Not waited for: the message reaches the thread while this one goes on to the work it names.
     tell: (words) => void thread.run('tell', words).catch(() => {}),
     done: async () => {
+      if (finished) return;
+      finished = true;
       if (answering !== null) await thread.run('close');
       await thread.stop();
     },
