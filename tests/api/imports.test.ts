@@ -88,6 +88,7 @@ describe('importing historical builds', () => {
     expect(found.body.items.map((b: { number: string }) => b.number).sort()).toEqual([first!.number, second!.number].sort());
     // Each row carries its vehicle's VIN and plate, so the list can say which one the search found.
     expect(found.body.items[0]).toMatchObject({ vehicleVin: '1M8GDM9AXKP042788', vehiclePlate: 'WRN 42' });
+    expect((await lead.get(`/api/builds/${first!.id}`)).body).toMatchObject({ vehicleVin: '1M8GDM9AXKP042788', vehiclePlate: 'WRN 42' });
     const byPlate = await lead.get('/api/builds').query({ q: 'WRN 42' });
     expect(byPlate.body.items.map((b: { number: string }) => b.number).sort()).toEqual([first!.number, second!.number].sort());
   });

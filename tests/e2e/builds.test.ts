@@ -142,6 +142,8 @@ describe('a build from booking to delivery', () => {
     const api = await e2e.harness.signedIn('warranty@demo.busbar.test');
     const claim = await api.post('/api/claims').send({ buildItemId: unit.buildItemId, failedOn: '2026-06-10', failureMode: 'will_not_charge', coverage: 'vendor_defect', symptoms: 'No output' });
     expect(claim.status).toBe(201);
+    const { vehicleId } = await db.selectFrom('builds').select('vehicleId').where('id', '=', unit.buildId).executeTakeFirstOrThrow();
+    await db.updateTable('vehicles').set({ vin: '1M8GDM9AXKP042788', plate: 'WRN 42' }).where('id', '=', vehicleId).execute();
 
     const lead = await e2e.newPage();
     await lead.setViewportSize({ width: 390, height: 800 });
@@ -152,6 +154,9 @@ describe('a build from booking to delivery', () => {
     const row = lead.locator('.ant-table-row', { hasText: unit.item.sku });
     await row.getByRole('button', { name: `Edit ${unit.item.sku}` }).waitFor();
     await lead.getByRole('link', { name: `Claim ${claim.body.number}` }).waitFor();
+    // The vehicle's VIN and plate, to tell it is the one in the bay.
+    await lead.locator('.facts').getByText('1M8GDM9AXKP042788', { exact: true }).waitFor();
+    await lead.locator('.facts').getByText('WRN 42', { exact: true }).waitFor();
     expect(await lead.evaluate(() => document.documentElement.scrollWidth <= document.documentElement.clientWidth)).toBe(true);
     // Each component stacks its facts, the figures named, so nothing is left out for the width.
     expect(await row.innerText()).toContain(`Unit cost $${(unit.item.unitCostCents / 100).toFixed(2)}`);
