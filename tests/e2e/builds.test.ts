@@ -162,4 +162,25 @@ describe('a build from booking to delivery', () => {
     expect(await row.innerText()).toContain(`Unit cost $${(unit.item.unitCostCents / 100).toFixed(2)}`);
     await lead.context().close();
   });
+
+  it("books on a phone: the pickers keep the row, the date its field, a new customer's form its buttons", async () => {
+    const lead = await e2e.newPage();
+    await lead.setViewportSize({ width: 390, height: 900 });
+    await e2e.signIn(lead, 'lead@demo.busbar.test');
+    await lead.goto('/builds/new');
+    const form = (await lead.locator('form').first().boundingBox())!;
+    const customer = lead.locator('.ant-form-item', { hasText: 'Customer' }).locator('.ant-select').first();
+    await customer.waitFor();
+    // Each takes (nearly) the form's width, the "New customer" button going under the picker.
+    for (const field of [customer, lead.locator('.ant-picker').first()]) expect((await field.boundingBox())!.width).toBeGreaterThan(form.width * 0.6);
+    await lead.getByRole('button', { name: 'New customer' }).click();
+    const panel = (await lead.getByRole('region', { name: 'New customer' }).boundingBox())!;
+    for (const name of ['Cancel', 'Save customer']) {
+      const button = (await lead.getByRole('region', { name: 'New customer' }).getByRole('button', { name, exact: true }).boundingBox())!;
+      expect(button.x).toBeGreaterThanOrEqual(panel.x);
+      expect(button.x + button.width).toBeLessThanOrEqual(panel.x + panel.width);
+    }
+    expect(await lead.evaluate(() => document.documentElement.scrollWidth <= document.documentElement.clientWidth)).toBe(true);
+    await lead.context().close();
+  });
 });
