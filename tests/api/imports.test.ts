@@ -1,4 +1,6 @@
+import { dayOfIso } from '@busbar/calc';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import * as importedLinesFromDelivery from '../../db/migrations/054-imported-lines-from-delivery.ts';
 import { demoIds, startHarness, type Agent, type Harness } from '../support/api-harness.ts';
 import { addParts } from '../support/build-fixtures.ts';
 import { SIGN_INS } from '../support/staff-fixtures.ts';
@@ -91,6 +93,30 @@ describe('importing historical builds', () => {
     expect((await lead.get(`/api/builds/${first!.id}`)).body).toMatchObject({ vehicleVin: '1M8GDM9AXKP042788', vehiclePlate: 'WRN 42' });
     const byPlate = await lead.get('/api/builds').query({ q: 'WRN 42' });
     expect(byPlate.body.items.map((b: { number: string }) => b.number).sort()).toEqual([first!.number, second!.number].sort());
+  });
+
+  it("counts an imported build's units from their delivery: a claim may give a failure before the import, and reliability ages them from delivery", async () => {
+    const file = csv(`Ines Marlowe,ines@example.test,2020,van,Alder,Trekker,delivered,2025-02-01,2025-02-03,,2,"${parts.battery.sku} #IMP-LIFE-1"`);
+    expect((await lead.post('/api/imports/builds').send({ locationId: den, csv: file, dryRun: false })).body).toMatchObject({ ok: true, created: 1 });
+    const unit = await h.db
+      .selectFrom('buildItems as i')
+      .innerJoin('builds as b', 'b.id', 'i.buildId')
+      .select(['i.id', 'i.buildId', 'i.createdAt', 'b.deliveredAt', 'b.createdAt as recordedAt'])
+      .where('i.serialNumber', '=', 'IMP-LIFE-1')
+      .executeTakeFirstOrThrow();
+    expect(unit.createdAt).toBe(unit.deliveredAt);
+    // Failed months before the import, long after the delivery.
+    const claim = await lead.post('/api/claims').send({ buildItemId: unit.id, failedOn: '2025-06-01', failureMode: 'will_not_charge', coverage: 'vendor_defect', symptoms: 'Stopped charging' });
+    expect(claim.status).toBe(201);
+    const age = async () => h.db.selectFrom('unitFailures').select(['installedDay', 'failedDay']).where('buildItemId', '=', unit.id).executeTakeFirstOrThrow();
+    expect(await age()).toEqual({ installedDay: dayOfIso('2025-02-03'), failedDay: dayOfIso('2025-06-01') });
+
+    // A line an earlier import wrote as added at the import is put back at the delivery (migration 054).
+    await h.db.updateTable('buildItems').set({ createdAt: unit.recordedAt }).where('id', '=', unit.id).execute();
+    expect((await age()).installedDay).toBe(dayOfIso(unit.recordedAt.slice(0, 10)));
+    await importedLinesFromDelivery.up(h.db);
+    expect((await h.db.selectFrom('buildItems').select('createdAt').where('id', '=', unit.id).executeTakeFirstOrThrow()).createdAt).toBe(unit.deliveredAt);
+    expect(await age()).toEqual({ installedDay: dayOfIso('2025-02-03'), failedDay: dayOfIso('2025-06-01') });
   });
 
   it('names every bad cell by row and column and writes nothing if any row fails', async () => {

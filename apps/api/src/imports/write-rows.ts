@@ -155,6 +155,7 @@ async function writeBatch(trx: Db, location: ImportLocation, rows: CheckedRow[],
     const vehicleId = await vehicleFor(trx, location, customerId, row, written);
     const { sequence, number } = await nextBuildNumber(trx, location);
     const { marginCents: _, ...totals } = buildTotals(items, row.labor_hours, location.laborRateCents);
+    const deliveredAt = row.delivered_on ? localEvening(row.delivered_on, location.timeZone) : null;
     const build = await trx
       .insertInto('builds')
       .values({
@@ -167,7 +168,7 @@ async function writeBatch(trx: Db, location: ImportLocation, rows: CheckedRow[],
         leadTechnicianId,
         bookedFor: row.booked_for || null,
         startedAt: null,
-        deliveredAt: row.delivered_on ? localEvening(row.delivered_on, location.timeZone) : null,
+        deliveredAt,
         deliveredOn: row.delivered_on || null,
         laborHours: row.labor_hours,
         laborRateCents: location.laborRateCents,
@@ -180,9 +181,12 @@ async function writeBatch(trx: Db, location: ImportLocation, rows: CheckedRow[],
       .returning('id')
       .executeTakeFirstOrThrow();
     if (items.length > 0) {
+      // The lines were in the build when it was delivered, not added the day of the import: a unit's
+      // life (reliability, the earliest failure a claim may give) starts at the delivery.
+      const addedAt = deliveredAt ?? at;
       await trx
         .insertInto('buildItems')
-        .values(items.map((i) => ({ buildId: build.id, catalogItemId: i.catalogItemId, sku: i.sku, quantity: i.quantity, serialNumber: i.serialNumber, unitPriceCents: i.unitPriceCents, unitCostCents: i.unitCostCents, createdAt: at })))
+        .values(items.map((i) => ({ buildId: build.id, catalogItemId: i.catalogItemId, sku: i.sku, quantity: i.quantity, serialNumber: i.serialNumber, unitPriceCents: i.unitPriceCents, unitCostCents: i.unitCostCents, createdAt: addedAt })))
         .execute();
     }
     written.builds.push(build.id);
