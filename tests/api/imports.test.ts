@@ -119,6 +119,14 @@ describe('importing historical builds', () => {
     expect(await age()).toEqual({ installedDay: dayOfIso('2025-02-03'), failedDay: dayOfIso('2025-06-01') });
   });
 
+  it('gives a build delivered today the time of its import, not a later one', async () => {
+    // The harness's clock: 15:00 UTC on 15 June 2026, 09:00 in Denver, before 17:00 there.
+    const file = csv(`Tobin Ashcroft,,2021,van,Alder,Trekker,delivered,2026-06-15,2026-06-15,,1,${parts.fuse.sku}`);
+    expect((await lead.post('/api/imports/builds').send({ locationId: den, csv: file, dryRun: false })).body).toMatchObject({ ok: true, created: 1 });
+    const build = await h.db.selectFrom('builds').select(['deliveredAt', 'deliveredOn', 'createdAt']).orderBy('id', 'desc').limit(1).executeTakeFirstOrThrow();
+    expect(build).toEqual({ deliveredAt: '2026-06-15T15:00:00.000Z', deliveredOn: '2026-06-15', createdAt: '2026-06-15T15:00:00.000Z' });
+  });
+
   it('names every bad cell by row and column and writes nothing if any row fails', async () => {
     const file = csv(
       `Good Row,,2020,pickup,Alder,Hauler,delivered,2025-01-02,2025-01-03,,1,${parts.fuse.sku}`,

@@ -11,8 +11,14 @@ export interface ImportLocation {
   laborRateCents: number;
 }
 
-/** 17:00 on a local date in the location's zone, as a UTC instant: imported deliveries have no time. */
-const localEvening = (date: string, zone: string) => new Date(localMoment(zone, dayOfIso(date), 17 * 60)).toISOString();
+/**
+ * 17:00 on a local date in the location's zone, as a UTC instant (imported deliveries have no time),
+ * or `now` if that is earlier: a build delivered today is not delivered later than it is imported.
+ */
+const deliveredAtOf = (date: string, zone: string, now: string) => {
+  const evening = new Date(localMoment(zone, dayOfIso(date), 17 * 60)).toISOString();
+  return evening < now ? evening : now;
+};
 
 /** What a batch created, so a later batch's failure can take the whole import back. */
 interface Written {
@@ -155,7 +161,7 @@ async function writeBatch(trx: Db, location: ImportLocation, rows: CheckedRow[],
     const vehicleId = await vehicleFor(trx, location, customerId, row, written);
     const { sequence, number } = await nextBuildNumber(trx, location);
     const { marginCents: _, ...totals } = buildTotals(items, row.labor_hours, location.laborRateCents);
-    const deliveredAt = row.delivered_on ? localEvening(row.delivered_on, location.timeZone) : null;
+    const deliveredAt = row.delivered_on ? deliveredAtOf(row.delivered_on, location.timeZone, at) : null;
     const build = await trx
       .insertInto('builds')
       .values({
