@@ -61,7 +61,10 @@ async function matchingCustomers(db: Db, filter: CustomerFilter): Promise<{ matc
   const fields = [['email', filter.emailScope], ['phone', filter.phoneScope]] as const;
   const partly = fields.some(([, at]) => at !== 'all' && at.length > 0 && !sameScope(at, scope));
   const columns = ['name', ...fields.filter(([, at]) => at === 'all' || at.length > 0).map(([name]) => name)];
-  const candidates = (shops: LocationScope) => (partly ? inScopeOf(db, shops, false).where((eb) => textMatches(eb, filter, q)) : inScopeOf(db, shops, false));
+  const candidates = (shops: LocationScope) => {
+    const inShops = inScopeOf(db, shops, false);
+    return partly ? inShops.where((eb) => textMatches(eb, filter, q)) : inShops;
+  };
   const match = `{${columns.join(' ')}} : ${phrase(q)}`;
   // A few shops: each one's range of the per-shop index (see search.ts).
   const ofShop = (locationId: number) =>
