@@ -20,6 +20,9 @@ export interface SizeRun {
   memory: PeakMemory;
 }
 
+/** The screens alone, at a size measured for comparison only. */
+export type ScreensRun = Pick<SizeRun, 'size' | 'screens'>;
+
 const cell = (figure: ScreenFigure | undefined) =>
   !figure ? '–' : 'status' in figure ? `(${figure.status})` : `${ms(figure.p50)} / ${ms(figure.p95)} / ${ms(figure.p99)}`;
 const ratio = (demo: ScreenFigure | undefined, network: ScreenFigure | undefined) =>
@@ -31,19 +34,23 @@ const rowsOnPage = (figure: ScreenFigure | undefined) => (figure && 'rows' in fi
 const sameRows = (demo: ScreenFigure | undefined, network: ScreenFigure | undefined) =>
   demo && network && 'p95' in demo && 'sameRows' in network && network.sameRows ? `${ms(network.sameRows.p95)} ms, ${(network.sameRows.p95 / demo.p95).toFixed(1)}×` : '–';
 
-function screenTable(demo: SizeRun, network: SizeRun, who: Who): string[] {
+/** The p95 on the demo's shops over the network's years, and the network's ratio to it. */
+const sameYears = (shorter: ScreenFigure | undefined, network: ScreenFigure | undefined) =>
+  shorter && 'p95' in shorter ? `${ms(shorter.p95)} ms, ${ratio(shorter, network)}` : cell(shorter);
+
+function screenTable(demo: SizeRun, shorter: ScreensRun, network: SizeRun, who: Who): string[] {
   const rows = SCREENS.map(([label]) => {
-    const [d, n] = [demo.screens[who].get(label), network.screens[who].get(label)];
-    return `| ${label} | ${cell(d)} | ${cell(n)} | ${ratio(d, n)} | ${rowsOnPage(d)} / ${rowsOnPage(n)} | ${sameRows(d, n)} |`;
+    const [d, s, n] = [demo.screens[who].get(label), shorter.screens[who].get(label), network.screens[who].get(label)];
+    return `| ${label} | ${cell(d)} | ${cell(n)} | ${ratio(d, n)} | ${rowsOnPage(d)} / ${rowsOnPage(n)} | ${sameRows(d, n)} | ${sameYears(s, n)} |`;
   });
   return [
-    `| screen (${who}) | demo p50 / p95 / p99 ms | network p50 / p95 / p99 ms | p95 ratio | rows in the answer, demo / network | network p95 with pages of the demo's rows, ratio |`,
-    '|---|---|---|---|---|---|',
+    `| screen (${who}) | demo p50 / p95 / p99 ms | network p50 / p95 / p99 ms | p95 ratio | rows in the answer, demo / network | network p95 with pages of the demo's rows, ratio | p95 on the demo's shops over the network's years, network's ratio to it |`,
+    '|---|---|---|---|---|---|---|',
     ...rows,
   ];
 }
 
-const sizeLine = ({ size }: SizeRun) =>
+const sizeLine = ({ size }: ScreensRun) =>
   `${size.label}: ${size.locations} locations, ${size.builds.toLocaleString('en-US')} builds, ${size.buildItems.toLocaleString('en-US')} build lines, ${size.claims.toLocaleString('en-US')} warranty claims, ${size.auditRows.toLocaleString('en-US')} audit rows` +
   (size.generatedSeconds === null ? '' : ` (generated in ${Math.round(size.generatedSeconds)} s)`);
 
@@ -52,7 +59,7 @@ const otherRows = (run: SizeRun) => [
 ];
 
 /** The figures as Markdown, with the machine and the date they were taken on. */
-export function report(demo: SizeRun, network: SizeRun, samples: number, loadAtStart: number): string {
+export function report(demo: SizeRun, shorter: ScreensRun, network: SizeRun, samples: number, loadAtStart: number): string {
   // Other work on the machine shows in every figure, so the load average goes with them.
   const machine = `${cpus().length} CPUs (${cpus()[0]?.model.trim() ?? 'unknown'}), ${(totalmem() / 2 ** 30).toFixed(1)} GiB memory, Node ${process.version}, load average ${loadAtStart.toFixed(1)} at the start and ${loadavg()[0]!.toFixed(1)} at the end`;
   return [
@@ -62,10 +69,11 @@ export function report(demo: SizeRun, network: SizeRun, samples: number, loadAtS
     '',
     `- ${sizeLine(demo)}`,
     `- ${sizeLine(network)}`,
+    `- ${sizeLine(shorter)}, for the last column only`,
     '',
-    `Each screen's API request through HTTP with a signed-in person, after 5 warm-up requests, ${samples} timed requests one after another (ms to the last byte, brotli as a browser asks). A regional manager and a lead read no audit log: (403). Where a list's page at the demo's size held fewer rows, the network's list is timed once more with pages of that many rows (last column).`,
+    `Each screen's API request through HTTP with a signed-in person, after 5 warm-up requests, ${samples} timed requests one after another (ms to the last byte, brotli as a browser asks). A regional manager and a lead read no audit log: (403). Where a list's page at the demo's size held fewer rows, the network's list is timed once more with pages of that many rows. The last column times each screen on a network of the demo's shops with the network's years of history: the network's ratio to it is what more shops cost, without more years.`,
     '',
-    ...PEOPLE.flatMap((who) => [...screenTable(demo, network, who), '']),
+    ...PEOPLE.flatMap((who) => [...screenTable(demo, shorter, network, who), '']),
     `| data | ${demo.load.connections} connections, reads and writes, ${demo.load.seconds.toFixed(0)} s | a lead's build detail p95 while the owner imports and reads big lists, and the lead's saves | peak RSS of the largest app process (of all together) |`,
     '|---|---|---|---|',
     ...otherRows(demo),

@@ -1,7 +1,9 @@
 /**
  * `pnpm bench [-- --locations 200 --years 5]`: the real app, started as its own process, measured
  * through HTTP at the demo's size and at a generated network's size in the same run: every list
- * and search screen for the owner, a regional manager and a location lead, 50 connections mixing reads and writes,
+ * and search screen for the owner, a regional manager and a location lead (also on a generated
+ * network of the demo's shops over the same years, to tell growth with shops from growth with
+ * history), 50 connections mixing reads and writes,
  * a lead's build detail while the owner imports and reads, the app's peak memory, and the
  * accountant's workbook of twelve months (rows a second, peak memory, a lead's reads meanwhile). Prints the
  * figures and writes them to bench/RESULTS.md; asserts nothing. What it wrote it takes out again.
@@ -9,13 +11,13 @@
 import { rmSync } from 'node:fs';
 import { loadavg } from 'node:os';
 import { DEMO_PASSWORD } from '@busbar/db';
-import { call, signIn } from './client.ts';
+import { call, signIn, type Person } from './client.ts';
 import { detailDuringOwnerWork } from './contention.ts';
 import { exportLine, exportTable, measureExport } from './exports.ts';
 import { mixedLoad } from './load.ts';
 import { demoData, networkData, sizeOf } from './network-data.ts';
 import { benchOptions, type BenchOptions } from './options.ts';
-import { PEOPLE, report, writeReport, type SizeRun } from './results.ts';
+import { PEOPLE, report, writeReport, type ScreensRun, type SizeRun, type Who } from './results.ts';
 import { compareRollups, rollupLines, type RollupComparison } from './rollups.ts';
 import { idsFor, measureScreens } from './screens.ts';
 import { startApp } from './server.ts';
@@ -23,18 +25,43 @@ import { forgetBenchWrites } from './tidy.ts';
 
 const log = (text: string) => process.stderr.write(`${text}\n`);
 
+/** The people of the demo signed in to `baseUrl`. */
+async function peopleOf(baseUrl: string): Promise<Record<Who, Person>> {
+  return {
+    owner: await signIn(baseUrl, 'owner@demo.busbar.test', DEMO_PASSWORD),
+    'regional manager': await signIn(baseUrl, 'regional@demo.busbar.test', DEMO_PASSWORD),
+    lead: await signIn(baseUrl, 'lead@demo.busbar.test', DEMO_PASSWORD),
+  };
+}
+
+/** Every screen for every person (a list shorter than the demo's page timed once more with pages of the demo's rows). */
+async function screensOf(people: Record<Who, Person>, label: string, options: BenchOptions, demo?: SizeRun): Promise<SizeRun['screens']> {
+  const screens = {} as SizeRun['screens'];
+  for (const who of PEOPLE) screens[who] = await measureScreens(people[who], options.samples, (s) => log(`${label}: ${who}, ${s}`), demo?.screens[who]);
+  return screens;
+}
+
+/** Only the screens, on a network of the demo's shops over the network's years. */
+async function measureScreensOnly(dir: string, label: string, generatedSeconds: number | null, options: BenchOptions): Promise<ScreensRun> {
+  log(`\n${label}: starting the app`);
+  const app = await startApp(dir);
+  try {
+    return { size: await sizeOf(dir, label, generatedSeconds), screens: await screensOf(await peopleOf(app.baseUrl), label, options) };
+  } finally {
+    await app.stop();
+  }
+}
+
 async function measure(dir: string, label: string, generatedSeconds: number | null, options: BenchOptions, demo?: SizeRun): Promise<SizeRun & { rollups: RollupComparison }> {
   log(`\n${label}: starting the app`);
   const app = await startApp(dir);
   try {
     const size = await sizeOf(dir, label, generatedSeconds);
-    const owner = await signIn(app.baseUrl, 'owner@demo.busbar.test', DEMO_PASSWORD);
-    const lead = await signIn(app.baseUrl, 'lead@demo.busbar.test', DEMO_PASSWORD);
+    const people = await peopleOf(app.baseUrl);
+    const { owner, lead } = people;
     const session = JSON.parse((await call(lead, 'GET', '/api/session')).body) as { assignments: { locationId: number }[] };
     const shop = { locationId: session.assignments[0]!.locationId, buildId: (await idsFor(lead)).buildId };
-    const people = { owner, 'regional manager': await signIn(app.baseUrl, 'regional@demo.busbar.test', DEMO_PASSWORD), lead };
-    const screens = {} as SizeRun['screens'];
-    for (const who of PEOPLE) screens[who] = await measureScreens(people[who], options.samples, (s) => log(`${label}: ${who}, ${s}`), demo?.screens[who]);
+    const screens = await screensOf(people, label, options, demo);
     log(`${label}: 50 connections for ${options.seconds} s`);
     const load = await mixedLoad(owner, lead, shop, 50, options.seconds);
     log(`${label}: a lead's build detail while the owner imports 2,000 builds`);
@@ -57,13 +84,15 @@ try {
   const demo = await measure(demoDir, 'demo', null, options);
   log('demo: the accountant exports twelve months');
   const demoExport = await measureExport(demoDir);
+  const shorter = await networkData(demo.size.locations, options.years, options.reuse);
+  const sameYears = await measureScreensOnly(shorter.dir, `the demo's ${demo.size.locations} shops over ${options.years} years`, shorter.generatedSeconds, options);
   const network = await networkData(options.locations, options.years, options.reuse);
   const label = `network ${options.locations} × ${options.years} years${network.reused ? ' (generated by an earlier run)' : ''}`;
   const generated = await measure(network.dir, label, network.generatedSeconds, options, demo);
   log(`${label}: the accountant exports twelve months`);
   const networkExport = await measureExport(network.dir);
   const exports = exportTable([exportLine('demo', demoExport), exportLine(label, networkExport)]);
-  const text = [report(demo, generated, options.samples, loadAtStart), '', ...rollupLines([['demo', demo.rollups], [label, generated.rollups]]), '', ...exports].join('\n');
+  const text = [report(demo, sameYears, generated, options.samples, loadAtStart), '', ...rollupLines([['demo', demo.rollups], [label, generated.rollups]]), '', ...exports].join('\n');
   console.log(text);
   writeReport(options.results, text);
   log(`Wrote ${options.results}.`);
