@@ -18,9 +18,13 @@ const idsOf = (codes: string[]) => codes.map((c) => ids.location(c)).sort((a, b)
 const locationsIn = (answer: LocationComparison) => answer.locations.map((l) => l.locationId).sort((a, b) => a - b);
 
 describe('comparing locations', () => {
-  it("sums each location's months as the roll-ups do, and takes each median over every location", async () => {
-    const owner = await comparisonOf('owner@demo.busbar.test');
-    const months = (await (await h.signedIn('owner@demo.busbar.test')).get('/api/rollups?from=2025-06-01&to=2026-05-31&grain=month').expect(200)).body as Rollups;
+  // June to May is read as a month, three quarters and two months; a calendar year as one year.
+  it.each([
+    ['2025-06', '2026-05', '2026-05-31'],
+    ['2025-01', '2025-12', '2025-12-31'],
+  ])("sums each location's months from %s to %s as the monthly roll-ups do, and takes each median over every location", async (from, to, lastDay) => {
+    const owner = await comparisonOf('owner@demo.busbar.test', `/api/rollups/locations?from=${from}&to=${to}`);
+    const months = (await (await h.signedIn('owner@demo.busbar.test')).get(`/api/rollups?from=${from}-01&to=${lastDay}&grain=month`).expect(200)).body as Rollups;
     const asked = new Set(months.periods.map((p) => p.period));
     expect(owner.comparedLocations).toBe(8);
     for (const location of owner.locations) {

@@ -48,3 +48,20 @@ export const PERIODS_A_YEAR: Record<RollupGrain, number> = { day: 364, week: 52,
 
 /** How many periods of `grain` from the one holding `from` to the one holding `to`. */
 export const periodCount = (grain: RollupGrain, from: string, to: string) => periodNumber(grain, to) - periodNumber(grain, from) + 1;
+
+/**
+ * The months from `from` to `to` (YYYY-MM, inclusive) as the fewest whole years, quarters and
+ * months, in order: the summary tables keep each year and quarter summed already, so a sum over
+ * the months reads one row where it would read twelve or three.
+ */
+export function fewestPeriods(from: string, to: string): { grain: 'year' | 'quarter' | 'month'; key: string }[] {
+  const periods: { grain: 'year' | 'quarter' | 'month'; key: string }[] = [];
+  const last = periodNumber('month', `${to}-01`);
+  for (let month = periodNumber('month', `${from}-01`); month <= last; ) {
+    const grain = month % 12 === 0 && month + 11 <= last ? 'year' : month % 3 === 0 && month + 2 <= last ? 'quarter' : 'month';
+    const length = grain === 'year' ? 12 : grain === 'quarter' ? 3 : 1;
+    periods.push({ grain, key: periodKey(grain, month / length) });
+    month += length;
+  }
+  return periods;
+}

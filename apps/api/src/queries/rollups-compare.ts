@@ -1,6 +1,6 @@
 import { funnelSide, median, MODIFIED_Z_LIMIT, modifiedZScores } from '@busbar/calc';
 import type { Db } from '@busbar/db';
-import { COMPARED_FIGURES, periodKey, periodNumber, type ComparedFigures, type ComparisonQuery, type LocationComparison, type RollupFigures } from '@busbar/shared';
+import { COMPARED_FIGURES, fewestPeriods, type ComparedFigures, type ComparisonQuery, type LocationComparison, type RollupFigures } from '@busbar/shared';
 import { sql } from 'kysely';
 import type { LocationScope } from '../access/locations.ts';
 import { figuresJson, summed, type MoneyReads } from './rollups-json.ts';
@@ -56,17 +56,18 @@ function outliersOf(figures: { locationId: number; figures: ComparedFigures }[])
 }
 
 /**
- * Every location of the network summed over the months (from the monthly roll-ups) and judged
- * against all the others that delivered a build in them; then only the person's locations kept.
+ * Every location of the network summed over the months (from the roll-ups of the fewest whole
+ * years, quarters and months that make them up) and judged against all the others that delivered
+ * a build in them; then only the person's locations kept.
  * The medians and marks come from the whole network, so a lead's shop is compared with shops
  * they never see. A location of the scope that delivered nothing is listed with no marks.
  */
 export async function compareLocations(db: Db, query: ComparisonQuery, scope: LocationScope, money: MoneyScopes): Promise<LocationComparison> {
-  const first = periodNumber('month', `${query.from}-01`);
-  const keys = Array.from({ length: periodNumber('month', `${query.to}-01`) - first + 1 }, (_, i) => periodKey('month', first + i));
+  const periods = fewestPeriods(query.from, query.to);
+  const grains = [...new Set(periods.map((p) => p.grain))].map((grain) => sql`(f.grain = ${grain} and f.period in (${sql.join(periods.filter((p) => p.grain === grain).map((p) => p.key))}))`);
   const { rows } = await sql<{ id: number; json: string }>`
     select l.id, ${figuresJson([], summed, { prices: true, costs: true }, FROM_FIGURES)} as json
-    from locations l left join rollup_figures f on f.location_id = l.id and f.grain = 'month' and f.period in (${sql.join(keys)})
+    from locations l left join rollup_figures f on f.location_id = l.id and (${sql.join(grains, sql` or `)})
     group by l.id order by l.id`.execute(db);
   const all = rows.map((row) => ({ locationId: row.id, figures: compared(JSON.parse(row.json) as FromFigures) }));
   const active = all.filter((f) => f.figures.buildsDelivered > 0);
