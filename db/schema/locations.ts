@@ -49,4 +49,6 @@ export interface MonthClosesTable {
   figures: string;
   /** The month's builds, revenue, parts cost and credits received as accounted for so far (CarriedFigures). */
   carried: string;
+  /** 1 once the month's roll-up changed after it was last accounted for (migration 055), until the shop's next close takes it up. */
+  changed: Generated<number>;
 }

@@ -1,6 +1,7 @@
 import type { Db } from '@busbar/db';
 import type { MonthClose } from '@busbar/shared';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import * as flagChangedFinalMonths from '../../db/migrations/055-flag-changed-final-months.ts';
 import { demoIds, startHarness, type Harness } from '../support/api-harness.ts';
 import { addCustomerWithVehicle } from '../support/build-fixtures.ts';
 import { addDeliveredUnit } from '../support/claim-fixtures.ts';
@@ -204,6 +205,43 @@ describe('marking a month final', () => {
     }
     expect((await (await h.signedIn(SIGN_INS.accountant)).post('/api/closes/99999/2019-03/final')).status).toBe(404);
     expect((await denIn('2019-03')).status).toBe('open');
+  });
+});
+
+describe('final months changed since', () => {
+  const final = async (code: string, month: string) => (await h.signedIn(SIGN_INS.accountant)).post(`/api/closes/${ids.location(code)}/${month}/final`).expect(201);
+  const flagged = async () =>
+    (await h.db.selectFrom('monthCloses').select(['locationId', 'month']).where('changed', '=', 1).orderBy('locationId').orderBy('month').execute()).map((f) => `${f.locationId} ${f.month}`);
+  const denJanuary = (cents: number) =>
+    h.db.updateTable('builds').set((eb) => ({ partsPriceCents: eb('partsPriceCents', '+', cents), totalCents: eb('totalCents', '+', cents) })).where('deliveredOn', '=', '2019-01-10').where('locationId', '=', ids.location('DEN')).execute();
+  const denIn = async (month: string) => ((await ask(SIGN_INS.accountant, `month=${month}`)).body as MonthClose).locations.find((l) => l.locationId === ids.location('DEN'))!;
+
+  it("flags only the months a change touched, adjusts nothing for a change put back, and clears the shop's flags at its next close", async () => {
+    // Denver's January and February are final (above), February having taken up January's change.
+    expect(await flagged()).toEqual([]);
+    await final('PDX', '2019-01');
+    await denJanuary(5_000);
+    expect(await flagged()).toEqual([`${ids.location('DEN')} 2019-01`]);
+    await denJanuary(-5_000);
+    expect(await denIn('2019-03')).toMatchObject({ next: true, adjustments: null });
+    expect((await final('DEN', '2019-03')).body.adjustments).toBeNull();
+    expect(await flagged()).toEqual([]);
+
+    // A credit received after the close, on a claim logged in January, is adjusted for once.
+    await h.db.updateTable('warrantyClaims').set({ status: 'credited', creditReceivedCents: 15_000 }).where('locationId', '=', ids.location('DEN')).where('loggedOn', '=', '2019-01-20').execute();
+    expect(await flagged()).toEqual([`${ids.location('DEN')} 2019-01`]);
+    expect((await denIn('2019-04')).adjustments).toMatchObject({ months: ['2019-01'], revenueCents: 0, creditReceivedCents: 15_000 });
+    expect((await final('DEN', '2019-04')).body.adjustments).toMatchObject({ creditReceivedCents: 15_000 });
+    expect(await flagged()).toEqual([]);
+    expect((await denIn('2019-05')).adjustments).toBeNull();
+  });
+
+  it('flags, on the upgrade that keeps flags (055), final months changed before it', async () => {
+    await flagChangedFinalMonths.down(h.db);
+    await denJanuary(2_000);
+    await flagChangedFinalMonths.up(h.db);
+    expect(await flagged()).toEqual([`${ids.location('DEN')} 2019-01`]);
+    expect((await denIn('2019-05')).adjustments).toMatchObject({ months: ['2019-01'], revenueCents: 2_000 });
   });
 });
 

@@ -1,4 +1,4 @@
-import { isoDay, localDay } from '@busbar/calc';
+import { addMonthsIso, isoDay, localDay } from '@busbar/calc';
 import type { Db } from '@busbar/db';
 import type { LocationClose, MonthClose, MonthCloseFigures } from '@busbar/shared';
 import type { LocationScope } from '../access/locations.ts';
@@ -14,32 +14,42 @@ export const inWords = (month: string) => `${MONTHS[Number(month.slice(5)) - 1]}
 export const endedAt = (timeZone: string, month: string, now: Date) => isoDay(localDay(timeZone, now.getTime())).slice(0, 7) > month;
 
 /**
- * The month at each location of `scope`: as closed where it is final, else as it stands now; the
- * next month to close at a location (the month after its last final one) takes up the changes made
- * since to its final months, as adjustments.
+ * The month at each location of `scope`: as closed where it is final, else as it stands now (the
+ * final ones' builds and claims are not summed again); the next month to close at a location (the
+ * month after its last final one) takes up the changes made since to its final months, as adjustments.
  */
 export async function monthClose(db: Db, month: string, scope: LocationScope, now: Date): Promise<MonthClose> {
-  const [live, finals, last] = [await liveCloses(db, month, scope), await finalsIn(db, month, scope), await lastFinals(db, scope)];
-  const isNext = (id: number) => !last.has(id) || nextMonth(last.get(id)!) === month;
-  const adjusting = live.filter((l) => !finals.has(l.locationId) && last.has(l.locationId) && isNext(l.locationId)).map((l) => l.locationId);
-  const drifts = await driftsOf(db, adjusting);
+  const [places, finals, last] = [await placesIn(db, scope), await finalsIn(db, month, scope), await lastFinals(db, scope)];
+  const openIds = places.filter((p) => !finals.has(p.id)).map((p) => p.id);
+  const live = new Map((openIds.length === 0 ? [] : await liveCloses(db, month, finals.size === 0 ? scope : openIds)).map((l) => [l.locationId, l]));
+  const monthBefore = addMonthsIso(`${month}-01`, -1).slice(0, 7);
+  const isNext = (id: number) => !last.has(id) || last.get(id) === monthBefore;
+  const drifts = await driftsOf(db, openIds.filter((id) => last.has(id) && isNext(id)));
   const nextToClose = (id: number) => (last.has(id) ? nextMonth(last.get(id)!) : null);
-  const locations = live.map(({ timeZone: _, ...open }): LocationClose => {
-    const final = finals.get(open.locationId);
-    if (final) return { ...final, nextToClose: nextToClose(open.locationId) };
+  const locations = places.map(({ id }): LocationClose => {
+    const final = finals.get(id);
+    if (final) return { ...final, nextToClose: nextToClose(id) };
+    const { timeZone: _, ...open } = live.get(id)!;
     return {
       ...open,
       status: 'open',
       finalizedAt: null,
       finalizedByName: null,
-      next: isNext(open.locationId),
-      nextToClose: nextToClose(open.locationId),
-      adjustments: adjustmentsOf(drifts.filter((d) => d.locationId === open.locationId)),
+      next: isNext(id),
+      nextToClose: nextToClose(id),
+      adjustments: adjustmentsOf(drifts.filter((d) => d.locationId === id)),
     };
   });
   const total = Object.fromEntries(FIGURES.map((f) => [f, locations.reduce((sum, l) => sum + l[f], 0)])) as unknown as MonthCloseFigures;
   // A few zones cover the network: each is asked once.
-  return { month, ended: [...new Set(live.map((l) => l.timeZone))].every((zone) => endedAt(zone, month, now)), locations, total };
+  return { month, ended: [...new Set(places.map((p) => p.timeZone))].every((zone) => endedAt(zone, month, now)), locations, total };
+}
+
+/** The locations of `scope` in the order the close lists them, with their zones. */
+function placesIn(db: Db, scope: LocationScope): Promise<{ id: number; timeZone: string }[]> {
+  let query = db.selectFrom('locations').select(['id', 'timeZone']).orderBy('code');
+  if (scope !== 'all') query = query.where('id', 'in', scope.length > 0 ? scope : [0]);
+  return query.execute();
 }
 
 /**
@@ -68,6 +78,8 @@ export async function finalizeMonth(db: Db, location: { id: number; name: string
     for (const d of drifts) {
       await trx.updateTable('monthCloses').set({ carried: JSON.stringify(d.live) }).where('locationId', '=', location.id).where('month', '=', d.month).execute();
     }
+    // Every final month of the shop is now accounted for as it stands (those changed and put back included).
+    await trx.updateTable('monthCloses').set({ changed: 0 }).where('locationId', '=', location.id).where('changed', '=', 1).execute();
     await writeAudit(trx, { at: by.at.toISOString(), actorId: by.id, action: 'close.final', entity: 'location', entityId: location.id, before: null, after: { month, ...closed } });
     return { ...(await finalsIn(trx, month, [location.id])).get(location.id)!, nextToClose: nextMonth(month) };
   });

@@ -28,11 +28,12 @@ export async function finalsIn(db: Db, month: string, scope: LocationScope): Pro
   return new Map(rows.map((r) => [r.locationId, { ...untaxed, ...(JSON.parse(r.figures) as LocationClose), status: 'final', finalizedAt: r.finalizedAt, finalizedByName: r.name, next: false, nextToClose: null }]));
 }
 
-/** Each location's last month marked final (locations with none are left out). */
+/** Each location's last month marked final (locations with none are left out): one seek per location, not every final month read. */
 export async function lastFinals(db: Db, scope: LocationScope): Promise<Map<number, string>> {
-  const { rows } = await sql<{ locationId: number; month: string }>`
-    select location_id, max(month) as month from month_closes where 1 = 1 ${inScope('location_id', scope)} group by location_id`.execute(db);
-  return new Map(rows.map((r) => [r.locationId, r.month]));
+  const { rows } = await sql<{ locationId: number; month: string | null }>`
+    select l.id as location_id, (select max(c.month) from month_closes c where c.location_id = l.id) as month
+    from locations l where 1 = 1 ${inScope('l.id', scope)}`.execute(db);
+  return new Map(rows.filter((r) => r.month !== null).map((r) => [r.locationId, r.month!]));
 }
 
 /** A final month whose builds or credits changed since last accounted for: what it is now, and its rates. */
@@ -47,15 +48,18 @@ export interface Drift {
 
 /**
  * The final months of these locations whose figures in the monthly roll-ups (kept current by every
- * change to builds and claims) differ from what was carried: one seek per final month.
+ * change to builds and claims) differ from what was carried: of the months flagged as changed since
+ * (migration 055), which a change may also have put back as it was.
  */
 export async function driftsOf(db: Db, locationIds: number[]): Promise<Drift[]> {
   if (locationIds.length === 0) return [];
   const { rows } = await sql<{ locationId: number; month: string; carried: string; figures: string; delivered: number; revenue: number; cost: number; credits: number }>`
     select c.location_id, c.month, c.carried, c.figures,
       coalesce(r.builds_delivered, 0) as delivered, coalesce(r.revenue_cents, 0) as revenue, coalesce(r.parts_cost_cents, 0) as cost, coalesce(r.credits_received_cents, 0) as credits
-    from month_closes c left join rollup_figures r on r.grain = 'month' and r.period = c.month and r.location_id = c.location_id
-    where c.location_id in (${sql.join(locationIds)})
+    -- The flagged few, whatever the planner's statistics say of a table that grows from empty.
+    from month_closes c indexed by month_closes_changed
+      left join rollup_figures r on r.grain = 'month' and r.period = c.month and r.location_id = c.location_id
+    where c.location_id in (${sql.join(locationIds)}) and c.changed = 1
       and (delivered <> json_extract(c.carried, '$.buildsDelivered') or revenue <> json_extract(c.carried, '$.revenueCents')
         or cost <> json_extract(c.carried, '$.partsCostCents') or credits <> json_extract(c.carried, '$.creditReceivedCents'))`.execute(db);
   return rows.map((r) => {
