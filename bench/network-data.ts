@@ -4,6 +4,7 @@ import { join } from 'node:path';
 import { DEMO_PASSWORD, migrateToLatest, openDatabase, seedNetwork } from '@busbar/db';
 import { hashPassword } from '../apps/api/src/auth/password.ts';
 import { loadConfig } from '../apps/api/src/config.ts';
+import { closeGeneratedMonths } from '../apps/api/src/demo-closes.ts';
 import { ensureDemoData } from '../apps/api/src/demo.ts';
 import { progressBar } from '../apps/api/src/progress.ts';
 
@@ -14,6 +15,7 @@ export interface DataSize {
   buildItems: number;
   claims: number;
   auditRows: number;
+  finalMonths: number;
   /** Seconds the generator took (also for a database an earlier run made), or null when not known. */
   generatedSeconds: number | null;
 }
@@ -21,9 +23,9 @@ export interface DataSize {
 /** What a data folder holds, counted from its database. */
 export async function sizeOf(dir: string, label: string, generatedSeconds: number | null): Promise<DataSize> {
   const db = openDatabase(join(dir, 'busbar.sqlite'));
-  const count = async (table: 'locations' | 'builds' | 'buildItems' | 'warrantyClaims' | 'auditLog') =>
+  const count = async (table: 'locations' | 'builds' | 'buildItems' | 'warrantyClaims' | 'auditLog' | 'monthCloses') =>
     Number((await db.selectFrom(table).select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow()).n);
-  const size = { label, locations: await count('locations'), builds: await count('builds'), buildItems: await count('buildItems'), claims: await count('warrantyClaims'), auditRows: await count('auditLog'), generatedSeconds };
+  const size = { label, locations: await count('locations'), builds: await count('builds'), buildItems: await count('buildItems'), claims: await count('warrantyClaims'), auditRows: await count('auditLog'), finalMonths: await count('monthCloses'), generatedSeconds };
   await db.destroy();
   return size;
 }
@@ -54,16 +56,20 @@ export async function networkData(locations: number, years: number, reuse: boole
   rmSync(dir, { recursive: true, force: true });
   mkdirSync(dir, { recursive: true });
   const started = performance.now();
+  const now = new Date();
   const bar = progressBar(`generating ${locations} × ${years}`, 1);
   await seedNetwork({
     file: join(dir, 'busbar.sqlite'),
     locations,
     years,
-    now: new Date(),
+    now,
     passwordHash: await hashPassword(DEMO_PASSWORD, loadConfig().scryptLogN),
     onProgress: ({ days, totalDays, builds, indexing }) =>
       indexing ? bar.end(`${builds.toLocaleString('en-US')} builds; building indexes…`) : bar.update(days / totalDays, `${builds.toLocaleString('en-US')} builds`),
   });
+  const closing = progressBar('closing months', 1);
+  const closed = await closeGeneratedMonths(join(dir, 'busbar.sqlite'), now, (done, of) => closing.update(done / of, `${done} of ${of}`));
+  closing.end(`${closed.toLocaleString('en-US')} months final`);
   const generatedSeconds = (performance.now() - started) / 1000;
   writeFileSync(timing, `${generatedSeconds.toFixed(0)}\n`);
   return { dir, generatedSeconds, reused: false };

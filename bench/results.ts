@@ -51,7 +51,7 @@ function screenTable(demo: SizeRun, shorter: ScreensRun, network: SizeRun, who: 
 }
 
 const sizeLine = ({ size }: ScreensRun) =>
-  `${size.label}: ${size.locations} locations, ${size.builds.toLocaleString('en-US')} builds, ${size.buildItems.toLocaleString('en-US')} build lines, ${size.claims.toLocaleString('en-US')} warranty claims, ${size.auditRows.toLocaleString('en-US')} audit rows` +
+  `${size.label}: ${size.locations} locations, ${size.builds.toLocaleString('en-US')} builds, ${size.buildItems.toLocaleString('en-US')} build lines, ${size.claims.toLocaleString('en-US')} warranty claims, ${size.auditRows.toLocaleString('en-US')} audit rows, ${size.finalMonths.toLocaleString('en-US')} months final` +
   (size.generatedSeconds === null ? '' : ` (generated in ${Math.round(size.generatedSeconds)} s)`);
 
 const otherRows = (run: SizeRun) => [

@@ -7,12 +7,14 @@ import { migrateToLatest, openDatabase, seedDemoNetwork, type Db } from '@busbar
 import { CATEGORIES, SPEC_SCHEMAS, catalogItemBody, customerBody, vehicleBody, type BuildHistory, type Category } from '@busbar/shared';
 import { sql } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { closeDemoMonths } from '../../apps/api/src/demo-closes.ts';
 import { ensureDemoData } from '../../apps/api/src/demo.ts';
+import { monthClose } from '../../apps/api/src/queries/month-close.ts';
 import { startHarness, type Harness } from '../support/api-harness.ts';
 import { realNamesIn } from '../support/real-vehicle-names.ts';
 
 const SERIALIZED: Category[] = ['house_battery', 'starter_battery', 'dc_dc_charger', 'solar_panel', 'solar_controller', 'inverter', 'battery_monitor', 'air_compressor'];
-const HISTORY_TABLES = ['vendors', 'catalog_items', 'customers', 'vehicles', 'builds', 'build_items', 'build_events', 'audit_log'];
+const HISTORY_TABLES = ['vendors', 'catalog_items', 'customers', 'vehicles', 'builds', 'build_items', 'build_events', 'audit_log', 'month_closes'];
 
 let harness: Harness;
 const dirs: string[] = [];
@@ -24,11 +26,21 @@ const freshDb = async (): Promise<Db> => {
   return db;
 };
 
+/** The demo's history with its months before last closed, as start-up leaves it (made once, for the tests that read it). */
+let closing: Promise<Db> | undefined;
+const closedDemo = () =>
+  (closing ??= (async () => {
+    const db = await freshDb();
+    await seedDemoNetwork(db, { passwordHash: 'scrypt$10$8$1$x$y', now: harness.clock.now, history: true });
+    expect(await closeDemoMonths(db, harness.clock.now)).toBeGreaterThan(0);
+    return db;
+  })());
+
 /** A digest of each history table, every row in id order. */
 async function fingerprint(db: Db): Promise<Record<string, string>> {
   const digests: Record<string, string> = {};
   for (const table of HISTORY_TABLES) {
-    const { rows } = await sql.raw(`select * from ${table} order by id`).execute(db);
+    const { rows } = await sql.raw(`select * from ${table} order by ${table === 'month_closes' ? 'location_id, month' : 'id'}`).execute(db);
     digests[table] = createHash('sha256').update(JSON.stringify(rows)).digest('hex');
   }
   return digests;
@@ -42,6 +54,7 @@ beforeAll(async () => {
 }, 60_000);
 afterAll(async () => {
   await harness.close();
+  await (await closing)?.destroy();
   for (const dir of dirs) rmSync(dir, { recursive: true, force: true });
 });
 
@@ -58,13 +71,40 @@ function groupBy<T, K>(rows: T[], key: (row: T) => K): Map<K, T[]> {
 const byShop = <T extends { code: string }>(rows: T[]) => groupBy(rows, (r) => r.code);
 
 describe('demo history', () => {
-  it('is the same for the same seed and clock, through start-up and through the harness', async () => {
+  it('is the same for the same seed and clock, through start-up and through the harness with its months closed', async () => {
     const db = await freshDb();
     const started = performance.now();
     expect(await ensureDemoData(db, 15, harness.clock.now, dirs.at(-1)!)).toBe(true);
-    console.log(`Demo seed (staff, one scrypt hash at the default cost, two years of history): ${Math.round(performance.now() - started)} ms`);
-    expect(await fingerprint(db)).toEqual(await fingerprint(harness.db));
+    console.log(`Demo seed (staff, one scrypt hash at the default cost, two years of history, months closed): ${Math.round(performance.now() - started)} ms`);
+    // The harness leaves every month open for the tests of closing them; start-up closes those before last.
+    const closed = await closedDemo();
+    expect(await fingerprint(db)).toEqual(await fingerprint(closed));
+    const { audit_log: _log, month_closes: _closes, ...sameHistory } = await fingerprint(closed);
+    expect(await fingerprint(harness.db)).toMatchObject(sameHistory);
     await db.destroy();
+  }, 30_000);
+
+  it("has every month before last final at every shop, closed by the accountant on the 10th with nothing to adjust, and last month next to close", async () => {
+    const db = await closedDemo();
+    // The harness's clock: 15 June 2026. May is last month.
+    const accountant = await db.selectFrom('users').select('id').where('email', '=', 'accountant@demo.busbar.test').executeTakeFirstOrThrow();
+    const closes = await db.selectFrom('monthCloses').selectAll().execute();
+    const shops = await db.selectFrom('locations').select('id').execute();
+    for (const { id } of shops) {
+      const months = closes.filter((c) => c.locationId === id).map((c) => c.month);
+      expect(months.at(-1), `location ${id}`).toBe('2026-04');
+      // In order, none missed: as many months as from the first to April.
+      const [year, month] = months[0]!.split('-').map(Number) as [number, number];
+      expect(months.length).toBe((2026 - year) * 12 + 4 - month + 1);
+    }
+    for (const c of closes) {
+      expect(c.finalizedBy).toBe(accountant.id);
+      expect(c.finalizedAt.slice(8, 10)).toBe('10');
+      expect(JSON.parse(c.figures).adjustments).toBeNull();
+      expect(c.changed).toBe(0);
+    }
+    const may = await monthClose(db, '2026-05', 'all', harness.clock.now);
+    expect(may.locations.map((l) => [l.status, l.next, l.adjustments])).toEqual(shops.map(() => ['open', true, null]));
   }, 30_000);
 
   it('changes with the seed', async () => {
