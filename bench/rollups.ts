@@ -24,6 +24,8 @@ export const LAST_MONTH = {
   from: isoDate(new Date(Date.UTC(today.getUTCFullYear(), today.getUTCMonth() - 1, 1))),
   to: isoDate(new Date(Date.UTC(today.getUTCFullYear(), today.getUTCMonth(), 0))),
 };
+/** The month before last (YYYY-MM): final at every shop of the demo and of a generated network. */
+export const MONTH_BEFORE_LAST = isoDate(new Date(Date.UTC(today.getUTCFullYear(), today.getUTCMonth() - 2, 1))).slice(0, 7);
 export const rollupPath = (q: RollupQuery) => `/api/rollups?from=${q.from}&to=${q.to}&grain=${q.grain}`;
 
 /**

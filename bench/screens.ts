@@ -1,5 +1,5 @@
 import { call, type Person } from './client.ts';
-import { LAST_MONTH, QUARTER_BY_WEEK, rollupPath, YEAR_BY_MONTH } from './rollups.ts';
+import { LAST_MONTH, MONTH_BEFORE_LAST, QUARTER_BY_WEEK, rollupPath, YEAR_BY_MONTH } from './rollups.ts';
 import { latency, type Latency } from './stats.ts';
 
 /** The API request behind each list, search, detail and reliability screen, as the screen first asks it. */
@@ -44,6 +44,9 @@ export const SCREENS: readonly (readonly [label: string, path: (ids: Ids) => str
   ['roll-ups, shops compared', () => `/api/rollups/locations?from=${YEAR_BY_MONTH.from.slice(0, 7)}&to=${YEAR_BY_MONTH.to.slice(0, 7)}`],
   ['month close, last month', () => `/api/closes?month=${LAST_MONTH.from.slice(0, 7)}`],
   ['month close, a region', (ids) => `/api/closes?month=2025-03&regionId=${ids.regionId}`],
+  ['month close, the month before last (final)', () => `/api/closes?month=${MONTH_BEFORE_LAST}`],
+  // The close status screen's default: the last twelve whole months.
+  ['close status, twelve months', () => `/api/closes/status?from=${YEAR_BY_MONTH.from.slice(0, 7)}&to=${LAST_MONTH.from.slice(0, 7)}`],
 ];
 
 export interface Ids {
