@@ -17,6 +17,14 @@ const TRIGGERS = [
   ['month_closes_changed_delete', 'after delete', 'old'],
 ] as const;
 
+/** Flags each final month by whether its roll-up differs from what was carried: here, and after the roll-ups are refilled (which touches every month). */
+export const FLAG_CHANGED_FINAL_MONTHS = `update month_closes set changed = exists (
+    select 1 from (select 1) left join rollup_figures r on r.grain = 'month' and r.period = month_closes.month and r.location_id = month_closes.location_id
+    where coalesce(r.builds_delivered, 0) <> json_extract(month_closes.carried, '$.buildsDelivered')
+      or coalesce(r.revenue_cents, 0) <> json_extract(month_closes.carried, '$.revenueCents')
+      or coalesce(r.parts_cost_cents, 0) <> json_extract(month_closes.carried, '$.partsCostCents')
+      or coalesce(r.credits_received_cents, 0) <> json_extract(month_closes.carried, '$.creditReceivedCents'))`;
+
 export async function up(db: Kysely<any>): Promise<void> {
   await sql`alter table month_closes add column changed integer not null default 0`.execute(db);
   await sql`create index month_closes_month on month_closes (month)`.execute(db);
@@ -30,12 +38,7 @@ export async function up(db: Kysely<any>): Promise<void> {
       )
       .execute(db);
   }
-  await sql`update month_closes set changed = 1 where exists (
-      select 1 from (select 1) left join rollup_figures r on r.grain = 'month' and r.period = month_closes.month and r.location_id = month_closes.location_id
-      where coalesce(r.builds_delivered, 0) <> json_extract(month_closes.carried, '$.buildsDelivered')
-        or coalesce(r.revenue_cents, 0) <> json_extract(month_closes.carried, '$.revenueCents')
-        or coalesce(r.parts_cost_cents, 0) <> json_extract(month_closes.carried, '$.partsCostCents')
-        or coalesce(r.credits_received_cents, 0) <> json_extract(month_closes.carried, '$.creditReceivedCents'))`.execute(db);
+  await sql.raw(FLAG_CHANGED_FINAL_MONTHS).execute(db);
 }
 
 export async function down(db: Kysely<any>): Promise<void> {

@@ -2,6 +2,7 @@ import type { Db } from '@busbar/db';
 import type { MonthClose } from '@busbar/shared';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import * as flagChangedFinalMonths from '../../db/migrations/055-flag-changed-final-months.ts';
+import { refillRollups } from '../../apps/api/src/queries/rollups-refill.ts';
 import { demoIds, startHarness, type Harness } from '../support/api-harness.ts';
 import { addCustomerWithVehicle } from '../support/build-fixtures.ts';
 import { addDeliveredUnit } from '../support/claim-fixtures.ts';
@@ -240,6 +241,12 @@ describe('final months changed since', () => {
     await flagChangedFinalMonths.down(h.db);
     await denJanuary(2_000);
     await flagChangedFinalMonths.up(h.db);
+    expect(await flagged()).toEqual([`${ids.location('DEN')} 2019-01`]);
+    expect((await denIn('2019-05')).adjustments).toMatchObject({ months: ['2019-01'], revenueCents: 2_000 });
+  });
+
+  it('keeps flagged, after the roll-ups are refilled (which rewrites every month), only the final months that differ', async () => {
+    await refillRollups(h.db);
     expect(await flagged()).toEqual([`${ids.location('DEN')} 2019-01`]);
     expect((await denIn('2019-05')).adjustments).toMatchObject({ months: ['2019-01'], revenueCents: 2_000 });
   });
