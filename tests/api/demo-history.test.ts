@@ -36,7 +36,7 @@ const closedDemo = () =>
     return db;
   })());
 
-/** A digest of each history table, every row in id order. */
+/** A digest of each history table, every row in id order (month closes by shop and month). */
 async function fingerprint(db: Db): Promise<Record<string, string>> {
   const digests: Record<string, string> = {};
   for (const table of HISTORY_TABLES) {
