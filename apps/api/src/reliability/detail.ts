@@ -12,7 +12,7 @@ import type { LocationScope } from '../access/locations.ts';
 import { notFound } from '../errors.ts';
 import { serviceByLocation, unitSums, type UnitFilter } from '../queries/unit-exposure.ts';
 import { claimShares, failureAges, itemsOf, workmanshipClaims } from '../queries/unit-failures.ts';
-import { figuresOf, NO_UNITS } from './figures.ts';
+import { addSums, figuresOf, NO_UNITS } from './figures.ts';
 import { funnelOf, type NamedLocation } from './funnel.ts';
 import { catalogNames, labelOf } from './labels.ts';
 import { observationsOf, survivalCurve, weibullOf } from './survival.ts';
@@ -36,10 +36,12 @@ export async function reliabilityDetail(
   if (!label) throw notFound(params.groupBy === 'vendor' ? 'vendor' : params.groupBy === 'item' ? 'catalog item' : 'category');
   const months = { from: query.from, to: query.to };
   const filter: UnitFilter = { group: params, scope: selected, ...months };
-  const [selectedSums] = await unitSums(db, filter, 'none', today);
-  const [networkSums] = await unitSums(db, { ...filter, scope: 'all' }, 'none', today);
+  const byMonth = await unitSums(db, filter, 'month', today);
+  // The scope's sums are its months' added up; the network's are the same cells when the scope is the network.
+  const selectedSums = addSums(byMonth);
+  const networkSums = selected === 'all' ? selectedSums : ((await unitSums(db, { ...filter, scope: 'all' }, 'none', today))[0] ?? NO_UNITS);
   const failures = { itemIds: await itemsOf(db, params), ...months, scope: selected };
-  const observations = observationsOf(await failureAges(db, failures), await unitSums(db, filter, 'month', today), todayDay);
+  const observations = observationsOf(await failureAges(db, failures), byMonth, todayDay);
   const shares = await claimShares(db, failures);
   const claimsOf = <K extends string>(key: 'failureMode' | 'coverage', values: readonly K[]) =>
     values.map((value) => ({ value, claims: shares.filter((s) => s[key] === value).reduce((sum, s) => sum + s.claims, 0) })).filter((v) => v.claims > 0);
@@ -49,8 +51,8 @@ export async function reliabilityDetail(
     groupBy: params.groupBy,
     key: String(params.key),
     ...label,
-    figures: figuresOf(selectedSums ?? NO_UNITS, todayDay),
-    network: figuresOf(networkSums ?? NO_UNITS, todayDay),
+    figures: figuresOf(selectedSums, todayDay),
+    network: figuresOf(networkSums, todayDay),
     survival: survivalCurve(observations),
     ...weibullOf(observations),
     failureModes: claimsOf('failureMode', FAILURE_MODES).map(({ value, claims }) => ({ mode: value, claims })),
