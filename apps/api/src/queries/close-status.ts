@@ -1,7 +1,7 @@
 import type { Db } from '@busbar/db';
 import type { CloseCellStatus, CloseStatus } from '@busbar/shared';
 import type { LocationScope } from '../access/locations.ts';
-import { endedAt } from './month-close.ts';
+import { endedAt, placesIn } from './month-close.ts';
 import { lastFinals, nextMonth } from './month-finals.ts';
 
 /**
@@ -12,14 +12,9 @@ import { lastFinals, nextMonth } from './month-finals.ts';
 export async function closeStatus(db: Db, from: string, to: string, scope: LocationScope, now: Date): Promise<CloseStatus> {
   const months = [from];
   while (months.at(-1)! < to) months.push(nextMonth(months.at(-1)!));
-  let locations = db.selectFrom('locations').select(['id', 'timeZone']).orderBy('code');
   let finals = db.selectFrom('monthCloses').select(['locationId', 'month']).where('month', '>=', from).where('month', '<=', to);
-  if (scope !== 'all') {
-    const ids = scope.length > 0 ? scope : [0];
-    locations = locations.where('id', 'in', ids);
-    finals = finals.where('locationId', 'in', ids);
-  }
-  const [rows, finalRows, last] = [await locations.execute(), await finals.execute(), await lastFinals(db, scope)];
+  if (scope !== 'all') finals = finals.where('locationId', 'in', scope.length > 0 ? scope : [0]);
+  const [rows, finalRows, last] = [await placesIn(db, scope), await finals.execute(), await lastFinals(db, scope)];
   const final = new Set(finalRows.map((f) => `${f.locationId} ${f.month}`));
   // A few zones cover the network: each zone's answer for a month is worked out once.
   const ended = new Map<string, boolean>();
