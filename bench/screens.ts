@@ -2,7 +2,7 @@ import { call, type Person } from './client.ts';
 import { LAST_MONTH, MONTH_BEFORE_LAST, QUARTER_BY_WEEK, rollupPath, YEAR_BY_MONTH } from './rollups.ts';
 import { latency, type Latency } from './stats.ts';
 
-/** The API request behind each list, search, detail and reliability screen, as the screen first asks it. */
+/** The API requests behind every list, search, detail and report screen (and the session and pickers every page asks for), as the screen first asks them. */
 export const SCREENS: readonly (readonly [label: string, path: (ids: Ids) => string])[] = [
   ['builds, first page', () => '/api/builds'],
   ['builds, delivered, by total', () => '/api/builds?status=delivered&sort=totalCents'],
@@ -13,16 +13,31 @@ export const SCREENS: readonly (readonly [label: string, path: (ids: Ids) => str
   ['builds, page 20', () => '/api/builds?page=20&pageSize=25'],
   ['build detail', (ids) => `/api/builds/${ids.buildId}`],
   ['build detail, power plan', (ids) => `/api/builds/${ids.buildId}/plan`],
+  ['build detail, history', (ids) => `/api/builds/${ids.buildId}/history`],
+  ['build detail, plan revisions', (ids) => `/api/builds/${ids.buildId}/plan/revisions`],
   ['serial search, prefix', () => '/api/serials?q=NV25'],
   ['customers', () => '/api/customers'],
   ['customers, search', () => '/api/customers?q=Pemberton'],
   ['customer detail', (ids) => `/api/customers/${ids.customerId}`],
+  ['customer detail, builds', (ids) => `/api/customers/${ids.customerId}/builds`],
+  ['customer detail, saved plans', (ids) => `/api/customers/${ids.customerId}/plans`],
   ['catalog', () => '/api/catalog'],
+  ['catalog item', (ids) => `/api/catalog/${ids.reliabilityItemId}`],
   ['vendors', () => '/api/vendors'],
   ['staff', () => '/api/staff'],
+  ['staff member', (ids) => `/api/staff/${ids.staffId}`],
+  // Every page asks for the person and their places when it opens.
+  ['session', () => '/api/session'],
+  ['locations, for pickers', () => '/api/locations'],
+  ['regions, for pickers', () => '/api/regions'],
+  ['locations, with settings', () => '/api/locations/settings'],
+  ['location, technicians', (ids) => `/api/locations/${ids.locationId}/technicians`],
   ['audit log', () => '/api/audit'],
   ['audit log, builds only', () => '/api/audit?entity=build'],
   ['quick plans', () => '/api/plans'],
+  ['quick plans, stock items', () => '/api/plans/stock'],
+  ['outbox', () => '/api/outbox'],
+  ['exports', () => '/api/exports'],
   ['claims, queue', () => '/api/claims'],
   ['claim detail', (ids) => `/api/claims/${ids.claimId}`],
   ['claims, overdue', () => '/api/claims?overdue=true'],
@@ -55,8 +70,11 @@ export interface Ids {
   claimId: number;
   /** The item with the most failures the person sees: the largest single-item view. */
   reliabilityItemId: string;
-  /** The region of the first location the person sees. */
+  /** The first location the person sees, and its region. */
+  locationId: number;
   regionId: number;
+  /** The first person of the staff list. */
+  staffId: number;
 }
 
 /**
@@ -69,8 +87,10 @@ export type ScreenFigure = (Latency & { rows: number | null; sameRows?: Latency 
 
 /** The rows of a list's page, a report's rows or a month close's shops; null for a single record. */
 function rowsOf(body: string): number | null {
-  const answer = JSON.parse(body) as Record<string, unknown>;
-  const rows = [answer.items, answer.rows, answer.locations].find(Array.isArray);
+  const answer = JSON.parse(body) as unknown;
+  if (Array.isArray(answer)) return answer.length;
+  const { items, rows: reportRows, locations, entries } = answer as Record<string, unknown>;
+  const rows = [items, reportRows, locations, entries].find(Array.isArray);
   return rows ? rows.length : null;
 }
 
@@ -93,8 +113,16 @@ async function firstOf(person: Person, list: string): Promise<number> {
 export async function idsFor(person: Person): Promise<Ids> {
   const { rows } = JSON.parse((await call(person, 'GET', '/api/reliability')).body) as { rows: { key: string; failures: number }[] };
   const reliabilityItemId = rows.reduce((most, row) => (row.failures > most.failures ? row : most)).key;
-  const [location] = JSON.parse((await call(person, 'GET', '/api/locations')).body) as { regionId: number }[];
-  return { buildId: await firstOf(person, 'builds'), customerId: await firstOf(person, 'customers'), claimId: await firstOf(person, 'claims'), reliabilityItemId, regionId: location!.regionId };
+  const [location] = JSON.parse((await call(person, 'GET', '/api/locations')).body) as { id: number; regionId: number }[];
+  return {
+    buildId: await firstOf(person, 'builds'),
+    customerId: await firstOf(person, 'customers'),
+    claimId: await firstOf(person, 'claims'),
+    reliabilityItemId,
+    locationId: location!.id,
+    regionId: location!.regionId,
+    staffId: await firstOf(person, 'staff'),
+  };
 }
 
 /** A request `warmUps` times untimed, then `samples` times one after another. */
