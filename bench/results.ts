@@ -58,8 +58,8 @@ const otherRows = (run: SizeRun) => [
   `| ${run.size.label} | ${run.load.perSecond.toFixed(0)} req/s, ${run.load.errors} errors of ${run.load.requests} (${run.load.writes} writes), p95 ${ms(run.load.latency.p95)} ms | ${ms(run.contention.leadDetail.p95)} ms (p50 ${ms(run.contention.leadDetail.p50)}, ${run.contention.leadDetail.count} requests; the lead's saves meanwhile p95 ${ms(run.contention.leadWrites.p95)} ms, max ${ms(run.contention.leadWrites.max)} ms of ${run.contention.leadWrites.count}; import of ${run.contention.importRows} rows answered ${run.contention.importStatus} in ${ms(run.contention.importMs)} ms, ${run.contention.ownerRequests} owner list requests meanwhile) | ${run.memory.largestMiB.toFixed(0)} MiB (${run.memory.processes} processes: ${run.memory.totalMiB.toFixed(0)} MiB) |`,
 ];
 
-/** The figures as Markdown, with the machine and the date they were taken on. */
-export function report(demo: SizeRun, shorter: ScreensRun, network: SizeRun, samples: number, loadAtStart: number): string {
+/** The figures as Markdown, with the machine and the date they were taken on, and `summary` above the tables. */
+export function report(demo: SizeRun, shorter: ScreensRun, network: SizeRun, samples: number, loadAtStart: number, summary: string[]): string {
   // Other work on the machine shows in every figure, so the load average goes with them.
   const machine = `${cpus().length} CPUs (${cpus()[0]?.model.trim() ?? 'unknown'}), ${(totalmem() / 2 ** 30).toFixed(1)} GiB memory, Node ${process.version}, load average ${loadAtStart.toFixed(1)} at the start and ${loadavg()[0]!.toFixed(1)} at the end`;
   return [
@@ -70,6 +70,8 @@ export function report(demo: SizeRun, shorter: ScreensRun, network: SizeRun, sam
     `- ${sizeLine(demo)}`,
     `- ${sizeLine(network)}`,
     `- ${sizeLine(shorter)}, for the last column only`,
+    '',
+    ...summary,
     '',
     `Each screen's API request through HTTP with a signed-in person, after 5 warm-up requests, ${samples} timed requests one after another (ms to the last byte, brotli as a browser asks). A regional manager and a lead read no audit log: (403). Where a list's page at the demo's size held fewer rows, the network's list is timed once more with pages of that many rows. The last column times each screen on a network of the demo's shops with the network's years of history: the network's ratio to it is what more shops cost, without more years.`,
     '',

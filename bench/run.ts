@@ -18,6 +18,7 @@ import { mixedLoad } from './load.ts';
 import { demoData, networkData, sizeOf } from './network-data.ts';
 import { benchOptions, type BenchOptions } from './options.ts';
 import { PEOPLE, report, writeReport, type ScreensRun, type SizeRun, type Who } from './results.ts';
+import { targetLines } from './targets.ts';
 import { compareRollups, rollupLines, type RollupComparison } from './rollups.ts';
 import { idsFor, measureScreens } from './screens.ts';
 import { startApp } from './server.ts';
@@ -92,7 +93,8 @@ try {
   log(`${label}: the accountant exports twelve months`);
   const networkExport = await measureExport(network.dir);
   const exports = exportTable([exportLine('demo', demoExport), exportLine(label, networkExport)]);
-  const text = [report(demo, sameYears, generated, options.samples, loadAtStart), '', ...rollupLines([['demo', demo.rollups], [label, generated.rollups]]), '', ...exports].join('\n');
+  const summary = targetLines(demo, sameYears, generated, networkExport);
+  const text = [report(demo, sameYears, generated, options.samples, loadAtStart, summary), '', ...rollupLines([['demo', demo.rollups], [label, generated.rollups]]), '', ...exports].join('\n');
   console.log(text);
   writeReport(options.results, text);
   log(`Wrote ${options.results}.`);
