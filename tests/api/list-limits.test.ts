@@ -26,6 +26,7 @@ const LISTS: [path: string, max: number][] = [
   ['/api/serials?q=KST', 100],
   ['/api/claims', 100],
   ['/api/locations/settings', MAX_PAGE_SIZE],
+  ['/api/locations/technicians', MAX_PAGE_SIZE],
 ];
 const withPageSize = (path: string, size: number) => `${path}${path.includes('?') ? '&' : '?'}pageSize=${size}`;
 

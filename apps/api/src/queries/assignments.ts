@@ -1,5 +1,8 @@
 import type { Db } from '@busbar/db';
-import type { AssignmentView, Role, Scope } from '@busbar/shared';
+import type { AssignmentView, Page, Role, Scope } from '@busbar/shared';
+import type { LocationScope } from '../access/locations.ts';
+import { cappedCount, offsetOf } from './paging.ts';
+import { contains } from './search.ts';
 
 export type AssignmentRow = AssignmentView & { userId: number };
 
@@ -57,6 +60,33 @@ export async function countActiveOwners(db: Db): Promise<number> {
   return Number(row.n);
 }
 
+/** The roles whose holders lead builds at their location. */
+const BUILD_LEAD_ROLES: Role[] = ['technician', 'location_lead'];
+
+/**
+ * A page of the active people who may lead builds at any location of `scope`, by name: one query
+ * for a network of hundreds of shops, where a list per shop would be a request per shop.
+ */
+export async function pageBuildLeads(db: Db, scope: LocationScope, filter: { q?: string | undefined; id?: number | undefined; page: number; pageSize: number }): Promise<Page<{ id: number; name: string }>> {
+  const { q, id, page, pageSize } = filter;
+  let people = db
+    .selectFrom('users as u')
+    .select(['u.id', 'u.name'])
+    .where('u.status', '=', 'active')
+    .where((eb) => {
+      let leads = eb.selectFrom('roleAssignments as ra').select('ra.id').whereRef('ra.userId', '=', 'u.id').where('ra.role', 'in', BUILD_LEAD_ROLES);
+      if (scope !== 'all') leads = leads.where('ra.locationId', 'in', scope);
+      return eb.exists(leads);
+    });
+  if (q) people = people.where(contains('u.name', q));
+  if (id !== undefined) people = people.where('u.id', '=', id);
+  const [items, count] = await Promise.all([
+    people.orderBy('u.name').orderBy('u.id').limit(pageSize).offset(offsetOf(page, pageSize)).execute(),
+    cappedCount(db, people),
+  ]);
+  return { items, ...count, page, pageSize };
+}
+
 /** Active people who may lead a build at a location: its technicians and its leads. */
 export function buildLeadsAt(db: Db, locationId: number): Promise<{ id: number; name: string }[]> {
   return db
@@ -65,7 +95,7 @@ export function buildLeadsAt(db: Db, locationId: number): Promise<{ id: number; 
     .select(['u.id', 'u.name'])
     .distinct()
     .where('ra.locationId', '=', locationId)
-    .where('ra.role', 'in', ['technician', 'location_lead'])
+    .where('ra.role', 'in', BUILD_LEAD_ROLES)
     .where('u.status', '=', 'active')
     .orderBy('u.name')
     .execute();

@@ -1,11 +1,12 @@
 import { subject } from '@casl/ability';
-import { idParams, locationListQuery, locationUpdate, noQuery, royaltyTermsBody, salesTaxBody, type AppAbility } from '@busbar/shared';
+import { buildLeadQuery, idParams, locationListQuery, locationUpdate, noQuery, royaltyTermsBody, salesTaxBody, type AppAbility } from '@busbar/shared';
 import { Router } from 'express';
 import type { AppContext } from '../context.ts';
+import { locationScope, reportWithin } from '../access/locations.ts';
 import { conflict, forbidden, notFound } from '../errors.ts';
 import { viewerOf } from '../middleware/session.ts';
 import { validate } from '../middleware/validate.ts';
-import { buildLeadsAt } from '../queries/assignments.ts';
+import { buildLeadsAt, pageBuildLeads } from '../queries/assignments.ts';
 import { writeAudit } from '../queries/audit.ts';
 import { findLocationSettings, listLocations, pageLocations, setApprovalLimit } from '../queries/locations.ts';
 import { inWords } from '../queries/month-close.ts';
@@ -19,9 +20,9 @@ const readsMoneyAt = (ability: AppAbility, locationId: number) =>
 
 /**
  * Locations: every one a person may see, whole (for pickers and labels); a page of them with their
- * settings; one location; the owner's change of its claim approval limit; its royalty terms,
- * which the owner sets and the accountant reads; and its sales tax rates, which the owner sets and
- * whoever reads the shop's revenue reads.
+ * settings; a page of the people who lead builds at them; one location; the owner's change of its
+ * claim approval limit; its royalty terms, which the owner sets and the accountant reads; and its
+ * sales tax rates, which the owner sets and whoever reads the shop's revenue reads.
  */
 export function locationsRouter({ db, now }: AppContext): Router {
   const router = Router();
@@ -41,6 +42,19 @@ export function locationsRouter({ db, now }: AppContext): Router {
       const all = await listLocations(db);
       const ids = all.filter((l) => canRead(ability, l.id)).map((l) => l.id);
       res.json(await pageLocations(db, ids.length === all.length ? 'all' : ids, query));
+    }),
+  );
+
+  router.get(
+    '/technicians',
+    validate({ query: buildLeadQuery }, async ({ query }, req, res) => {
+      const viewer = viewerOf(req);
+      const { locationId, regionId, ...filter } = query;
+      const scope = reportWithin(viewer, locationScope(viewer, 'read', 'Build'), { locationId, regionId }, {
+        none: 'You read the builds of no shop',
+        outside: 'You cannot read the builds of that shop or region',
+      });
+      res.json(await pageBuildLeads(db, scope, filter));
     }),
   );
 

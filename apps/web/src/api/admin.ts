@@ -33,3 +33,7 @@ export interface TechnicianOption {
 
 export const listTechnicians = (locationId: number) =>
   request<TechnicianOption[]>(`/locations/${locationId}/technicians`);
+
+/** A page of the people who may lead builds at the person's shops (within one shop or region), by a part of their name, or one of them by id. */
+export const findBuildLeads = (query: PageRequest & { q?: string; id?: number; locationId?: number; regionId?: number }) =>
+  request<Page<TechnicianOption>>('/locations/technicians', { query: { ...query } });

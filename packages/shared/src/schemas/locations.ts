@@ -13,6 +13,19 @@ export const locationListQuery = z.strictObject({
 });
 export type LocationListQuery = z.infer<typeof locationListQuery>;
 
+/**
+ * One page of the people who may lead builds at the person's shops (within one shop or region of
+ * them), by a part of their name; `id` asks for one of them (to name a choice kept in the address bar).
+ */
+export const buildLeadQuery = z.strictObject({
+  q: optionalText(80).optional(),
+  id: idSchema.optional(),
+  locationId: idSchema.optional(),
+  regionId: idSchema.optional(),
+  ...pageQuery,
+});
+export type BuildLeadQuery = z.infer<typeof buildLeadQuery>;
+
 /** What the owner sets on a location: the credit up to which its lead approves warranty claims alone. */
 export const locationUpdate = z.strictObject({
   claimApprovalLimitCents: z
