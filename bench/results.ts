@@ -1,5 +1,6 @@
 import { writeFileSync } from 'node:fs';
 import { cpus, loadavg, totalmem } from 'node:os';
+import type { DrawnScreens } from './browser.ts';
 import type { ContentionFigures } from './contention.ts';
 import type { LoadFigures } from './load.ts';
 import type { DataSize } from './network-data.ts';
@@ -18,6 +19,7 @@ export interface SizeRun {
   load: LoadFigures;
   contention: ContentionFigures;
   memory: PeakMemory;
+  drawn: DrawnScreens;
 }
 
 /** The screens alone, at a size measured for comparison only. */

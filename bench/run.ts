@@ -4,6 +4,7 @@
  * and search screen for the owner, a regional manager and a location lead (also on a generated
  * network of the demo's shops over the same years, to tell growth with shops from growth with
  * history), 50 connections mixing reads and writes,
+ * the owner's largest screens drawn in Chromium at a desktop's and a phone's width,
  * a lead's build detail while the owner imports and reads, the app's peak memory, and the
  * accountant's workbook of twelve months (rows a second, peak memory, a lead's reads meanwhile). Prints the
  * figures and writes them to bench/RESULTS.md; asserts nothing. What it wrote it takes out again.
@@ -11,6 +12,7 @@
 import { rmSync } from 'node:fs';
 import { loadavg } from 'node:os';
 import { DEMO_PASSWORD } from '@busbar/db';
+import { drawnTable, measureDrawn } from './browser.ts';
 import { call, signIn, type Person } from './client.ts';
 import { detailDuringOwnerWork } from './contention.ts';
 import { exportLine, exportTable, measureExport } from './exports.ts';
@@ -63,13 +65,14 @@ async function measure(dir: string, label: string, generatedSeconds: number | nu
     const session = JSON.parse((await call(lead, 'GET', '/api/session')).body) as { assignments: { locationId: number }[] };
     const shop = { locationId: session.assignments[0]!.locationId, buildId: (await idsFor(lead)).buildId };
     const screens = await screensOf(people, label, options, demo);
+    const drawn = await measureDrawn(app.baseUrl, (screen) => log(`${label}: drawn in Chromium, ${screen}`));
     log(`${label}: 50 connections for ${options.seconds} s`);
     const load = await mixedLoad(owner, lead, shop, 50, options.seconds);
     log(`${label}: a lead's build detail while the owner imports 2,000 builds`);
     const contention = await detailDuringOwnerWork(owner, lead, shop, 2000);
     log(`${label}: roll-ups from the summary tables and from the base tables`);
     const rollups = await compareRollups(dir, options.samples);
-    return { size, screens, load, contention, memory: app.peakMemory(), rollups };
+    return { size, screens, load, contention, memory: app.peakMemory(), drawn, rollups };
   } finally {
     await app.stop();
     const removed = await forgetBenchWrites(dir);
@@ -94,7 +97,7 @@ try {
   const networkExport = await measureExport(network.dir);
   const exports = exportTable([exportLine('demo', demoExport), exportLine(label, networkExport)]);
   const summary = targetLines(demo, sameYears, generated, networkExport);
-  const text = [report(demo, sameYears, generated, options.samples, loadAtStart, summary), '', ...rollupLines([['demo', demo.rollups], [label, generated.rollups]]), '', ...exports].join('\n');
+  const text = [report(demo, sameYears, generated, options.samples, loadAtStart, summary), '', ...drawnTable(demo.drawn, generated.drawn), '', ...rollupLines([['demo', demo.rollups], [label, generated.rollups]]), '', ...exports].join('\n');
   console.log(text);
   writeReport(options.results, text);
   log(`Wrote ${options.results}.`);

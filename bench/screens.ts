@@ -11,6 +11,8 @@ export const SCREENS: readonly (readonly [label: string, path: (ids: Ids) => str
   ['builds, text search: serial', () => '/api/builds?q=LK2506'],
   // Rows 476 to 500: a page the demo's lead also has (540 builds in the shop).
   ['builds, page 20', () => '/api/builds?page=20&pageSize=25'],
+  // The list's lead technician filter over every shop of the person's.
+  ['builds, lead technicians to filter by', () => '/api/locations/technicians'],
   ['build detail', (ids) => `/api/builds/${ids.buildId}`],
   ['build detail, power plan', (ids) => `/api/builds/${ids.buildId}/plan`],
   ['build detail, history', (ids) => `/api/builds/${ids.buildId}/history`],
