@@ -87,7 +87,7 @@ export async function measureDrawn(baseUrl: string, onScreen: (label: string) =>
   }
 }
 
-const drawnCell = (d: Drawn | undefined) => (d ? `${Math.round(d.ms)} ms, ${d.requests} request${d.requests === 1 ? "" : "s"}, ${d.elements.toLocaleString('en-US')} elements${d.sideways > 0 ? `, **${d.sideways} px sideways**` : ''}` : '–');
+const drawnCell = (d: Drawn | undefined) => (d ? `${Math.round(d.ms)} ms, ${d.requests} request${d.requests === 1 ? '' : 's'}, ${d.elements.toLocaleString('en-US')} elements${d.sideways > 0 ? `, **${d.sideways} px sideways**` : ''}` : '–');
 
 /** The drawn screens as a Markdown table, the demo beside the network. */
 export function drawnTable(demo: DrawnScreens, network: DrawnScreens): string[] {
