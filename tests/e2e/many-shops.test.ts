@@ -58,6 +58,16 @@ describe('reports with a row per shop, on a network of more shops than a page', 
     await owner.context().close();
   });
 
+  it('month close counts the shops a month is next at, past a few, instead of naming each', async () => {
+    const accountant = await e2e.harness.signedIn('accountant@demo.busbar.test');
+    const added = await e2e.harness.db.selectFrom('locations').select('id').where('code', 'like', 'N%').where('name', 'like', 'Northfield%').execute();
+    for (const { id } of added) expect((await accountant.post(`/api/closes/${id}/2026-05/final`)).status).toBe(201);
+    const owner = await ownerAt(1280);
+    await owner.goto('/month-close?month=2026-05');
+    await expect.poll(() => owner.locator('.to-close').textContent()).toMatch(`Months to close: Jun 2026 at ${ADDED} shops · 8 shops have no month final yet`);
+    await owner.context().close();
+  });
+
   it('shops compared keep their order from page to page', async () => {
     const owner = await ownerAt(1280);
     await owner.goto('/compare?sort=shop&order=ascend');
