@@ -20,10 +20,10 @@ import { mixedLoad } from './load.ts';
 import { demoData, networkData, sizeOf } from './network-data.ts';
 import { benchOptions, type BenchOptions } from './options.ts';
 import { PEOPLE, report, writeReport, type ScreensRun, type SizeRun, type Who } from './results.ts';
-import { targetLines } from './targets.ts';
 import { compareRollups, rollupLines, type RollupComparison } from './rollups.ts';
 import { idsFor, measureScreens } from './screens.ts';
 import { startApp } from './server.ts';
+import { targetLines } from './targets.ts';
 import { forgetBenchWrites } from './tidy.ts';
 
 const log = (text: string) => process.stderr.write(`${text}\n`);

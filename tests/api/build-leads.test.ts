@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { demoIds, startHarness, type Agent, type Harness } from '../support/api-harness.ts';
-import { SIGN_INS, type SignIn } from '../support/staff-fixtures.ts';
+import { SIGN_INS, signInEveryone, type SignIn } from '../support/staff-fixtures.ts';
 
 let h: Harness;
 let agents: Record<SignIn, Agent>;
@@ -9,8 +9,7 @@ let ids: Awaited<ReturnType<typeof demoIds>>;
 beforeAll(async () => {
   h = await startHarness();
   ids = await demoIds(h.db);
-  const names = Object.keys(SIGN_INS) as SignIn[];
-  agents = Object.fromEntries(await Promise.all(names.map(async (n) => [n, await h.signedIn(SIGN_INS[n])]))) as Record<SignIn, Agent>;
+  agents = await signInEveryone(h);
 });
 afterAll(() => h.close());
 

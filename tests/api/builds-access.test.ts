@@ -2,7 +2,7 @@ import { COST_FIELDS, PRICE_FIELDS, type BuildDetail } from '@busbar/shared';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { demoIds, startHarness, type Agent, type Harness } from '../support/api-harness.ts';
 import { addCustomerWithVehicle, addParts, createBuild } from '../support/build-fixtures.ts';
-import { SIGN_INS, type SignIn } from '../support/staff-fixtures.ts';
+import { SIGN_INS, signInEveryone, type SignIn } from '../support/staff-fixtures.ts';
 
 let h: Harness;
 let agents: Record<SignIn, Agent>;
@@ -16,8 +16,7 @@ beforeAll(async () => {
   h = await startHarness();
   ids = await demoIds(h.db);
   parts = await addParts(h.db);
-  const names = Object.keys(SIGN_INS) as SignIn[];
-  agents = Object.fromEntries(await Promise.all(names.map(async (n) => [n, await h.signedIn(SIGN_INS[n])]))) as Record<SignIn, Agent>;
+  agents = await signInEveryone(h);
   mine = await createBuild(h.db, agents.lead, ids.location('DEN'), { leadTechnicianId: ids.user(SIGN_INS.tech) });
   const added = await agents.lead.post(`/api/builds/${mine.id}/items`).send({ version: mine.version, catalogItemId: parts.fuse.id, quantity: 3 });
   mine = added.body;

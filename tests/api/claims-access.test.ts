@@ -2,7 +2,7 @@ import type { ClaimDetail, ClaimView, Page } from '@busbar/shared';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { demoIds, startHarness, type Agent, type Harness } from '../support/api-harness.ts';
 import { addDeliveredUnit } from '../support/claim-fixtures.ts';
-import { SIGN_INS, type SignIn } from '../support/staff-fixtures.ts';
+import { signInEveryone, type SignIn } from '../support/staff-fixtures.ts';
 
 let h: Harness;
 let agents: Record<SignIn, Agent>;
@@ -14,8 +14,7 @@ const body = (buildItemId: number) => ({ buildItemId, failedOn: '2026-06-01', fa
 beforeAll(async () => {
   h = await startHarness();
   const ids = await demoIds(h.db);
-  const names = Object.keys(SIGN_INS) as SignIn[];
-  agents = Object.fromEntries(await Promise.all(names.map(async (n) => [n, await h.signedIn(SIGN_INS[n])]))) as Record<SignIn, Agent>;
+  agents = await signInEveryone(h);
   const denUnit = await addDeliveredUnit(h.db, ids.location('DEN'));
   const avlUnit = await addDeliveredUnit(h.db, ids.location('AVL'));
   den = (await agents.warranty.post('/api/claims').send(body(denUnit.buildItemId))).body;

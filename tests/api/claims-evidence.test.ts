@@ -4,7 +4,7 @@ import type { ClaimDetail } from '@busbar/shared';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { demoIds, startHarness, type Agent, type Harness } from '../support/api-harness.ts';
 import { addDeliveredUnit, SMALL_PNG, uploadEvidence } from '../support/claim-fixtures.ts';
-import { SIGN_INS, type SignIn } from '../support/staff-fixtures.ts';
+import { signInEveryone, type SignIn } from '../support/staff-fixtures.ts';
 
 let h: Harness;
 let agents: Record<SignIn, Agent>;
@@ -23,8 +23,7 @@ const rows = async () => Number((await h.db.selectFrom('claimEvidence').select((
 beforeAll(async () => {
   h = await startHarness();
   dataDir = h.dataDir;
-  const names = Object.keys(SIGN_INS) as SignIn[];
-  agents = Object.fromEntries(await Promise.all(names.map(async (n) => [n, await h.signedIn(SIGN_INS[n])]))) as Record<SignIn, Agent>;
+  agents = await signInEveryone(h);
   const unit = await addDeliveredUnit(h.db, (await demoIds(h.db)).location('DEN'));
   claim = (await agents.warranty.post('/api/claims').send({ buildItemId: unit.buildItemId, failedOn: '2026-06-01', failureMode: 'water_ingress', coverage: 'vendor_defect', symptoms: 'Water in the case' })).body;
 });

@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { demoIds, startHarness, type Agent, type Harness } from '../support/api-harness.ts';
 import { auditOf } from '../support/catalog-fixtures.ts';
 import { addDeliveredUnit, sendWithEvidence, uploadEvidence } from '../support/claim-fixtures.ts';
-import { SIGN_INS, type SignIn } from '../support/staff-fixtures.ts';
+import { SIGN_INS, signInEveryone, type SignIn } from '../support/staff-fixtures.ts';
 
 let h: Harness;
 let ids: Awaited<ReturnType<typeof demoIds>>;
@@ -23,8 +23,7 @@ const claimBody = (buildItemId: number, extra: Record<string, unknown> = {}) => 
 beforeAll(async () => {
   h = await startHarness();
   ids = await demoIds(h.db);
-  const names = Object.keys(SIGN_INS) as SignIn[];
-  agents = Object.fromEntries(await Promise.all(names.map(async (n) => [n, await h.signedIn(SIGN_INS[n])]))) as Record<SignIn, Agent>;
+  agents = await signInEveryone(h);
   unit = await addDeliveredUnit(h.db, ids.location('DEN'));
 });
 afterAll(() => h.close());

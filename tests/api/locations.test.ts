@@ -2,7 +2,7 @@ import type { LocationSettings, Page } from '@busbar/shared';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { demoIds, startHarness, type Agent, type Harness } from '../support/api-harness.ts';
 import { auditOf } from '../support/catalog-fixtures.ts';
-import { SIGN_INS, type SignIn } from '../support/staff-fixtures.ts';
+import { SIGN_INS, signInEveryone, type SignIn } from '../support/staff-fixtures.ts';
 
 let h: Harness;
 let ids: Awaited<ReturnType<typeof demoIds>>;
@@ -11,8 +11,7 @@ let agents: Record<SignIn, Agent>;
 beforeAll(async () => {
   h = await startHarness();
   ids = await demoIds(h.db);
-  const names = Object.keys(SIGN_INS) as SignIn[];
-  agents = Object.fromEntries(await Promise.all(names.map(async (n) => [n, await h.signedIn(SIGN_INS[n])]))) as Record<SignIn, Agent>;
+  agents = await signInEveryone(h);
 });
 afterAll(() => h.close());
 

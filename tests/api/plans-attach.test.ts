@@ -4,7 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { demoIds, startHarness, type Agent, type Harness } from '../support/api-harness.ts';
 import { createBuild, moveThrough } from '../support/build-fixtures.ts';
 import { auditOf } from '../support/catalog-fixtures.ts';
-import { SIGN_INS, type SignIn } from '../support/staff-fixtures.ts';
+import { SIGN_INS, signInEveryone, type SignIn } from '../support/staff-fixtures.ts';
 
 // 10 W × 4 h + 10 W × 2 h = 60 Wh a day.
 const weekend = {
@@ -29,8 +29,7 @@ let avl: BuildDetail; // Asheville
 beforeAll(async () => {
   h = await startHarness();
   ids = await demoIds(h.db);
-  const names = Object.keys(SIGN_INS) as SignIn[];
-  agents = Object.fromEntries(await Promise.all(names.map(async (n) => [n, await h.signedIn(SIGN_INS[n])]))) as Record<SignIn, Agent>;
+  agents = await signInEveryone(h);
   mine = await techBuild();
   others = await createBuild(h.db, agents.lead, ids.location('DEN'));
   avl = await createBuild(h.db, agents.lead2, ids.location('AVL'));

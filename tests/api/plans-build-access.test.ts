@@ -3,7 +3,7 @@ import type { BuildDetail } from '@busbar/shared';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { demoIds, startHarness, type Agent, type Harness } from '../support/api-harness.ts';
 import { createBuild } from '../support/build-fixtures.ts';
-import { SIGN_INS, type SignIn } from '../support/staff-fixtures.ts';
+import { SIGN_INS, signInEveryone, type SignIn } from '../support/staff-fixtures.ts';
 
 // 10 W × 4 h + 10 W × 2 h = 60 Wh a day, 5 Ah at 12 V.
 const weekend = {
@@ -27,8 +27,7 @@ let avl: BuildDetail; // Asheville, no plan
 beforeAll(async () => {
   h = await startHarness();
   ids = await demoIds(h.db);
-  const names = Object.keys(SIGN_INS) as SignIn[];
-  agents = Object.fromEntries(await Promise.all(names.map(async (n) => [n, await h.signedIn(SIGN_INS[n])]))) as Record<SignIn, Agent>;
+  agents = await signInEveryone(h);
   planned = await denverBuild();
   const saved = await agents.lead.put(`/api/builds/${planned.id}/plan`).send({ version: 0, input: weekend });
   expect(saved.status).toBe(200);

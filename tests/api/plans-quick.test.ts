@@ -3,7 +3,7 @@ import type { PlanView, QuickPlanSummary } from '@busbar/shared';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { demoIds, startHarness, type Agent, type Harness } from '../support/api-harness.ts';
 import { auditOf } from '../support/catalog-fixtures.ts';
-import { SIGN_INS, type SignIn } from '../support/staff-fixtures.ts';
+import { SIGN_INS, signInEveryone, type SignIn } from '../support/staff-fixtures.ts';
 
 // 10 W × 4 h = 40 Wh a day, which the starter battery carries; with a 24 W fan for 5 h, 160 Wh.
 const weekend = {
@@ -25,8 +25,7 @@ let avl: PlanView; // an Asheville consultation by lead2@
 beforeAll(async () => {
   h = await startHarness();
   ids = await demoIds(h.db);
-  const names = Object.keys(SIGN_INS) as SignIn[];
-  agents = Object.fromEntries(await Promise.all(names.map(async (n) => [n, await h.signedIn(SIGN_INS[n])]))) as Record<SignIn, Agent>;
+  agents = await signInEveryone(h);
   den = (await agents.tech.post('/api/plans').send({ locationId: ids.location('DEN'), name: 'Longbay weekend', input: weekend })).body;
   avl = (await agents.lead2.post('/api/plans').send({ locationId: ids.location('AVL'), name: 'Scarp camper', input: weekend })).body;
 });

@@ -1,5 +1,6 @@
 import type { Db } from '@busbar/db';
 import type { PersonStatus, Role } from '@busbar/shared';
+import type { Agent, Harness } from './api-harness.ts';
 
 /** The demo sign-ins by a short name (see db/demo/network.ts). */
 export const SIGN_INS = {
@@ -12,6 +13,12 @@ export const SIGN_INS = {
   lead2: 'lead2@demo.busbar.test',
 } as const;
 export type SignIn = keyof typeof SIGN_INS;
+
+/** Every demo sign-in signed in to the harness, by short name. */
+export async function signInEveryone(h: Pick<Harness, 'signedIn'>): Promise<Record<SignIn, Agent>> {
+  const names = Object.keys(SIGN_INS) as SignIn[];
+  return Object.fromEntries(await Promise.all(names.map(async (n) => [n, await h.signedIn(SIGN_INS[n])]))) as Record<SignIn, Agent>;
+}
 
 let serial = 0;
 

@@ -24,7 +24,6 @@ export const buildLeadQuery = z.strictObject({
   regionId: idSchema.optional(),
   ...pageQuery,
 });
-export type BuildLeadQuery = z.infer<typeof buildLeadQuery>;
 
 /** What the owner sets on a location: the credit up to which its lead approves warranty claims alone. */
 export const locationUpdate = z.strictObject({
