@@ -87,7 +87,7 @@ export interface Ids {
  */
 export type ScreenFigure = (Latency & { rows: number | null; sameRows?: Latency }) | { status: number };
 
-/** The rows of a list's page, a report's rows or a month close's shops; null for a single record. */
+/** The rows of a list's page or of a whole list, a report's rows, a month close's shops or a build's history; null for a single record. */
 function rowsOf(body: string): number | null {
   const answer = JSON.parse(body) as unknown;
   if (Array.isArray(answer)) return answer.length;
