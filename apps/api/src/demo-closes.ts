@@ -2,7 +2,7 @@ import { addMonthsIso } from '@busbar/calc';
 import { openDatabase, type Db } from '@busbar/db';
 import { sql } from 'kysely';
 import { finalizeMonth } from './queries/month-close.ts';
-import { nextMonth } from './queries/month-finals.ts';
+import { monthsFrom, nextMonth } from './queries/month-finals.ts';
 
 const ACCOUNTANT = 'accountant@demo.busbar.test';
 /** The demo's accountant marks a month final on this day of the month after, at 17:00 UTC (morning in the shops). */
@@ -27,15 +27,10 @@ export async function closeDemoMonths(db: Db, now: Date, onClose: (done: number,
     .groupBy('l.id')
     .select(['l.id', 'l.name', sql<string>`substr(min(b.delivered_on), 1, 7)`.as('firstMonth')])
     .execute();
-  const monthsOf = (first: string) => {
-    const months: string[] = [];
-    for (let month = first; month <= lastToClose; month = nextMonth(month)) months.push(month);
-    return months;
-  };
-  const of = locations.reduce((n, l) => n + monthsOf(l.firstMonth).length, 0);
+  const of = locations.reduce((n, l) => n + monthsFrom(l.firstMonth, lastToClose).length, 0);
   let done = 0;
   for (const location of locations) {
-    for (const month of monthsOf(location.firstMonth)) {
+    for (const month of monthsFrom(location.firstMonth, lastToClose)) {
       await finalizeMonth(db, location, month, { id: accountant.id, at: new Date(`${nextMonth(month)}-${CLOSING_DAY}T17:00:00.000Z`) });
       onClose(++done, of);
     }

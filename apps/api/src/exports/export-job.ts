@@ -8,7 +8,7 @@ import { EXPORT_SHEET_NAMES, type ExportSheet } from '@busbar/shared';
 import { sql, type Updateable } from 'kysely';
 import type { LocationScope } from '../access/locations.ts';
 import { monthClose } from '../queries/month-close.ts';
-import { nextMonth } from '../queries/month-finals.ts';
+import { monthsFrom } from '../queries/month-finals.ts';
 import { shown } from './columns.ts';
 import { monthCloseSheets, type ClosedMonth } from './sheets.ts';
 import { csvWriter } from './write-csv.ts';
@@ -91,7 +91,7 @@ export async function runExport(spec: ExportSpec): Promise<void> {
 async function closedMonths(db: Db, spec: ExportSpec): Promise<ClosedMonth[]> {
   const shops = new Map((await db.selectFrom('locations').select(['id', 'code', 'name']).execute()).map((l) => [l.id, l]));
   const closes: ClosedMonth[] = [];
-  for (let month = spec.month; month <= spec.throughMonth; month = nextMonth(month)) {
+  for (const month of monthsFrom(spec.month, spec.throughMonth)) {
     const close = await monthClose(db, month, spec.scope, new Date(spec.at));
     for (const l of close.locations) closes.push({ ...l, month, shop: shops.get(l.locationId)!.code, shopName: shops.get(l.locationId)!.name });
   }

@@ -2,7 +2,7 @@ import type { Db } from '@busbar/db';
 import type { CloseCellStatus, CloseStatus } from '@busbar/shared';
 import type { LocationScope } from '../access/locations.ts';
 import { endedAt, placesIn } from './month-close.ts';
-import { lastFinals, nextMonth } from './month-finals.ts';
+import { lastFinals, monthsFrom, nextMonth } from './month-finals.ts';
 
 /**
  * Where each location of `scope` stands with each month from `from` to `to`: final, running (not
@@ -10,8 +10,7 @@ import { lastFinals, nextMonth } from './month-finals.ts';
  * the locations and their final months, never builds or claims.
  */
 export async function closeStatus(db: Db, from: string, to: string, scope: LocationScope, now: Date): Promise<CloseStatus> {
-  const months = [from];
-  while (months.at(-1)! < to) months.push(nextMonth(months.at(-1)!));
+  const months = monthsFrom(from, to);
   let finals = db.selectFrom('monthCloses').select(['locationId', 'month']).where('month', '>=', from).where('month', '<=', to);
   if (scope !== 'all') finals = finals.where('locationId', 'in', scope.length > 0 ? scope : [0]);
   const [rows, finalRows, last] = [await placesIn(db, scope), await finals.execute(), await lastFinals(db, scope)];

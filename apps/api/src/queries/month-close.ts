@@ -1,4 +1,4 @@
-import { addMonthsIso, isoDay, localDay } from '@busbar/calc';
+import { isoDay, localDay } from '@busbar/calc';
 import type { Db } from '@busbar/db';
 import type { LocationClose, MonthClose, MonthCloseFigures } from '@busbar/shared';
 import type { LocationScope } from '../access/locations.ts';
@@ -22,10 +22,9 @@ export async function monthClose(db: Db, month: string, scope: LocationScope, no
   const [places, finals, last] = [await placesIn(db, scope), await finalsIn(db, month, scope), await lastFinals(db, scope)];
   const openIds = places.filter((p) => !finals.has(p.id)).map((p) => p.id);
   const live = new Map((openIds.length === 0 ? [] : await liveCloses(db, month, finals.size === 0 ? scope : openIds)).map((l) => [l.locationId, l]));
-  const monthBefore = addMonthsIso(`${month}-01`, -1).slice(0, 7);
-  const isNext = (id: number) => !last.has(id) || last.get(id) === monthBefore;
-  const drifts = await driftsOf(db, openIds.filter((id) => last.has(id) && isNext(id)));
   const nextToClose = (id: number) => (last.has(id) ? nextMonth(last.get(id)!) : null);
+  const isNext = (id: number) => !last.has(id) || nextToClose(id) === month;
+  const drifts = await driftsOf(db, openIds.filter((id) => last.has(id) && isNext(id)));
   const locations = places.map(({ id }): LocationClose => {
     const final = finals.get(id);
     if (final) return { ...final, nextToClose: nextToClose(id) };

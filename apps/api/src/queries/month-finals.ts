@@ -16,6 +16,13 @@ export interface Carried {
 /** The month after `month` (YYYY-MM). */
 export const nextMonth = (month: string) => addMonthsIso(`${month}-01`, 1).slice(0, 7);
 
+/** Every month from `from` through `to` (YYYY-MM, inclusive); none when `to` comes first. */
+export function monthsFrom(from: string, to: string): string[] {
+  const months: string[] = [];
+  for (let month = from; month <= to; month = nextMonth(month)) months.push(month);
+  return months;
+}
+
 const inScope = (column: string, scope: LocationScope) => (scope === 'all' ? sql`` : sql`and ${sql.ref(column)} in (${sql.join(scope.length > 0 ? scope : [0])})`);
 
 /** The closes of `month` marked final at the locations of `scope`, as they were closed. */
