@@ -52,11 +52,11 @@ export const SCREENS: readonly (readonly [label: string, path: (ids: Ids) => str
   ['reliability, by vendor, a year', () => '/api/reliability?groupBy=vendor&from=2025-01&to=2025-12'],
   ['reliability, one item', (ids) => `/api/reliability/item/${ids.reliabilityItemId}`],
   ['reliability, one category', () => '/api/reliability/category/house_battery'],
-  // No screen asks for every shop's rows (the API gives them; the weekly e-mail, one week of the reader's shops): timed as the largest answers.
-  ['roll-ups API, every shop, a year by month', () => rollupPath(YEAR_BY_MONTH)],
+  // No screen asks for shops' rows (the API gives them a page of shops at a time): timed as the largest answers.
+  ['roll-ups API, a page of shops, a year by month', () => rollupPath(YEAR_BY_MONTH)],
   // What the comparison screen asks for its key figures and trend: the sums without a row per shop.
   ['roll-ups, a year by month, sums only', () => `${rollupPath(YEAR_BY_MONTH)}&rows=none`],
-  ['roll-ups API, every shop, a quarter by week', () => rollupPath(QUARTER_BY_WEEK)],
+  ['roll-ups API, a page of shops, a quarter by week', () => rollupPath(QUARTER_BY_WEEK)],
   // The comparison screen's table: each shop of the scope over the months, judged against the network.
   ['roll-ups, shops compared', () => `/api/rollups/locations?from=${YEAR_BY_MONTH.from.slice(0, 7)}&to=${YEAR_BY_MONTH.to.slice(0, 7)}`],
   ['month close, last month', () => `/api/closes?month=${LAST_MONTH.from.slice(0, 7)}`],
@@ -87,12 +87,12 @@ export interface Ids {
  */
 export type ScreenFigure = (Latency & { rows: number | null; sameRows?: Latency }) | { status: number };
 
-/** The rows of a list's page or of a whole list, a report's rows, a month close's shops or a build's history; null for a single record. */
+/** The rows of a list's page or of a whole list, a report's rows, the shops of a page of roll-ups or of a month close, or a build's history; null for a single record. */
 function rowsOf(body: string): number | null {
   const answer = JSON.parse(body) as unknown;
   if (Array.isArray(answer)) return answer.length;
-  const { items, rows: reportRows, locations, entries } = answer as Record<string, unknown>;
-  const rows = [items, reportRows, locations, entries].find(Array.isArray);
+  const { items, locationIds, rows: reportRows, locations, entries } = answer as Record<string, unknown>;
+  const rows = [items, locationIds, reportRows, locations, entries].find(Array.isArray);
   return rows ? rows.length : null;
 }
 

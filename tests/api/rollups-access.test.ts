@@ -89,8 +89,32 @@ describe('who reads the roll-ups', () => {
         ]);
       }
       expect(each.scope.map((s) => s.period).sort()).toEqual([...new Set(each.rows.map((r) => r.period))].sort());
-      expect(await rollupsOf(email, `${path}&rows=none`)).toEqual({ ...each, rows: [] });
+      expect(await rollupsOf(email, `${path}&rows=none`)).toEqual({ ...each, rows: [], locationIds: [] });
     }
+  });
+
+  it('gives the rows a page of shops at a time, by id, with the sums of every shop of the person on each page', async () => {
+    const whole = await rollupsOf('owner@demo.busbar.test');
+    const everyShop = idsOf([...WEST, ...EAST]);
+    expect(whole).toMatchObject({ page: 1, pageSize: 25, total: 8, locationIds: everyShop });
+    const pages = await Promise.all([1, 2, 3, 4].map((page) => rollupsOf('owner@demo.busbar.test', `${YEAR_BY_MONTH}&pageSize=3&page=${page}`)));
+    expect(pages.map((p) => p.locationIds)).toEqual([everyShop.slice(0, 3), everyShop.slice(3, 6), everyShop.slice(6), []]);
+    for (const page of pages) {
+      expect(page).toMatchObject({ pageSize: 3, total: 8, scope: whole.scope, regions: whole.regions, network: whole.network });
+      expect(page.rows).toEqual(whole.rows.filter((r) => page.locationIds.includes(r.locationId)));
+    }
+    // A lead's one shop: the second page holds no shop, and still no other shop's figures.
+    const lead = await rollupsOf('lead@demo.busbar.test', `${YEAR_BY_MONTH}&pageSize=1&page=2`);
+    expect(lead).toMatchObject({ total: 1, locationIds: [], rows: [] });
+    expect(lead.scope).toEqual((await rollupsOf('lead@demo.busbar.test')).scope);
+  });
+
+  it('refuses a page of more than 50 shops, in words', async () => {
+    const owner = await h.signedIn('owner@demo.busbar.test');
+    await owner.get(`${YEAR_BY_MONTH}&pageSize=50`).expect(200);
+    const res = await owner.get(`${YEAR_BY_MONTH}&pageSize=51`).expect(400);
+    expect(res.body.error.fields).toEqual({ pageSize: 'At most 50 shops per page' });
+    expect((await owner.get(`${YEAR_BY_MONTH}&pageSize=0`).expect(400)).body.error.fields).toEqual({ pageSize: 'At least 1 shop per page' });
   });
 
   it('technicians and warranty clerks read no roll-ups', async () => {

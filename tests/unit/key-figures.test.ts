@@ -7,6 +7,10 @@ const sums = (period: string, buildsDelivered: number, claimsOpened: number, rev
 const rollups = (scope: ReturnType<typeof sums>[]): Rollups => ({
   grain: 'month',
   periods: [{ period: '2026-05', start: '2026-05-01', end: '2026-05-31', previous: '2026-04', lastYear: '2025-05' }],
+  page: 1,
+  pageSize: 25,
+  total: 3,
+  locationIds: [],
   rows: [],
   scope,
   regions: [],

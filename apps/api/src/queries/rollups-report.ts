@@ -17,7 +17,7 @@ export function askedPeriods({ grain, from, to }: RollupQuery) {
   return periods;
 }
 
-/** The most location-periods one answer holds (a year by week for 200 locations is about 21,000). */
+/** The most location-periods one answer holds (a year by week for a page of 50 shops is about 5,300; a year by day, 38,000, is refused). */
 export const MAX_ROLLUP_ROWS = 25_000;
 
 /** Refuses an answer of more than `MAX_ROLLUP_ROWS` location-periods, in words. */
@@ -27,21 +27,26 @@ export function checkAnswerSize(locations: number, periods: number): void {
   }
 }
 
+/** Which of the person's shops' rows an answer holds: a page of them by id, or (unpaged) all. */
+export type ShopsPage = { page: number; pageSize: number } | 'all';
+
 /**
- * Roll-ups of the locations in `scope` (never empty; each unless `rows` is `none`) and their sum, of
- * each region wholly in it, and of the whole network, for the asked periods and the ones they are
- * compared with, as the UTF-8 bytes of the JSON of Rollups: the figures are written by SQLite
- * (rollups-json.ts), so the thousands of rows of a year of the network never become JavaScript
- * objects or strings.
+ * Roll-ups of the locations in `scope` (never empty): the rows of the shops of `shops` (unless
+ * `rows` is `none`), the sum of every shop of the scope, each region wholly in it and the whole
+ * network, for the asked periods and the ones they are compared with, as the UTF-8 bytes of the JSON
+ * of Rollups: the figures are written by SQLite (rollups-json.ts), so the thousands of rows of a
+ * year of the network never become JavaScript objects or strings.
  */
-export async function rollupReportJson(db: Db, query: RollupQuery, scope: LocationScope, money: MoneyScopes): Promise<Uint8Array> {
+export async function rollupReportJson(db: Db, query: RollupQuery, scope: LocationScope, money: MoneyScopes, shops: ShopsPage): Promise<Uint8Array> {
   const { grain } = query;
   const periods = askedPeriods(query);
   const keys = [...new Set(periods.flatMap((p) => [p.period, p.previous, p.lastYear]))];
   const locations = await locationRegions(db);
-  if (query.rows !== 'none') checkAnswerSize(scope === 'all' ? locations.length : scope.length, keys.length);
   const reads = moneyReads(money);
-  const scopeIds = scope === 'all' ? locations.map((l) => l.id) : scope;
+  const scopeIds = (scope === 'all' ? locations.map((l) => l.id) : [...scope]).sort((a, b) => a - b);
+  const { page, pageSize } = shops === 'all' ? { page: 1, pageSize: scopeIds.length } : shops;
+  const shown = query.rows === 'none' ? [] : scopeIds.slice((page - 1) * pageSize, page * pageSize);
+  checkAnswerSize(shown.length, keys.length);
   const inScope = new Set(scopeIds);
   const regionLocations = (regionId: number) => locations.filter((l) => l.regionId === regionId).map((l) => l.id);
   const whole = [...new Set(locations.map((l) => l.regionId))].filter((r) => regionLocations(r).every((id) => inScope.has(id)));
@@ -49,16 +54,16 @@ export async function rollupReportJson(db: Db, query: RollupQuery, scope: Locati
   const asked = sql`f.grain = ${grain} and f.period in (${sql.join(keys)})`;
   /** The rows of a table of sums, as `f`, in the asked periods and meeting `where`. */
   const of = (table: string, where: RawBuilder<unknown> = sql`true`) => sql`${sql.table(table)} f where ${asked} and ${where}`;
-  const inLocations = scope === 'all' ? sql`true` : sql`f.location_id in (${sql.join(scope)})`;
+  const inLocations = (ids: number[]) => sql`f.location_id in (${sql.join(ids.length > 0 ? ids : [0])})`;
   const inRegions = (ids: number[]) => sql`f.region_id in (${sql.join(ids.length > 0 ? ids : [0])})`;
 
   const rows =
-    query.rows === 'none'
+    shown.length === 0
       ? '[]'
       : await jsonArrayOf(
           db,
-          byMoneyReads(locationId, scopeIds, (id) => reads([id]), (r) => figuresJson([['locationId', locationId], ['period', period]], own, r)),
-          sql`${of('rollup_figures', inLocations)} and ${holdsAny(own)}`,
+          byMoneyReads(locationId, shown, (id) => reads([id]), (r) => figuresJson([['locationId', locationId], ['period', period]], own, r)),
+          sql`${of('rollup_figures', inLocations(shown))} and ${holdsAny(own)}`,
         );
   // The regions' and the network's sums are kept (migration 042): one row a period.
   const kept = (json: RawBuilder<string>, from: RawBuilder<unknown>, order: RawBuilder<unknown>) =>
@@ -70,13 +75,14 @@ export async function rollupReportJson(db: Db, query: RollupQuery, scope: Locati
   const summedOver = (from: RawBuilder<unknown>) =>
     jsonArrayOf(db, sql`json(j)`, sql`(select ${figuresJson([['period', period]], summed, reads(scopeIds))} as j from ${from} group by f.period having ${holdsAny(summed)})`);
   const scopeRegions = scope === 'all' ? null : regionsMadeOf(locations, scope);
-  const scopeSums = scope === 'all' ? network : await summedOver(scopeRegions ? of('rollup_region', inRegions(scopeRegions)) : of('rollup_figures', inLocations));
-  return utf8Of([`{"grain":${JSON.stringify(grain)},"periods":${JSON.stringify(periods)},"rows":`, rows, ',"scope":', scopeSums, ',"regions":', regions, ',"network":', network, '}']);
+  const scopeSums = scope === 'all' ? network : await summedOver(scopeRegions ? of('rollup_region', inRegions(scopeRegions)) : of('rollup_figures', inLocations(scope)));
+  const head = { grain, periods, page, pageSize, total: scopeIds.length, locationIds: shown };
+  return utf8Of([JSON.stringify(head).slice(0, -1), ',"rows":', rows, ',"scope":', scopeSums, ',"regions":', regions, ',"network":', network, '}']);
 }
 
 /** The roll-ups as objects (the weekly e-mail's few rows). */
-export const rollupReport = async (db: Db, query: RollupQuery, scope: LocationScope, money: MoneyScopes): Promise<Rollups> =>
-  JSON.parse(new TextDecoder().decode(await rollupReportJson(db, query, scope, money)));
+export const rollupReport = async (db: Db, query: RollupQuery, scope: LocationScope, money: MoneyScopes, shops: ShopsPage = 'all'): Promise<Rollups> =>
+  JSON.parse(new TextDecoder().decode(await rollupReportJson(db, query, scope, money, shops)));
 
 /** Where a person reads prices and where parts costs, by the role rules. */
 export interface MoneyScopes {

@@ -1,4 +1,4 @@
-import { comparisonQuery, rollupQuery } from '@busbar/shared';
+import { comparisonQuery, rollupPageQuery } from '@busbar/shared';
 import { Router } from 'express';
 import { locationScope, reportWithin } from '../access/locations.ts';
 import type { Viewer } from '../access/viewer.ts';
@@ -11,7 +11,8 @@ import { background } from '../threads/background.ts';
 
 /**
  * Roll-ups of the person's locations by day, week, month, quarter or year, each period beside the
- * one before and the same one a year before, with the whole network's totals. A lead receives their
+ * one before and the same one a year before, with the whole network's totals; the rows of each
+ * shop come a page of shops at a time. A lead receives their
  * shop and the network, no other shop; people who read no reports (technicians, warranty clerks) 403.
  * Summed on the background thread.
  */
@@ -20,10 +21,10 @@ export function rollupsRouter({ db, config }: AppContext): Router {
 
   router.get(
     '/',
-    validate({ query: rollupQuery }, async ({ query }, req, res) => {
+    validate({ query: rollupPageQuery }, async ({ query: { page, pageSize, ...query } }, req, res) => {
       const viewer = viewerOf(req);
       const scope = reportScope(viewer, query);
-      res.type('json').send(await background.run('rollupReportOf', config.databaseFile, query, scope, moneyScopes(viewer)));
+      res.type('json').send(await background.run('rollupReportOf', config.databaseFile, query, scope, moneyScopes(viewer), { page, pageSize }));
     }),
   );
 

@@ -72,14 +72,14 @@ export const COUNT_CAP = 10_000;
  */
 export const SEARCH_CAP = 1_000;
 
-/** `page` and `pageSize` of a list, with its own largest page where smaller than MAX_PAGE_SIZE. */
-export const pagingOf = (maxPageSize = MAX_PAGE_SIZE, defaultPageSize = 50) => ({
+/** `page` and `pageSize` of a list, with its own largest page where smaller than MAX_PAGE_SIZE; a page of a report may hold shops instead of rows. */
+export const pagingOf = (maxPageSize = MAX_PAGE_SIZE, defaultPageSize = 50, [one, many] = ['row', 'rows']) => ({
   page: z.coerce.number().int().min(1).default(1),
   pageSize: z.coerce
     .number()
     .int()
-    .min(1, 'At least 1 row per page')
-    .max(maxPageSize, `At most ${maxPageSize} rows per page`)
+    .min(1, `At least 1 ${one} per page`)
+    .max(maxPageSize, `At most ${maxPageSize} ${many} per page`)
     .default(Math.min(defaultPageSize, maxPageSize)),
 });
 

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { periodCount, ROLLUP_GRAINS } from '../rollup-periods.ts';
 import type { Category } from './catalog.ts';
-import { idSchema } from './common.ts';
+import { idSchema, pagingOf } from './common.ts';
 
 /** The most periods one roll-up request covers. */
 export const MAX_ROLLUP_PERIODS = 400;
@@ -10,22 +10,35 @@ const day = z.iso.date('Use a date like 2026-03-31');
 /** One shop or the shops of one region of the person's (the scope chosen in the header); both must hold. */
 const within = { locationId: idSchema.optional(), regionId: idSchema.optional() };
 
+const rollupFields = {
+  from: day,
+  to: day,
+  grain: z.enum(ROLLUP_GRAINS, { error: 'Pick day, week, month, quarter or year' }),
+  /** `none`: no row per location, only the sums (a screen of totals need not fetch 5,000 rows of the network). */
+  rows: z.enum(['each', 'none'], { error: 'Pick each or none' }).optional(),
+  ...within,
+};
+
+/** A range of at most MAX_ROLLUP_PERIODS periods that ends on or after its start. */
+const periodsRefined = <T extends z.ZodType<{ from: string; to: string; grain: (typeof ROLLUP_GRAINS)[number] }>>(schema: T) =>
+  schema
+    .refine((q) => q.from <= q.to, { path: ['to'], message: 'Pick an end on or after the start' })
+    .refine((q) => q.from > q.to || periodCount(q.grain, q.from, q.to) <= MAX_ROLLUP_PERIODS, {
+      path: ['to'],
+      message: `Pick at most ${MAX_ROLLUP_PERIODS} periods: a shorter range or a longer period`,
+    });
+
 /** Every period that holds a day from `from` to `to` (inclusive), each cut in its location's zone. */
-export const rollupQuery = z
-  .strictObject({
-    from: day,
-    to: day,
-    grain: z.enum(ROLLUP_GRAINS, { error: 'Pick day, week, month, quarter or year' }),
-    /** `none`: no row per location, only the sums (a screen of totals need not fetch 5,000 rows of the network). */
-    rows: z.enum(['each', 'none'], { error: 'Pick each or none' }).optional(),
-    ...within,
-  })
-  .refine((q) => q.from <= q.to, { path: ['to'], message: 'Pick an end on or after the start' })
-  .refine((q) => q.from > q.to || periodCount(q.grain, q.from, q.to) <= MAX_ROLLUP_PERIODS, {
-    path: ['to'],
-    message: `Pick at most ${MAX_ROLLUP_PERIODS} periods: a shorter range or a longer period`,
-  });
+export const rollupQuery = periodsRefined(z.strictObject(rollupFields));
 export type RollupQuery = z.infer<typeof rollupQuery>;
+
+/** The most shops one page of roll-up rows holds, and a page's shops when not asked. */
+export const MAX_ROLLUP_SHOPS_A_PAGE = 50;
+export const ROLLUP_SHOPS_A_PAGE = 25;
+
+/** The roll-ups as the API is asked for them: the rows of a page of the person's shops (by id), with every sum. */
+export const rollupPageQuery = periodsRefined(z.strictObject({ ...rollupFields, ...pagingOf(MAX_ROLLUP_SHOPS_A_PAGE, ROLLUP_SHOPS_A_PAGE, ['shop', 'shops']) }));
+export type RollupPageQuery = z.infer<typeof rollupPageQuery>;
 
 /**
  * The figures of one period. Money fields are left out for people who may not read build prices
@@ -66,14 +79,20 @@ export interface RollupPeriod {
 }
 
 /**
- * Roll-ups of the person's scope. `rows`, `scope`, `regions` and `network` hold every asked period
- * and every `previous` and `lastYear` one; a location or region with nothing in a period has no row.
- * `scope` is the sum of the rows (there even when the rows were not asked for). Regions are those
- * wholly in the person's scope; the network is every location.
+ * Roll-ups of the person's scope. `rows` hold the shops of `locationIds` (a page of the person's
+ * `total` shops, by id; none when the rows were not asked for); `rows`, `scope`, `regions` and
+ * `network` hold every asked period and every `previous` and `lastYear` one; a location or region
+ * with nothing in a period has no row. `scope` is the sum over every shop of the person's, not only
+ * the page's. Regions are those wholly in the person's scope; the network is every location.
  */
 export interface Rollups {
   grain: (typeof ROLLUP_GRAINS)[number];
   periods: RollupPeriod[];
+  page: number;
+  pageSize: number;
+  /** The shops in the person's scope. */
+  total: number;
+  locationIds: number[];
   rows: (RollupFigures & { locationId: number; period: string })[];
   scope: (RollupFigures & { period: string })[];
   regions: (RollupFigures & { regionId: number; period: string })[];
