@@ -68,6 +68,28 @@ describe('reports with a row per shop, on a network of more shops than a page', 
     await owner.context().close();
   });
 
+  it('marks a month final at every shop it is next at, after asking, and names a shop it could not mark with why', async () => {
+    const owner = await ownerAt(1280);
+    await owner.goto('/month-close?month=2026-05');
+    // The demo's 8 shops: the added ones' May is final (above).
+    await owner.getByRole('button', { name: 'Mark final at 8 shops…' }).click();
+    const dialog = owner.locator('.ant-modal');
+    await dialog.getByText('Mark May 2026 final at 8 shops?').waitFor();
+    // Meanwhile the accountant marks Denver's May final.
+    const denver = await e2e.harness.db.selectFrom('locations').select('id').where('code', '=', 'DEN').executeTakeFirstOrThrow();
+    expect((await (await e2e.harness.signedIn('accountant@demo.busbar.test')).post(`/api/closes/${denver.id}/2026-05/final`)).status).toBe(201);
+    await dialog.getByRole('button', { name: 'Mark final' }).click();
+    await owner.getByText('1 shop not marked final').waitFor();
+    expect(await owner.locator('.mark-all li').allTextContents()).toEqual(['DEN Denver: May 2026 is already final at Denver']);
+    const finals = await e2e.harness.db.selectFrom('monthCloses').select('locationId').where('month', '=', '2026-05').execute();
+    expect(finals).toHaveLength(SHOPS);
+    await expect.poll(() => owner.locator('.to-close').textContent()).toMatch(`Months to close: Jun 2026 at all ${SHOPS} shops`);
+    // Nothing left to mark, once the dialog has gone.
+    await dialog.waitFor({ state: 'hidden' });
+    expect(await owner.getByRole('button', { name: /^Mark final/ }).count()).toBe(0);
+    await owner.context().close();
+  });
+
   it('shops compared keep their order from page to page', async () => {
     const owner = await ownerAt(1280);
     await owner.goto('/compare?sort=shop&order=ascend');
@@ -114,5 +136,28 @@ describe("the build list's lead technician filter over many shops", () => {
     await owner.locator('.ant-form-item', { hasText: 'Lead technician' }).locator('.ant-select-selection-item', { hasText: 'Dmitri Castellanos' }).waitFor();
     expect(perShop).toEqual([]);
     await owner.context().close();
+  });
+
+  it('says so of a person a link names who leads no builds in these shops, over many shops and in one', async () => {
+    const owner = await ownerAt(1280);
+    await owner.goto('/builds?technicianId=999999');
+    const chosen = (page: Page) => page.locator('.ant-form-item', { hasText: 'Lead technician' }).locator('.ant-select-selection-item');
+    await chosen(owner).filter({ hasText: 'Not at these shops' }).waitFor();
+    await owner.context().close();
+    // Asheville's technician, named in a link Denver's lead opens.
+    const db = e2e.harness.db;
+    const { userId } = await db
+      .selectFrom('roleAssignments as r')
+      .innerJoin('locations as l', 'l.id', 'r.locationId')
+      .select('r.userId')
+      .where('l.code', '=', 'AVL')
+      .where('r.role', '=', 'technician')
+      .executeTakeFirstOrThrow();
+    const lead = await e2e.newPage();
+    await e2e.signIn(lead, 'lead@demo.busbar.test');
+    await lead.goto(`/builds?technicianId=${userId}`);
+    await chosen(lead).filter({ hasText: 'Not at these shops' }).waitFor();
+    expect(await chosen(lead).textContent()).not.toMatch(/\d/);
+    await lead.context().close();
   });
 });
