@@ -73,10 +73,12 @@ export async function pageBuildLeads(db: Db, scope: LocationScope, filter: { q?:
     .selectFrom('users as u')
     .select(['u.id', 'u.name'])
     .where('u.status', '=', 'active')
+    // Across the network, people are walked by name, each asked whether they lead builds; a scope's
+    // shops find theirs through the location index first (a shop of 200: 0.01 ms instead of 0.66).
     .where((eb) => {
-      let leads = eb.selectFrom('roleAssignments as ra').select('ra.id').whereRef('ra.userId', '=', 'u.id').where('ra.role', 'in', BUILD_LEAD_ROLES);
-      if (scope !== 'all') leads = leads.where('ra.locationId', 'in', scope);
-      return eb.exists(leads);
+      const leads = eb.selectFrom('roleAssignments as ra').where('ra.role', 'in', BUILD_LEAD_ROLES);
+      if (scope === 'all') return eb.exists(leads.select('ra.id').whereRef('ra.userId', '=', 'u.id'));
+      return eb('u.id', 'in', leads.select('ra.userId').where('ra.locationId', 'in', scope));
     });
   if (q) people = people.where(contains('u.name', q));
   if (id !== undefined) people = people.where('u.id', '=', id);
