@@ -32,6 +32,17 @@ export function locationScope(viewer: Viewer, action: 'read' | 'create' | 'expor
   return scope;
 }
 
+/** The locations the person sees (for pickers and labels): 'all', or these ids. Worked out once per cached viewer. */
+export function seenLocations(viewer: Viewer): LocationScope {
+  let scope = viewer.scopes.get('read Location');
+  if (!scope) {
+    const ids = viewer.locationIds.filter((id) => viewer.ability.can('read', subject('Location', { id })));
+    scope = ids.length === viewer.locationIds.length ? 'all' : ids;
+    viewer.scopes.set('read Location', scope);
+  }
+  return scope;
+}
+
 /**
  * The scope narrowed to the location and the region a request asks for (both must hold; none of
  * it when out of scope): a list filtered to a shop, or to the region chosen in the header.

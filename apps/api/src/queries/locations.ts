@@ -1,6 +1,7 @@
 import type { Db } from '@busbar/db';
 import type { LocationListQuery, LocationSettings, LocationView, Page, RegionView } from '@busbar/shared';
 import { sql, type Expression, type SqlBool } from 'kysely';
+import type { LocationScope } from '../access/locations.ts';
 import { cappedCount, offsetOf } from './paging.ts';
 
 /** `column` LIKE `pattern` around `text` taken literally (%, _ and the backslash escaped), in any case. */
@@ -11,8 +12,11 @@ export function listRegions(db: Db): Promise<RegionView[]> {
   return db.selectFrom('regions').select(['id', 'code', 'name']).orderBy('name').execute();
 }
 
-export function listLocations(db: Db): Promise<LocationView[]> {
-  return db.selectFrom('locations').select(['id', 'regionId', 'code', 'name', 'timeZone']).orderBy('name').execute();
+/** The locations of `scope`, by name. */
+export function listLocations(db: Db, scope: LocationScope): Promise<LocationView[]> {
+  let query = db.selectFrom('locations').select(['id', 'regionId', 'code', 'name', 'timeZone']).orderBy('name');
+  if (scope !== 'all') query = query.where('id', 'in', scope.length > 0 ? scope : [0]);
+  return query.execute();
 }
 
 function locationsWithRegions(db: Db) {
@@ -23,7 +27,7 @@ function locationsWithRegions(db: Db) {
 }
 
 /** One page of the locations in `ids` ('all': every one) by code, narrowed by code or name and by region. */
-export async function pageLocations(db: Db, ids: number[] | 'all', query: LocationListQuery): Promise<Page<LocationSettings>> {
+export async function pageLocations(db: Db, ids: LocationScope, query: LocationListQuery): Promise<Page<LocationSettings>> {
   const paging = { page: query.page, pageSize: query.pageSize };
   const matching = locationsWithRegions(db).where((eb) => {
     const conditions: Expression<SqlBool>[] = [];

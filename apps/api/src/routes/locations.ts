@@ -2,7 +2,7 @@ import { subject } from '@casl/ability';
 import { buildLeadQuery, idParams, locationListQuery, locationUpdate, noQuery, royaltyTermsBody, salesTaxBody, type AppAbility } from '@busbar/shared';
 import { Router } from 'express';
 import type { AppContext } from '../context.ts';
-import { locationScope, reportWithin } from '../access/locations.ts';
+import { locationScope, reportWithin, seenLocations } from '../access/locations.ts';
 import { conflict, forbidden, notFound } from '../errors.ts';
 import { viewerOf } from '../middleware/session.ts';
 import { validate } from '../middleware/validate.ts';
@@ -30,18 +30,14 @@ export function locationsRouter({ db, now }: AppContext): Router {
   router.get(
     '/',
     validate({ query: noQuery }, async (_input, req, res) => {
-      const { ability } = viewerOf(req);
-      res.json((await listLocations(db)).filter((l) => canRead(ability, l.id)));
+      res.json(await listLocations(db, seenLocations(viewerOf(req))));
     }),
   );
 
   router.get(
     '/settings',
     validate({ query: locationListQuery }, async ({ query }, req, res) => {
-      const { ability } = viewerOf(req);
-      const all = await listLocations(db);
-      const ids = all.filter((l) => canRead(ability, l.id)).map((l) => l.id);
-      res.json(await pageLocations(db, ids.length === all.length ? 'all' : ids, query));
+      res.json(await pageLocations(db, seenLocations(viewerOf(req)), query));
     }),
   );
 
