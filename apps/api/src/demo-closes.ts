@@ -25,7 +25,7 @@ export async function closeDemoMonths(db: Db, now: Date, onClose: (done: number,
     .innerJoin('builds as b', 'b.locationId', 'l.id')
     .where('b.status', '=', 'delivered')
     .groupBy('l.id')
-    .select(['l.id', 'l.name', sql<string>`substr(min(b.delivered_on), 1, 7)`.as('firstMonth')])
+    .select(['l.id', 'l.name', 'l.timeZone', sql<string>`substr(min(b.delivered_on), 1, 7)`.as('firstMonth')])
     .execute();
   const of = locations.reduce((n, l) => n + monthsFrom(l.firstMonth, lastToClose).length, 0);
   let done = 0;

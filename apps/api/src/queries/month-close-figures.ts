@@ -11,8 +11,8 @@ export const FIGURES = [
 /** Royalty (marketing fund, sales tax) in cents of `baseCents` at `basisPoints` (650 = 6.5 %), half a cent and up rounded up. */
 export const royaltyCents = (baseCents: number, basisPoints: number) => Math.round((baseCents * basisPoints) / 10_000);
 
-/** A location's month as its builds and claims add up now, with the rates of its terms, and its time zone. */
-export type LiveClose = Omit<LocationClose, 'status' | 'finalizedAt' | 'finalizedByName' | 'next' | 'nextToClose' | 'adjustments'> & { timeZone: string };
+/** A location's month as its builds and claims add up now, with the rates of its terms. */
+export type LiveClose = Omit<LocationClose, 'status' | 'finalizedAt' | 'finalizedByName' | 'next' | 'nextToClose' | 'adjustments'>;
 
 /**
  * The month (YYYY-MM) at each location of `scope` (see MonthCloseFigures) as it stands now, from
@@ -68,7 +68,7 @@ export async function liveCloses(db: Db, month: string, scope: LocationScope): P
     .leftJoin('salesTaxRates as s', (join) =>
       join.onRef('s.locationId', '=', 'l.id').on(sql.ref('s.appliesFrom'), '=', sql`(select max(v.applies_from) from sales_tax_rates v where v.location_id = l.id and v.applies_from <= ${month})`),
     )
-    .select(['l.id', 'l.timeZone', 't.royaltyBasisPoints', 't.marketingBasisPoints', 's.basisPoints as taxBasisPoints', 's.laborTaxed', 'b.delivered', 'b.parts', 'b.labor', 'b.revenue', 'b.cost', 'c.claims', 'c.requested', 'c.received', 'c.outstanding'])
+    .select(['l.id', 't.royaltyBasisPoints', 't.marketingBasisPoints', 's.basisPoints as taxBasisPoints', 's.laborTaxed', 'b.delivered', 'b.parts', 'b.labor', 'b.revenue', 'b.cost', 'c.claims', 'c.requested', 'c.received', 'c.outstanding'])
     .orderBy('l.code');
   if (scope !== 'all') query = query.where('l.id', 'in', inScope);
   const rows = await query.execute();
@@ -82,7 +82,6 @@ export async function liveCloses(db: Db, month: string, scope: LocationScope): P
     const taxable = (r.parts ?? 0) + (laborTaxed ? (r.labor ?? 0) : 0);
     return {
       locationId: r.id,
-      timeZone: r.timeZone,
       royaltyBasisPoints,
       marketingBasisPoints,
       salesTaxBasisPoints: r.taxBasisPoints,

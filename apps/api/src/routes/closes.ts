@@ -42,7 +42,7 @@ export function closesRouter({ db, now }: AppContext): Router {
     '/:locationId/:month/final',
     validate({ params: closeParams }, async ({ params }, req, res) => {
       const viewer = viewerOf(req);
-      const location = await db.selectFrom('locations').select(['id', 'name']).where('id', '=', params.locationId).executeTakeFirst();
+      const location = await db.selectFrom('locations').select(['id', 'name', 'timeZone']).where('id', '=', params.locationId).executeTakeFirst();
       if (!location || !viewer.ability.can('read', subject('Location', { id: location.id }))) throw notFound('location');
       if (!viewer.ability.can('export', subject('Report', { locationId: location.id }))) throw forbidden(CLOSERS_ONLY);
       res.status(201).json(await finalizeMonth(db, location, params.month, { id: viewer.id, at: now() }));
