@@ -1,7 +1,7 @@
 import type { Db } from '@busbar/db';
 import type { CloseCellStatus, CloseStatus } from '@busbar/shared';
 import type { LocationScope } from '../access/locations.ts';
-import { endedAt, placesIn } from './month-close.ts';
+import { monthAt, placesIn } from './month-close.ts';
 import { lastFinals, monthsFrom, nextMonth } from './month-finals.ts';
 
 /**
@@ -15,18 +15,24 @@ export async function closeStatus(db: Db, from: string, to: string, scope: Locat
   if (scope !== 'all') finals = finals.where('locationId', 'in', scope.length > 0 ? scope : [0]);
   const [rows, finalRows, last] = [await placesIn(db, scope), await finals.execute(), await lastFinals(db, scope)];
   const final = new Set(finalRows.map((f) => `${f.locationId} ${f.month}`));
-  // A few zones cover the network: each zone's answer for a month is worked out once.
-  const ended = new Map<string, boolean>();
+  // A few zones cover the network: each zone's month today is worked out once (the zone database is slow to ask).
+  const monthNow = new Map<string, string>();
   const hasEnded = (timeZone: string, month: string) => {
-    const key = `${timeZone} ${month}`;
-    if (!ended.has(key)) ended.set(key, endedAt(timeZone, month, now));
-    return ended.get(key)!;
+    if (!monthNow.has(timeZone)) monthNow.set(timeZone, monthAt(timeZone, now));
+    return monthNow.get(timeZone)! > month;
   };
-  const statusOf = (locationId: number, timeZone: string, month: string): CloseCellStatus => {
+  const statusOf = (locationId: number, timeZone: string, next: string | null, month: string): CloseCellStatus => {
     if (final.has(`${locationId} ${month}`)) return 'final';
     if (!hasEnded(timeZone, month)) return 'running';
-    const lastFinal = last.get(locationId);
-    return !lastFinal || nextMonth(lastFinal) === month ? 'next' : 'open';
+    return !next || next === month ? 'next' : 'open';
   };
-  return { months, locations: rows.map((l) => ({ locationId: l.id, cells: months.map((m) => statusOf(l.id, l.timeZone, m)) })) };
+  return {
+    months,
+    locations: rows.map((l) => {
+      // Each shop's next month to close, once (not once a cell).
+      const lastFinal = last.get(l.id);
+      const next = lastFinal ? nextMonth(lastFinal) : null;
+      return { locationId: l.id, cells: months.map((m) => statusOf(l.id, l.timeZone, next, m)) };
+    }),
+  };
 }

@@ -10,8 +10,10 @@ import { adjustmentsOf, carriedNow, driftsOf, finalsIn, lastFinals, nextMonth } 
 const MONTHS = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'];
 /** A month (YYYY-MM) in words: "March 2026". */
 export const inWords = (month: string) => `${MONTHS[Number(month.slice(5)) - 1]} ${month.slice(0, 4)}`;
+/** The month (YYYY-MM) it is in a time zone at `now`. */
+export const monthAt = (timeZone: string, now: Date) => isoDay(localDay(timeZone, now.getTime())).slice(0, 7);
 /** Whether the month has ended at a location by `now`: its local today lies past the month's last day. */
-export const endedAt = (timeZone: string, month: string, now: Date) => isoDay(localDay(timeZone, now.getTime())).slice(0, 7) > month;
+export const endedAt = (timeZone: string, month: string, now: Date) => monthAt(timeZone, now) > month;
 
 /**
  * The month at each location of `scope`: as closed where it is final, else as it stands now (the
