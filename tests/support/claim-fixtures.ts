@@ -1,3 +1,4 @@
+import { isoDay, localDay } from '@busbar/calc';
 import type { Db } from '@busbar/db';
 import type { ClaimDetail } from '@busbar/shared';
 import type { Agent } from './api-harness.ts';
@@ -6,13 +7,13 @@ import { addCatalogItem, addVendor } from './catalog-fixtures.ts';
 
 let serial = 0;
 
-/** A delivered build at a location with one serialized unit on it, straight in the database. */
+/** A delivered build at a location with one serialized unit on it, straight in the database (with the shop's day of delivery, as the app keeps it). */
 export async function addDeliveredUnit(db: Db, locationId: number, { deliveredAt = '2026-03-02T00:00:00.000Z', warrantyMonths = 24 } = {}) {
   const n = ++serial;
   const vendor = await addVendor(db);
   const item = await addCatalogItem(db, { vendorId: vendor.id, warrantyMonths });
   const { customer, vehicle } = await addCustomerWithVehicle(db, locationId);
-  const location = await db.selectFrom('locations').select(['code', 'laborRateCents']).where('id', '=', locationId).executeTakeFirstOrThrow();
+  const location = await db.selectFrom('locations').select(['code', 'laborRateCents', 'timeZone']).where('id', '=', locationId).executeTakeFirstOrThrow();
   const sequence = 90_000 + n;
   const build = await db
     .insertInto('builds')
@@ -34,6 +35,8 @@ export async function addDeliveredUnit(db: Db, locationId: number, { deliveredAt
       bookedFor: deliveredAt.slice(0, 10),
       startedAt: deliveredAt,
       deliveredAt,
+      // The shop's day of the delivery, as the app keeps it.
+      deliveredOn: isoDay(localDay(location.timeZone, Date.parse(deliveredAt))),
       laborRateCents: location.laborRateCents,
       createdAt: deliveredAt,
       updatedAt: deliveredAt,

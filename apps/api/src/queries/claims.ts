@@ -1,13 +1,26 @@
 import { isoDay, localDay } from '@busbar/calc';
 import type { Db } from '@busbar/db';
+import { sql } from 'kysely';
 import { CLAIM_DUE_DAYS, type ClaimEventView, type ClaimStatus, type ClaimView } from '@busbar/shared';
 import { stale } from '../errors.ts';
 
 /** A claim as stored, with what it names, plus its location's approval limit (for the rules) and zone (for its days). */
 export type ClaimRow = Omit<ClaimView, 'overdue'> & { approvalLimitCents: number; timeZone: string };
 
+/** Today in a zone at an instant, kept for the few zones of a page of claims (the zone database is slow to ask once a row). */
+const todays = new Map<string, string>();
+
 /** Today at a location, YYYY-MM-DD. */
-export const localToday = (timeZone: string, now: Date) => isoDay(localDay(timeZone, now.getTime()));
+export function localToday(timeZone: string, now: Date): string {
+  const key = `${timeZone} ${now.getTime()}`;
+  let today = todays.get(key);
+  if (today === undefined) {
+    if (todays.size >= 64) todays.clear();
+    today = isoDay(localDay(timeZone, now.getTime()));
+    todays.set(key, today);
+  }
+  return today;
+}
 
 /** The day the step after `status` is due, counted from today at the location; null once closed. */
 export function dueOnFor(status: ClaimStatus, timeZone: string, now: Date): string | null {
@@ -27,7 +40,7 @@ export function claimsWithNames(db: Db) {
     .leftJoin('buildItems as r', 'r.id', 'w.replacementItemId')
     .select([
       'w.id', 'w.number', 'w.locationId', 'w.buildId', 'b.number as buildNumber', 'w.buildItemId', 'i.sku', 'ci.name as itemName',
-      'i.serialNumber', 'ci.vendorId', 'v.name as vendorName', 'b.deliveredAt as installedOn', 'w.failedOn', 'w.failureMode',
+      'i.serialNumber', 'ci.vendorId', 'v.name as vendorName', sql<string | null>`coalesce(b.delivered_on, date(b.delivered_at))`.as('installedOn'), 'w.failedOn', 'w.failureMode',
       'w.coverage', 'w.symptoms', 'w.foundHow', 'w.laborHours', 'w.outOfWarranty', 'w.status', 'w.dueOn', 'w.vendorRmaNumber',
       'w.creditRequestedCents', 'w.creditApprovedCents', 'w.creditReceivedCents', 'w.replacementItemId', 'r.serialNumber as replacementSerialNumber',
       'w.createdAt', 'w.updatedAt', 'w.version',
@@ -36,12 +49,8 @@ export function claimsWithNames(db: Db) {
 }
 
 type Raw = Awaited<ReturnType<ReturnType<typeof claimsWithNames>['executeTakeFirstOrThrow']>>;
-// The unit went in on its build's delivery day, in the location's own zone.
-export const toRow = ({ outOfWarranty, installedOn, ...raw }: Raw): ClaimRow => ({
-  ...raw,
-  outOfWarranty: outOfWarranty === 1,
-  installedOn: installedOn ? isoDay(localDay(raw.timeZone, Date.parse(installedOn))) : null,
-});
+// The unit went in on its build's delivery day, kept in the location's own zone (migration 021).
+export const toRow = ({ outOfWarranty, ...raw }: Raw): ClaimRow => ({ ...raw, outOfWarranty: outOfWarranty === 1 });
 
 export async function findClaim(db: Db, id: number): Promise<ClaimRow | undefined> {
   const raw = await claimsWithNames(db).where('w.id', '=', id).executeTakeFirst();
