@@ -1,7 +1,7 @@
 import { isoDay, localDay } from '@busbar/calc';
 import type { Db } from '@busbar/db';
-import { sql } from 'kysely';
 import { CLAIM_DUE_DAYS, type ClaimEventView, type ClaimStatus, type ClaimView } from '@busbar/shared';
+import { sql } from 'kysely';
 import { stale } from '../errors.ts';
 
 /** A claim as stored, with what it names, plus its location's approval limit (for the rules) and zone (for its days). */

@@ -80,9 +80,9 @@ export async function rollupReportJson(db: Db, query: RollupQuery, scope: Locati
   return utf8Of([JSON.stringify(head).slice(0, -1), ',"rows":', rows, ',"scope":', scopeSums, ',"regions":', regions, ',"network":', network, '}']);
 }
 
-/** The roll-ups as objects (the weekly e-mail's few rows). */
-export const rollupReport = async (db: Db, query: RollupQuery, scope: LocationScope, money: MoneyScopes, shops: ShopsPage = 'all'): Promise<Rollups> =>
-  JSON.parse(new TextDecoder().decode(await rollupReportJson(db, query, scope, money, shops)));
+/** The roll-ups as objects, every shop's rows (the weekly e-mail's few). */
+export const rollupReport = async (db: Db, query: RollupQuery, scope: LocationScope, money: MoneyScopes): Promise<Rollups> =>
+  JSON.parse(new TextDecoder().decode(await rollupReportJson(db, query, scope, money, 'all')));
 
 /** Where a person reads prices and where parts costs, by the role rules. */
 export interface MoneyScopes {

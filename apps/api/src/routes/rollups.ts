@@ -12,9 +12,8 @@ import { background } from '../threads/background.ts';
 /**
  * Roll-ups of the person's locations by day, week, month, quarter or year, each period beside the
  * one before and the same one a year before, with the whole network's totals; the rows of each
- * shop come a page of shops at a time. A lead receives their
- * shop and the network, no other shop; people who read no reports (technicians, warranty clerks) 403.
- * Summed on the background thread.
+ * shop come a page of shops at a time. A lead receives their shop and the network, no other shop;
+ * people who read no reports (technicians, warranty clerks) 403. Summed on the background thread.
  */
 export function rollupsRouter({ db, config }: AppContext): Router {
   const router = Router();

@@ -38,7 +38,6 @@ export const ROLLUP_SHOPS_A_PAGE = 25;
 
 /** The roll-ups as the API is asked for them: the rows of a page of the person's shops (by id), with every sum. */
 export const rollupPageQuery = periodsRefined(z.strictObject({ ...rollupFields, ...pagingOf(MAX_ROLLUP_SHOPS_A_PAGE, ROLLUP_SHOPS_A_PAGE, ['shop', 'shops']) }));
-export type RollupPageQuery = z.infer<typeof rollupPageQuery>;
 
 /**
  * The figures of one period. Money fields are left out for people who may not read build prices
