@@ -33,6 +33,7 @@ function compared(all: FromFigures): ComparedFigures {
 
 /** `figures` (or outlier marks) without the money the person may not read. */
 function moneyShown<T extends object>(figures: T, reads: MoneyReads): T {
+  if (reads.prices && reads.costs) return figures;
   return Object.fromEntries(Object.entries(figures).filter(([field]) => (reads.prices || !PRICE_FIGURES.includes(field)) && (reads.costs || !COST_FIGURES.includes(field)))) as T;
 }
 
