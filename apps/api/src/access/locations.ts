@@ -17,30 +17,28 @@ export async function locationToAddAt(db: Db, viewer: Viewer, locationId: number
 /** Every location (people who see the whole network: lists take no location filter), or these ids. */
 export type LocationScope = 'all' | number[];
 
-/**
- * Where the person may do `action` on records of `type` (or on its `field`): 'all' when that is
- * every location. Worked out once per cached viewer (the network's locations come with it).
- */
-export function locationScope(viewer: Viewer, action: 'read' | 'create' | 'export', type: 'Build' | 'Customer' | 'Plan' | 'Claim' | 'Reliability' | 'Report', field?: string): LocationScope {
-  const key = `${action} ${type} ${field ?? ''}`;
+/** The locations `allowed` holds for: 'all' when that is every one. Kept with the cached viewer under `key`. */
+function cachedScope(viewer: Viewer, key: string, allowed: (locationId: number) => boolean): LocationScope {
   let scope = viewer.scopes.get(key);
   if (!scope) {
-    const ids = viewer.locationIds.filter((locationId) => viewer.ability.can(action, subject(type, { locationId }), field));
+    const ids = viewer.locationIds.filter(allowed);
     scope = ids.length === viewer.locationIds.length ? 'all' : ids;
     viewer.scopes.set(key, scope);
   }
   return scope;
 }
 
+/**
+ * Where the person may do `action` on records of `type` (or on its `field`): 'all' when that is
+ * every location. Worked out once per cached viewer (the network's locations come with it).
+ */
+export function locationScope(viewer: Viewer, action: 'read' | 'create' | 'export', type: 'Build' | 'Customer' | 'Plan' | 'Claim' | 'Reliability' | 'Report', field?: string): LocationScope {
+  return cachedScope(viewer, `${action} ${type} ${field ?? ''}`, (locationId) => viewer.ability.can(action, subject(type, { locationId }), field));
+}
+
 /** The locations the person sees (for pickers and labels): 'all', or these ids. Worked out once per cached viewer. */
 export function seenLocations(viewer: Viewer): LocationScope {
-  let scope = viewer.scopes.get('read Location');
-  if (!scope) {
-    const ids = viewer.locationIds.filter((id) => viewer.ability.can('read', subject('Location', { id })));
-    scope = ids.length === viewer.locationIds.length ? 'all' : ids;
-    viewer.scopes.set('read Location', scope);
-  }
-  return scope;
+  return cachedScope(viewer, 'read Location', (id) => viewer.ability.can('read', subject('Location', { id })));
 }
 
 /**

@@ -24,8 +24,10 @@ export async function monthClose(db: Db, month: string, scope: LocationScope, no
   const [places, finals, last] = [await placesIn(db, scope), await finalsIn(db, month, scope), await lastFinals(db, scope)];
   const openIds = places.filter((p) => !finals.has(p.id)).map((p) => p.id);
   const live = new Map((openIds.length === 0 ? [] : await liveCloses(db, month, finals.size === 0 ? scope : openIds)).map((l) => [l.locationId, l]));
-  const nextToClose = (id: number) => (last.has(id) ? nextMonth(last.get(id)!) : null);
-  const isNext = (id: number) => !last.has(id) || nextToClose(id) === month;
+  // Each shop's next month to close, worked out once.
+  const nexts = new Map([...last].map(([id, lastFinal]) => [id, nextMonth(lastFinal)]));
+  const nextToClose = (id: number) => nexts.get(id) ?? null;
+  const isNext = (id: number) => !nexts.has(id) || nexts.get(id) === month;
   const drifts = await driftsOf(db, openIds.filter((id) => last.has(id) && isNext(id)));
   // Each shop's record is completed where it stands (spreading hundreds of them into new ones took V8's slow path).
   const locations = places.map(({ id }): LocationClose => {
