@@ -54,6 +54,7 @@ import * as installOnTheShopsDay from './052-install-on-the-shops-day.ts';
 import * as dropSerialNocaseIndex from './053-drop-serial-nocase-index.ts';
 import * as importedLinesFromDelivery from './054-imported-lines-from-delivery.ts';
 import * as flagChangedFinalMonths from './055-flag-changed-final-months.ts';
+import * as createMonthCloseSums from './056-create-month-close-sums.ts';
 
 /** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
 export const migrations: Record<string, Migration> = {
@@ -112,4 +113,5 @@ export const migrations: Record<string, Migration> = {
   '053-drop-serial-nocase-index': dropSerialNocaseIndex,
   '054-imported-lines-from-delivery': importedLinesFromDelivery,
   '055-flag-changed-final-months': flagChangedFinalMonths,
+  '056-create-month-close-sums': createMonthCloseSums,
 };

@@ -12,7 +12,7 @@ import type { VehiclesTable } from './vehicles.ts';
 import type { VendorsTable } from './vendors.ts';
 import type { WarrantyClaimsTable } from './warranty-claims.ts';
 import type { InvitesTable } from './invites.ts';
-import type { LocationsTable, MonthClosesTable, RoyaltyTermsTable, SalesTaxRatesTable } from './locations.ts';
+import type { LocationsTable, MonthCloseSumsTable, MonthClosesTable, RoyaltyTermsTable, SalesTaxRatesTable } from './locations.ts';
 import type { MailLogTable } from './mail-log.ts';
 import type { MailSendsTable } from './mail-sends.ts';
 import type { PasswordResetsTable } from './password-resets.ts';
@@ -84,6 +84,7 @@ export interface Database {
   weeklyDigests: WeeklyDigestsTable;
   royaltyTerms: RoyaltyTermsTable;
   monthCloses: MonthClosesTable;
+  monthCloseSums: MonthCloseSumsTable;
   salesTaxRates: SalesTaxRatesTable;
   exports: ExportsTable;
   signInAttempts: SignInAttemptsTable;

@@ -52,3 +52,20 @@ export interface MonthClosesTable {
   /** 1 once the month's roll-up changed after it was last accounted for (migration 055), until the shop's next close takes it up. */
   changed: Generated<number>;
 }
+
+/** What a month's close adds up, per month (YYYY-MM, in the location's zone) and location, kept by triggers (migration 056). */
+export interface MonthCloseSumsTable {
+  month: string;
+  locationId: number;
+  /** Builds delivered on a day of the month, and their parts, labor and total price and parts cost. */
+  buildsDelivered: number;
+  partsRevenueCents: number;
+  laborRevenueCents: number;
+  revenueCents: number;
+  partsCostCents: number;
+  /** Claims logged on a day of the month, the credit they asked, received, and asked and still awaited (not denied). */
+  claimsLogged: number;
+  creditRequestedCents: number;
+  creditReceivedCents: number;
+  creditOutstandingCents: number;
+}
