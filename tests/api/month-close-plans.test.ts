@@ -2,6 +2,7 @@ import type { Db } from '@busbar/db';
 import { sql } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDemoMonths } from '../../apps/api/src/demo-closes.ts';
+import { closeStatus } from '../../apps/api/src/queries/close-status.ts';
 import { liveCloses } from '../../apps/api/src/queries/month-close-figures.ts';
 import { monthClose } from '../../apps/api/src/queries/month-close.ts';
 import { startHarness, type Harness } from '../support/api-harness.ts';
@@ -29,7 +30,7 @@ describe('month close query plan', () => {
     }
   });
 
-  it("finds a month's finals by month, each shop's last final by one seek, and changed final months by their flag, never every final month", async () => {
+  it("finds a month's finals by month, each shop's last final by one seek, changed final months by their flag, and a range's finals shop by shop, never every final month", async () => {
     // The demo's months through April closed, as start-up closes them (the harness's clock stands in June).
     expect(await closeDemoMonths(h.db, h.clock.now)).toBeGreaterThan(100);
     await sql`pragma optimize = 0x10002`.execute(h.db);
@@ -41,5 +42,10 @@ describe('month close query plan', () => {
       // May is every shop's next: its changed final months are read through their flag.
       if (month === '2026-05') expect(text).toMatch(/SEARCH c USING INDEX month_closes_changed \(location_id=\?\)/);
     }
+    // The close status: each shop's final months of the range and its last final, by seeks per shop.
+    const status = (await plansOf(h.db, (db: Db) => closeStatus(db, '2025-06', '2026-05', 'all', h.clock.now))).flat().join('\n');
+    expect(status).toMatch(/SEARCH c USING PRIMARY KEY \(location_id=\? AND month>\? AND month<\?\)/);
+    expect(status).toMatch(/SEARCH c USING PRIMARY KEY \(location_id=\?\)/);
+    expect(status).not.toMatch(/SCAN (c|month_closes)\b|month_closes_month/);
   });
 });

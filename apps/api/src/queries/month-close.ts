@@ -47,8 +47,8 @@ export async function monthClose(db: Db, month: string, scope: LocationScope, no
   return { month, ended: [...new Set(places.map((p) => p.timeZone))].every((zone) => endedAt(zone, month, now)), locations, total };
 }
 
-/** The locations of `scope` in the order the close (and its status) lists them, with their zones. */
-export function placesIn(db: Db, scope: LocationScope): Promise<{ id: number; timeZone: string }[]> {
+/** The locations of `scope` in the order the close lists them, with their zones. */
+function placesIn(db: Db, scope: LocationScope): Promise<{ id: number; timeZone: string }[]> {
   let query = db.selectFrom('locations').select(['id', 'timeZone']).orderBy('code');
   if (scope !== 'all') query = query.where('id', 'in', scope.length > 0 ? scope : [0]);
   return query.execute();
