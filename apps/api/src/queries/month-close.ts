@@ -1,6 +1,7 @@
 import { isoDay, localDay } from '@busbar/calc';
 import type { Db } from '@busbar/db';
 import type { LocationClose, MonthClose, MonthCloseFigures } from '@busbar/shared';
+import { sql } from 'kysely';
 import type { LocationScope } from '../access/locations.ts';
 import { conflict, invalidField } from '../errors.ts';
 import { writeAudit } from './audit.ts';
@@ -21,14 +22,14 @@ export const endedAt = (timeZone: string, month: string, now: Date) => monthAt(t
  * month after its last final one) takes up the changes made since to its final months, as adjustments.
  */
 export async function monthClose(db: Db, month: string, scope: LocationScope, now: Date): Promise<MonthClose> {
-  const [places, finals, last] = [await placesIn(db, scope), await finalsIn(db, month, scope), await lastFinals(db, scope)];
+  const [places, finals] = [await placesIn(db, scope), await finalsIn(db, month, scope)];
   const openIds = places.filter((p) => !finals.has(p.id)).map((p) => p.id);
   const live = new Map((openIds.length === 0 ? [] : await liveCloses(db, month, finals.size === 0 ? scope : openIds)).map((l) => [l.locationId, l]));
   // Each shop's next month to close, worked out once.
-  const nexts = new Map([...last].map(([id, lastFinal]) => [id, nextMonth(lastFinal)]));
+  const nexts = new Map(places.filter((p) => p.lastFinal !== null).map((p) => [p.id, nextMonth(p.lastFinal!)]));
   const nextToClose = (id: number) => nexts.get(id) ?? null;
   const isNext = (id: number) => !nexts.has(id) || nexts.get(id) === month;
-  const drifts = await driftsOf(db, openIds.filter((id) => last.has(id) && isNext(id)));
+  const drifts = await driftsOf(db, openIds.filter((id) => nexts.has(id) && isNext(id)));
   // Each shop's record is completed where it stands (spreading hundreds of them into new ones took V8's slow path).
   const locations = places.map(({ id }): LocationClose => {
     const final = finals.get(id);
@@ -47,10 +48,13 @@ export async function monthClose(db: Db, month: string, scope: LocationScope, no
   return { month, ended: [...new Set(places.map((p) => p.timeZone))].every((zone) => endedAt(zone, month, now)), locations, total };
 }
 
-/** The locations of `scope` in the order the close lists them, with their zones. */
-function placesIn(db: Db, scope: LocationScope): Promise<{ id: number; timeZone: string }[]> {
-  let query = db.selectFrom('locations').select(['id', 'timeZone']).orderBy('code');
-  if (scope !== 'all') query = query.where('id', 'in', scope.length > 0 ? scope : [0]);
+/** The locations of `scope` in the order the close lists them, with their zones and their last month final (one seek each). */
+function placesIn(db: Db, scope: LocationScope): Promise<{ id: number; timeZone: string; lastFinal: string | null }[]> {
+  let query = db
+    .selectFrom('locations as l')
+    .select(['l.id', 'l.timeZone', sql<string | null>`(select max(c.month) from month_closes c where c.location_id = l.id)`.as('lastFinal')])
+    .orderBy('l.code');
+  if (scope !== 'all') query = query.where('l.id', 'in', scope.length > 0 ? scope : [0]);
   return query.execute();
 }
 
