@@ -8,7 +8,8 @@ import { sql, type Kysely } from 'kysely';
  * indexes served nothing else and go. Triggers add each row's part after a change and take out
  * what it was before.
  */
-const COLUMNS = {
+/** Where each figure comes from: the rows that count, their month, and what each adds. */
+const SOURCES = {
   build: {
     when: (row: string) => `${row}.status = 'delivered' and ${row}.delivered_on is not null`,
     month: (row: string) => `substr(${row}.delivered_on, 1, 7)`,
@@ -34,10 +35,10 @@ const COLUMNS = {
     changes: 'status, logged_on, location_id, credit_requested_cents, credit_received_cents',
   },
 };
-type Source = (typeof COLUMNS)[keyof typeof COLUMNS];
+type Source = (typeof SOURCES)[keyof typeof SOURCES];
 
 /** The summed columns of `month_close_sums`. */
-export const FIGURES = [...Object.keys(COLUMNS.build.figures('b')), ...Object.keys(COLUMNS.claim.figures('c'))];
+const FIGURES = [...Object.keys(SOURCES.build.figures('b')), ...Object.keys(SOURCES.claim.figures('c'))];
 const KEY = 'month, location_id';
 const ON_CONFLICT = (figures: string[]) => `on conflict (${KEY}) do update set ${figures.map((f) => `${f} = ${f} + excluded.${f}`).join(', ')};`;
 
@@ -54,7 +55,7 @@ const triggersOf = (name: string, table: string, source: Source): [name: string,
   [`month_close_sums_${name}_update`, `after update of ${source.changes} on ${table}`, `${part(source, 'old', -1)}\n${part(source, 'new', 1)}`],
   [`month_close_sums_${name}_delete`, `after delete on ${table}`, part(source, 'old', -1)],
 ];
-const TRIGGERS = [...triggersOf('build', 'builds', COLUMNS.build), ...triggersOf('claim', 'warranty_claims', COLUMNS.claim)];
+const TRIGGERS = [...triggersOf('build', 'builds', SOURCES.build), ...triggersOf('claim', 'warranty_claims', SOURCES.claim)];
 
 /** Each table's rows summed by month and location, added into the kept table. */
 function summed(source: Source, table: string): string {
@@ -66,8 +67,8 @@ function summed(source: Source, table: string): string {
 
 /** Empties the table and sums it again from builds and claims (after a bulk load that ran without triggers). */
 export const REFILL_MONTH_CLOSE_SUMS = `delete from month_close_sums;
-${summed(COLUMNS.build, 'builds')}
-${summed(COLUMNS.claim, 'warranty_claims')}`;
+${summed(SOURCES.build, 'builds')}
+${summed(SOURCES.claim, 'warranty_claims')}`;
 
 export async function up(db: Kysely<any>): Promise<void> {
   await sql.raw(`create table month_close_sums (month text not null, location_id integer not null,

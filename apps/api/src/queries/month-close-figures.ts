@@ -41,7 +41,7 @@ export async function liveCloses(db: Db, month: string, scope: LocationScope): P
   const rows = await query.execute();
 
   return rows.map((r) => {
-    // A location with nothing delivered or logged in the month has no kept row: all its sums are 0.
+    // A location with nothing delivered or logged in the month may have no kept row: all its sums are 0.
     const revenue = r.revenueCents ?? 0;
     const [parts, labor, cost] = [r.partsRevenueCents ?? 0, r.laborRevenueCents ?? 0, r.partsCostCents ?? 0];
     // A location without terms (none set yet) owes nothing until the owner sets them; the screen says so.
