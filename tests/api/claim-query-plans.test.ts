@@ -94,6 +94,15 @@ describe('claims list query plans', () => {
     expect(tableScans(plans)).toEqual([]);
   });
 
+  it("counts a region's claims logged in a month by each shop's span of logging days in an index alone, never reading each claim for its shop", async () => {
+    const ids = await demoIds(h.db);
+    const region = ids.locations.filter((l) => l.regionId === ids.locations.find((m) => m.code === 'DEN')!.regionId).map((l) => l.id);
+    const { plans } = await listPlans(region, BY_DAYS['logged in a month']![0]);
+    const count = plans.find((lines) => lines.some((line) => line.includes('CO-ROUTINE')))!;
+    expect(count.filter((line) => /^SEARCH w\b/.test(line))).toEqual([expect.stringMatching(/^SEARCH w USING COVERING INDEX \w+ \(location_id=\? AND logged_on>\? AND logged_on<\?\)/)]);
+    expect(tableScans(plans)).toEqual([]);
+  });
+
   it.each([['the queue', {}], ['a deep page', { page: '4' }]])(
     "walks the network's queue order for a whole region's page instead of sorting all its claims: %s",
     async (_name, query) => {
