@@ -40,10 +40,14 @@ const statusesOf = (query: BuildQuery) => (query.status === undefined ? [] : ([]
 /** The filters of a build list but its text, as conditions on `builds` alone, so counting and paging need no join. */
 function filteredBuilds(db: Db, scope: LocationScope, query: BuildQuery) {
   const statuses = statusesOf(query);
+  // A span of delivery days is sought through its own index, never through a status's: "delivered"
+  // is most of a network's builds, which statistics sampled by PRAGMA optimize can make look like a
+  // few (the owner's month of deliveries then walked every delivered build, 1.7 s on 200 shops).
+  const byDeliveryDays = Boolean(query.deliveredFrom || query.deliveredTo);
   return db.selectFrom('builds as b').where((eb) => {
     const conditions: Expression<SqlBool>[] = [];
     if (scope !== 'all') conditions.push(eb('b.locationId', 'in', scope));
-    if (statuses.length > 0) conditions.push(eb('b.status', 'in', statuses));
+    if (statuses.length > 0) conditions.push(eb(byDeliveryDays ? sql<BuildStatus>`+b.status` : 'b.status', 'in', statuses));
     if (query.technicianId) conditions.push(eb('b.leadTechnicianId', '=', query.technicianId));
     if (query.from) conditions.push(eb('b.bookedFor', '>=', query.from));
     if (query.to) conditions.push(eb('b.bookedFor', '<=', query.to));
