@@ -55,6 +55,7 @@ import * as dropSerialNocaseIndex from './053-drop-serial-nocase-index.ts';
 import * as importedLinesFromDelivery from './054-imported-lines-from-delivery.ts';
 import * as flagChangedFinalMonths from './055-flag-changed-final-months.ts';
 import * as createMonthCloseSums from './056-create-month-close-sums.ts';
+import * as indexShopDeliveryDays from './057-index-shop-delivery-days.ts';
 
 /** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
 export const migrations: Record<string, Migration> = {
@@ -114,4 +115,5 @@ export const migrations: Record<string, Migration> = {
   '054-imported-lines-from-delivery': importedLinesFromDelivery,
   '055-flag-changed-final-months': flagChangedFinalMonths,
   '056-create-month-close-sums': createMonthCloseSums,
+  '057-index-shop-delivery-days': indexShopDeliveryDays,
 };
