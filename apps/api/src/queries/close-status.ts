@@ -3,7 +3,7 @@ import type { CloseCellStatus, CloseStatus } from '@busbar/shared';
 import { sql } from 'kysely';
 import type { LocationScope } from '../access/locations.ts';
 import { monthAt } from './month-close.ts';
-import { monthsFrom, nextMonth } from './month-finals.ts';
+import { LAST_FINAL, monthsFrom, nextMonth } from './month-finals.ts';
 
 /**
  * Where each location of `scope` stands with each month from `from` to `to`: final, running (not
@@ -20,7 +20,7 @@ export async function closeStatus(db: Db, from: string, to: string, scope: Locat
       'l.id',
       'l.timeZone',
       sql<string | null>`(select group_concat(c.month) from month_closes c where c.location_id = l.id and c.month between ${from} and ${to})`.as('finals'),
-      sql<string | null>`(select max(c.month) from month_closes c where c.location_id = l.id)`.as('lastFinal'),
+      LAST_FINAL.as('lastFinal'),
     ])
     .orderBy('l.code');
   if (scope !== 'all') query = query.where('l.id', 'in', scope.length > 0 ? scope : [0]);

@@ -1,12 +1,11 @@
 import { isoDay, localDay } from '@busbar/calc';
 import type { Db } from '@busbar/db';
 import type { LocationClose, MonthClose, MonthCloseFigures } from '@busbar/shared';
-import { sql } from 'kysely';
 import type { LocationScope } from '../access/locations.ts';
 import { conflict, invalidField } from '../errors.ts';
 import { writeAudit } from './audit.ts';
 import { FIGURES, liveCloses, type LiveClose } from './month-close-figures.ts';
-import { adjustmentsOf, carriedNow, driftsOf, finalsIn, lastFinals, nextMonth } from './month-finals.ts';
+import { adjustmentsOf, carriedNow, driftsOf, finalsIn, LAST_FINAL, lastFinals, nextMonth } from './month-finals.ts';
 
 const MONTHS = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'];
 /** A month (YYYY-MM) in words: "March 2026". */
@@ -52,7 +51,7 @@ export async function monthClose(db: Db, month: string, scope: LocationScope, no
 function placesIn(db: Db, scope: LocationScope): Promise<{ id: number; timeZone: string; lastFinal: string | null }[]> {
   let query = db
     .selectFrom('locations as l')
-    .select(['l.id', 'l.timeZone', sql<string | null>`(select max(c.month) from month_closes c where c.location_id = l.id)`.as('lastFinal')])
+    .select(['l.id', 'l.timeZone', LAST_FINAL.as('lastFinal')])
     .orderBy('l.code');
   if (scope !== 'all') query = query.where('l.id', 'in', scope.length > 0 ? scope : [0]);
   return query.execute();

@@ -39,11 +39,13 @@ export async function finalsIn(db: Db, month: string, scope: LocationScope): Pro
   return new Map(rows.map((r) => [r.locationId, closedOf(r)]));
 }
 
-/** Each location's last month marked final (locations with none are left out): one seek per location, not every final month read. */
+/** The last month marked final at the location of `l.id` (null when none): one seek, not every final month read. */
+export const LAST_FINAL = sql<string | null>`(select max(c.month) from month_closes c where c.location_id = l.id)`;
+
+/** Each location's last month marked final (locations with none are left out). */
 export async function lastFinals(db: Db, scope: LocationScope): Promise<Map<number, string>> {
   const { rows } = await sql<{ locationId: number; month: string | null }>`
-    select l.id as location_id, (select max(c.month) from month_closes c where c.location_id = l.id) as month
-    from locations l where 1 = 1 ${inScope('l.id', scope)}`.execute(db);
+    select l.id as location_id, ${LAST_FINAL} as month from locations l where 1 = 1 ${inScope('l.id', scope)}`.execute(db);
   return new Map(rows.filter((r) => r.month !== null).map((r) => [r.locationId, r.month!]));
 }
 
