@@ -9,8 +9,8 @@ export const SCREENS: readonly (readonly [label: string, path: (ids: Ids) => str
   ['builds, booked, by date', () => '/api/builds?status=booked&sort=bookedFor&order=asc'],
   ['builds, text search: customer', () => '/api/builds?q=Holloway'],
   ['builds, text search: serial', () => '/api/builds?q=LK2506'],
-  // Where the key figures, the comparison and the month close link: last month's deliveries.
-  ['builds, delivered last month', () => `/api/builds?status=delivered&deliveredFrom=${LAST_MONTH.from}&deliveredTo=${LAST_MONTH.to}`],
+  // Where the key figures, the comparison and the month close link: last month's deliveries, by delivery day as the list then reads them.
+  ['builds, delivered last month', () => `/api/builds?status=delivered&deliveredFrom=${LAST_MONTH.from}&deliveredTo=${LAST_MONTH.to}&sort=deliveredOn`],
   // Rows 476 to 500: a page the demo's lead also has (540 builds in the shop).
   ['builds, page 20', () => '/api/builds?page=20&pageSize=25'],
   // The list's lead technician filter over every shop of the person's.

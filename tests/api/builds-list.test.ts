@@ -97,6 +97,21 @@ describe('the build list', () => {
     expect(page.body.items.map((b: BuildView) => b.number)).toEqual(['DEN-00003']);
   });
 
+  it('lists deliveries by the day each was delivered at its shop, page after page, and orders only a list of deliveries so', async () => {
+    const den4 = await moveThrough(lead, await createBuild(h.db, lead, ids.location('DEN'), { leadTechnicianId: ids.user(SIGN_INS.tech), bookedFor: '2026-06-01' }), ['quoted', 'booked', 'in_bay', 'quality_check', 'delivered']);
+    // Delivered three days before DEN-00001 (June 15), at 20:00 in Denver: June 13 in UTC, June 12 at the shop.
+    await h.db.updateTable('builds').set({ deliveredAt: '2026-06-13T02:00:00.000Z', deliveredOn: '2026-06-12' }).where('id', '=', den4.id).execute();
+    expect(await numbers(owner, 'deliveredFrom=2026-06-01&sort=deliveredOn')).toEqual(['DEN-00001', 'DEN-00004']);
+    expect(await numbers(lead, 'deliveredTo=2026-06-30&sort=deliveredOn&order=asc')).toEqual(['DEN-00004', 'DEN-00001']);
+    const first = (await owner.get('/api/builds?deliveredFrom=2026-06-01&sort=deliveredOn&pageSize=1').expect(200)).body;
+    expect(first.items.map((b: BuildView) => [b.number, b.deliveredOn])).toEqual([['DEN-00001', '2026-06-15']]);
+    const next = (await owner.get(`/api/builds?deliveredFrom=2026-06-01&sort=deliveredOn&pageSize=1&cursor=${first.nextCursor}`).expect(200)).body;
+    expect(next.items.map((b: BuildView) => [b.number, b.deliveredOn])).toEqual([['DEN-00004', '2026-06-12']]);
+    const refused = await owner.get('/api/builds?status=delivered&sort=deliveredOn');
+    expect(refused.status).toBe(400);
+    expect(refused.body.error.fields).toEqual({ sort: 'Sort by delivery day once the list is narrowed to days of delivery' });
+  });
+
   it('rejects filters it does not know, naming them', async () => {
     const res = await lead.get('/api/builds?status=finished&sort=price&colour=red');
     expect(res.status).toBe(400);
@@ -128,6 +143,6 @@ describe('builds with and without a power plan', () => {
       .values({ buildId: planned.id, locationId: planned.locationId, name: planned.number, input: '{}', version: 1, createdBy: ids.user(SIGN_INS.lead), createdAt: 'x', updatedAt: 'x', updatedBy: ids.user(SIGN_INS.lead) })
       .execute();
     expect(await numbers(lead, 'hasPlan=true')).toEqual([planned.number]);
-    expect(await numbers(lead, 'hasPlan=false&sort=number&order=asc')).toEqual(['DEN-00002', 'DEN-00003']);
+    expect(await numbers(lead, 'hasPlan=false&sort=number&order=asc')).toEqual(['DEN-00002', 'DEN-00003', 'DEN-00004']);
   });
 });

@@ -48,6 +48,24 @@ describe('homes: locations compared and my bay', () => {
     expect(Object.fromEntries(asked)).toMatchObject({ status: 'delivered', deliveredFrom: '2025-06-01', deliveredTo: '2026-05-31' });
     await page.getByText(`1–50 of ${delivered.toLocaleString('en-US')}`).waitFor();
     expect(await page.locator('.ant-table-row').first().textContent()).toContain('AUS');
+    // A list of deliveries shows the day of delivery where others show the booking, the latest day first.
+    const heads = await page.locator('.ant-table-thead th').allTextContents();
+    expect(heads).not.toContain('Booked for');
+    const deliveredHead = page.locator('.ant-table-thead th').nth(heads.indexOf('Delivered'));
+    expect(await deliveredHead.getAttribute('aria-sort')).toBe('descending');
+    const dayCells = page.locator(`.ant-table-row td:nth-child(${heads.indexOf('Delivered') + 1})`);
+    const aus = (await e2e.harness.db.selectFrom('locations').select('id').where('code', '=', 'AUS').executeTakeFirstOrThrow()).id;
+    const { latest } = await e2e.harness.db
+      .selectFrom('builds')
+      .select((eb) => eb.fn.max('deliveredOn').as('latest'))
+      .where('locationId', '=', aus)
+      .where('deliveredOn', '>=', '2025-06-01')
+      .where('deliveredOn', '<=', '2026-05-31')
+      .executeTakeFirstOrThrow();
+    const shown = (day: string) => new Date(`${day}T00:00:00Z`).toLocaleDateString('en-US', { month: 'short', day: 'numeric', year: 'numeric', timeZone: 'UTC' });
+    expect(await dayCells.first().textContent()).toBe(shown(latest!));
+    const days = (await dayCells.allTextContents()).map((text) => Date.parse(text));
+    expect(days).toEqual([...days].sort((a, b) => b - a));
     await page.context().close();
   });
 

@@ -17,7 +17,7 @@ function buildsWithNames(db: Db) {
     .select([
       'b.id', 'b.number', 'b.locationId', 'l.code as locationCode', 'b.customerId', 'c.name as customerName', 'b.vehicleId',
       sql<string>`v.year || ' ' || v.make || ' ' || v.model`.as('vehicleLabel'), 'v.vin as vehicleVin', 'v.plate as vehiclePlate',
-      'b.status', 'b.leadTechnicianId', 't.name as leadTechnicianName', 'b.bookedFor', 'b.startedAt', 'b.deliveredAt',
+      'b.status', 'b.leadTechnicianId', 't.name as leadTechnicianName', 'b.bookedFor', 'b.startedAt', 'b.deliveredAt', 'b.deliveredOn',
       'b.laborHours', 'b.laborRateCents', 'b.laborCents', 'b.partsPriceCents', 'b.partsCostCents', 'b.totalCents',
       'b.notes', 'b.version', 'b.createdAt', 'b.updatedAt',
       // Lines of serial-numbered parts still without a serial: a few lines per build, read by the
@@ -30,6 +30,9 @@ function buildsWithNames(db: Db) {
 const SORT_COLUMNS = {
   number: 'b.number',
   bookedFor: 'b.bookedFor',
+  // Only with a span of delivery days (the query's schema says so): the day's index then reads the
+  // page in order, where any other order sorts every delivery of the span (a month of the network's).
+  deliveredOn: 'b.deliveredOn',
   status: 'b.status',
   totalCents: 'b.totalCents',
   updatedAt: 'b.updatedAt',

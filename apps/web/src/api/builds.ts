@@ -11,7 +11,7 @@ import type {
 } from '@busbar/shared';
 import { request } from './client.ts';
 
-export type BuildSort = 'number' | 'bookedFor' | 'status' | 'totalCents' | 'updatedAt';
+export type BuildSort = 'number' | 'bookedFor' | 'deliveredOn' | 'status' | 'totalCents' | 'updatedAt';
 
 export interface BuildFilter {
   status?: BuildStatus[];

@@ -105,27 +105,32 @@ export const buildItemRemove = z.strictObject({ correctionNote: correctionReason
 export const buildItemParams = z.strictObject({ id: idSchema, itemId: idSchema });
 export const versionQuery = z.strictObject({ version: z.coerce.number().int().min(1) });
 
-export const BUILD_SORTS = ['number', 'bookedFor', 'status', 'totalCents', 'updatedAt'] as const;
-export const buildQuery = z.strictObject({
-  status: z.union([z.enum(BUILD_STATUSES), z.array(z.enum(BUILD_STATUSES))]).optional(),
-  locationId: idSchema.optional(),
-  /** The shops of one region (the scope chosen in the header); with `locationId`, both must hold. */
-  regionId: idSchema.optional(),
-  technicianId: idSchema.optional(),
-  /** Booked for a day from and to (inclusive). */
-  from: isoDate.optional(),
-  to: isoDate.optional(),
-  /** Delivered on a day at its location from and to (inclusive). */
-  deliveredFrom: isoDate.optional(),
-  deliveredTo: isoDate.optional(),
-  q: optionalText(100).optional(),
-  /** Only builds with (true) or without (false) a power plan. */
-  hasPlan: z.enum(['true', 'false']).optional(),
-  sort: z.enum(BUILD_SORTS).default('updatedAt'),
-  order: z.enum(['asc', 'desc']).default('desc'),
-  ...pageQuery,
-  ...cursorQuery,
-});
+export const BUILD_SORTS = ['number', 'bookedFor', 'deliveredOn', 'status', 'totalCents', 'updatedAt'] as const;
+/** A list of builds by the day each was delivered at its shop is a list of deliveries: it needs their span of days. */
+const deliveredOnNeedsDays = (q: { sort: string; deliveredFrom?: string; deliveredTo?: string }) =>
+  q.sort !== 'deliveredOn' || Boolean(q.deliveredFrom || q.deliveredTo);
+export const buildQuery = z
+  .strictObject({
+    status: z.union([z.enum(BUILD_STATUSES), z.array(z.enum(BUILD_STATUSES))]).optional(),
+    locationId: idSchema.optional(),
+    /** The shops of one region (the scope chosen in the header); with `locationId`, both must hold. */
+    regionId: idSchema.optional(),
+    technicianId: idSchema.optional(),
+    /** Booked for a day from and to (inclusive). */
+    from: isoDate.optional(),
+    to: isoDate.optional(),
+    /** Delivered on a day at its location from and to (inclusive). */
+    deliveredFrom: isoDate.optional(),
+    deliveredTo: isoDate.optional(),
+    q: optionalText(100).optional(),
+    /** Only builds with (true) or without (false) a power plan. */
+    hasPlan: z.enum(['true', 'false']).optional(),
+    sort: z.enum(BUILD_SORTS).default('updatedAt'),
+    order: z.enum(['asc', 'desc']).default('desc'),
+    ...pageQuery,
+    ...cursorQuery,
+  })
+  .refine(deliveredOnNeedsDays, { path: ['sort'], message: 'Sort by delivery day once the list is narrowed to days of delivery', when: (p) => p.issues.length === 0 });
 export type BuildQuery = z.infer<typeof buildQuery>;
 
 export interface BuildItemView {
@@ -193,6 +198,8 @@ export interface BuildView {
   bookedFor: string | null;
   startedAt: string | null;
   deliveredAt: string | null;
+  /** The day of `deliveredAt` at the build's shop. */
+  deliveredOn: string | null;
   laborHours: number;
   laborRateCents?: number;
   laborCents?: number;

@@ -5,20 +5,28 @@ import { positiveInt } from '../../composables/usePagedList.ts';
 
 const isoDate = (value: unknown) => (typeof value === 'string' && /^\d{4}-\d{2}-\d{2}$/.test(value) ? value : undefined);
 
-/** The build list's filters and order as the address bar holds them; anything unknown is dropped. */
+/**
+ * The build list's filters and order as the address bar holds them; anything unknown is dropped.
+ * A list narrowed to days of delivery is a list of deliveries: it is read by delivery day unless
+ * another order is asked, and only it can be (the day is blank for builds not delivered).
+ */
 export function readBuildFilters(query: LocationQuery) {
   const statuses = ([] as unknown[]).concat(query.status ?? []);
   const q = typeof query.q === 'string' ? query.q.trim() : '';
+  const deliveredFrom = isoDate(query.deliveredFrom);
+  const deliveredTo = isoDate(query.deliveredTo);
+  const byDeliveryDays = Boolean(deliveredFrom || deliveredTo);
+  const sort = BUILD_SORTS.find((s) => s === query.sort && (s !== 'deliveredOn' || byDeliveryDays));
   return {
     status: BUILD_STATUSES.filter((s) => statuses.includes(s)) as BuildStatus[],
     locationId: positiveInt(query.locationId),
     technicianId: positiveInt(query.technicianId),
     from: isoDate(query.from),
     to: isoDate(query.to),
-    deliveredFrom: isoDate(query.deliveredFrom),
-    deliveredTo: isoDate(query.deliveredTo),
+    deliveredFrom,
+    deliveredTo,
     q: q || undefined,
-    sort: (BUILD_SORTS.find((s) => s === query.sort) ?? 'updatedAt') as BuildSort,
+    sort: (sort ?? (byDeliveryDays ? 'deliveredOn' : 'updatedAt')) as BuildSort,
     order: query.order === 'asc' ? ('asc' as const) : ('desc' as const),
   };
 }

@@ -5,10 +5,11 @@ import type { BuildSort } from '../../api/builds.ts';
 /**
  * The build list's columns. Sortable columns carry the API's sort name as their key; the shop
  * column only for people who see more than one shop, the total only for people who read prices.
+ * A list of deliveries (narrowed to days of delivery) shows the day of delivery where others show the booking.
  * The customer takes what the others leave: with every column, the owner's list fits 1280 px.
  */
 export function buildColumns(
-  show: { shop: boolean; total: boolean },
+  show: { shop: boolean; total: boolean; deliveries: boolean },
   sort: BuildSort,
   order: 'asc' | 'desc',
 ): TableColumnsType<BuildView> {
@@ -22,7 +23,9 @@ export function buildColumns(
     { key: 'customer', title: 'Customer and vehicle', ellipsis: true },
     { key: 'status', title: 'Status', width: 136, ...sortable('status') },
     { key: 'lead', title: 'Lead technician', dataIndex: 'leadTechnicianName', width: 140, ellipsis: true },
-    { key: 'bookedFor', title: 'Booked for', width: 112, ...sortable('bookedFor') },
+    show.deliveries
+      ? { key: 'deliveredOn', title: 'Delivered', width: 112, ...sortable('deliveredOn') }
+      : { key: 'bookedFor', title: 'Booked for', width: 112, ...sortable('bookedFor') },
     { key: 'updatedAt', title: 'Last change', width: 120, ...sortable('updatedAt') },
   ];
   if (show.shop) columns.splice(2, 0, { key: 'location', title: 'Shop', dataIndex: 'locationCode', width: 64 });
