@@ -56,6 +56,7 @@ import * as importedLinesFromDelivery from './054-imported-lines-from-delivery.t
 import * as flagChangedFinalMonths from './055-flag-changed-final-months.ts';
 import * as createMonthCloseSums from './056-create-month-close-sums.ts';
 import * as indexShopDeliveryDays from './057-index-shop-delivery-days.ts';
+import * as coverDeliveryDays from './058-cover-delivery-days.ts';
 
 /** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
 export const migrations: Record<string, Migration> = {
@@ -116,4 +117,5 @@ export const migrations: Record<string, Migration> = {
   '055-flag-changed-final-months': flagChangedFinalMonths,
   '056-create-month-close-sums': createMonthCloseSums,
   '057-index-shop-delivery-days': indexShopDeliveryDays,
+  '058-cover-delivery-days': coverDeliveryDays,
 };
