@@ -1,3 +1,4 @@
+import { dayOfIso, isoDay } from '@busbar/calc';
 import type { Db } from '@busbar/db';
 import type { Category, ClaimStatus } from '@busbar/shared';
 import { sql } from 'kysely';
@@ -38,24 +39,31 @@ export interface DeliveredBuild {
   partsCostCents: number;
 }
 
-/** The builds delivered in the range, by day delivered, a batch at a time (read by where the last batch ended, not by offset). */
-export async function* deliveredBuilds(range: ExportRange): AsyncIterable<DeliveredBuild[]> {
-  let after = { on: '', id: 0 };
-  for (;;) {
-    const batch = await deliveredIn(range)
-      .innerJoin('locations as l', 'l.id', 'b.locationId')
-      .innerJoin('customers as c', 'c.id', 'b.customerId')
-      .where(sql<boolean>`(b.delivered_on, b.id) > (${after.on}, ${after.id})`)
-      .orderBy('b.deliveredOn')
-      .orderBy('b.id')
-      .limit(BUILDS_PER_BATCH)
-      .select(['b.id', 'b.number', 'l.code as shop', 'c.name as customer', 'b.laborHours', 'b.laborCents', 'b.partsPriceCents', 'b.totalCents', 'b.partsCostCents'])
-      .select(sql<string>`b.delivered_on`.as('deliveredOn'))
-      .execute();
-    if (batch.length === 0) return;
-    yield batch;
-    const end = batch[batch.length - 1]!;
-    after = { on: end.deliveredOn, id: end.id };
+/**
+ * The builds delivered in the range, by day delivered, a batch at a time: a day's builds in turn, by
+ * where the last batch of the day ended (not by offset). A batch never reads past its day, whatever
+ * plan SQLite picks: a batch read after the last one's day and id over the whole range could be
+ * planned as every build of the range at each location, sorted for each batch (1.1 s a batch over
+ * a year of 200 shops, where a day's builds take milliseconds).
+ */
+export async function* deliveredBuilds(range: ExportRange, perBatch = BUILDS_PER_BATCH): AsyncIterable<DeliveredBuild[]> {
+  for (let day = dayOfIso(range.first); day <= dayOfIso(range.last); day++) {
+    const on = isoDay(day);
+    let afterId = 0;
+    for (;;) {
+      const batch = await deliveredIn({ ...range, first: on, last: on })
+        .innerJoin('locations as l', 'l.id', 'b.locationId')
+        .innerJoin('customers as c', 'c.id', 'b.customerId')
+        .where('b.id', '>', afterId)
+        .orderBy('b.id')
+        .limit(perBatch)
+        .select(['b.id', 'b.number', 'l.code as shop', 'c.name as customer', 'b.laborHours', 'b.laborCents', 'b.partsPriceCents', 'b.totalCents', 'b.partsCostCents'])
+        .select(sql<string>`b.delivered_on`.as('deliveredOn'))
+        .execute();
+      if (batch.length > 0) yield batch;
+      if (batch.length < perBatch) break;
+      afterId = batch[batch.length - 1]!.id;
+    }
   }
 }
 
