@@ -4,10 +4,9 @@ import { sql, type Kysely } from 'kysely';
  * What a month's close adds up, kept per month and location: the delivered builds by their local
  * delivery day and the claims by their local logging day. The close summed every shop's builds
  * and claims of the month at each request (14,000 builds and 2,000 claims on 200 shops, 3–4 ms
- * through the covering indexes of migrations 045 and 047), where it now reads a row per shop. The
- * builds' index served nothing else and goes; the claims' stays, as the claims list counts a
- * region's claims logged in a span through it. Triggers add each row's part after a change and
- * take out what it was before.
+ * through the covering indexes of migrations 045 and 047), where it now reads a row per shop; those
+ * indexes served nothing else and go. Triggers add each row's part after a change and take out
+ * what it was before.
  */
 /** Where each figure comes from: the rows that count, their month, and what each adds. */
 const SOURCES = {
@@ -77,9 +76,11 @@ export async function up(db: Kysely<any>): Promise<void> {
   for (const [name, when, body] of TRIGGERS) await sql.raw(`create trigger ${name} ${when} begin ${body} end`).execute(db);
   for (const statement of REFILL_MONTH_CLOSE_SUMS.split(';').filter((s) => s.trim())) await sql.raw(statement).execute(db);
   await sql`drop index builds_delivered_sums`.execute(db);
+  await sql`drop index warranty_claims_logged_sums`.execute(db);
 }
 
 export async function down(db: Kysely<any>): Promise<void> {
+  await sql`create index warranty_claims_logged_sums on warranty_claims (location_id, logged_on, status, credit_requested_cents, credit_received_cents)`.execute(db);
   await sql`create index builds_delivered_sums on builds (location_id, delivered_on, parts_price_cents, labor_cents, total_cents, parts_cost_cents)
     where status = 'delivered'`.execute(db);
   for (const [name] of TRIGGERS) await sql.raw(`drop trigger ${name}`).execute(db);
