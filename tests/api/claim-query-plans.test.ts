@@ -103,6 +103,28 @@ describe('claims list query plans', () => {
     expect(tableScans(plans)).toEqual([]);
   });
 
+  it.each(Object.entries(BY_DAYS))("reads a whole region's page of a span of days from its shops' spans in an index alone: %s", async (_name, [query, column]) => {
+    const ids = await demoIds(h.db);
+    const region = ids.locations.filter((l) => l.regionId === ids.locations.find((m) => m.code === 'DEN')!.regionId).map((l) => l.id);
+    const { plans, page } = await listPlans(region, query);
+    expect(page.filter((line) => /^(SCAN|SEARCH) w\b/.test(line))).toEqual([expect.stringMatching(new RegExp(`^SEARCH w USING COVERING INDEX \\w+ \\(location_id=\\? AND ${column}>\\? AND ${column}<\\?\\)$`))]);
+    expect(tableScans(plans)).toEqual([]);
+    const listed = await listClaims(h.db, region, claimQuery.parse(query), AT);
+    const byHand = await h.db
+      .selectFrom('warrantyClaims')
+      .select('id')
+      .where('locationId', 'in', region)
+      .where(sql.ref(column), '>=', Object.values(query)[0]!)
+      .where(sql.ref(column), '<=', Object.values(query)[1]!)
+      .orderBy(sql`due_on is null`)
+      .orderBy('dueOn')
+      .orderBy('id')
+      .limit(listed.pageSize)
+      .execute();
+    expect(listed.items.map((c) => c.id)).toEqual(byHand.map((c) => c.id));
+    expect(listed.items.length).toBeGreaterThan(0);
+  });
+
   it.each([['the queue', {}], ['a deep page', { page: '4' }]])(
     "walks the network's queue order for a whole region's page instead of sorting all its claims: %s",
     async (_name, query) => {
