@@ -75,7 +75,7 @@ export function report(demo: SizeRun, shorter: ScreensRun, network: SizeRun, sam
     '',
     ...summary,
     '',
-    `Each screen's API request through HTTP with a signed-in person, after 5 warm-up requests, ${samples} timed requests one after another (ms to the last byte, brotli as a browser asks). A regional manager and a lead read no audit log: (403). Where a list's page at the demo's size held fewer rows, the network's list is timed once more with pages of that many rows. The last column times each screen on a network of the demo's shops with the network's years of history: the network's ratio to it is what more shops cost, without more years.`,
+    `Each screen's API request through HTTP with a signed-in person, after 5 warm-up requests, ${samples} timed requests one after another (ms to the last byte, brotli as a browser asks); the three sizes' apps run side by side and take turns of 20 requests (after one untimed), so that a change in the machine's speed meanwhile falls on all three alike. A regional manager and a lead read no audit log: (403). Where a list's page at the demo's size held fewer rows, the network's list is timed once more with pages of that many rows. The last column times each screen on a network of the demo's shops with the network's years of history: the network's ratio to it is what more shops cost, without more years.`,
     '',
     ...PEOPLE.flatMap((who) => [...screenTable(demo, shorter, network, who), '']),
     `| data | ${demo.load.connections} connections, reads and writes, ${demo.load.seconds.toFixed(0)} s (after ${LOAD_WARM_UP_SECONDS} s untimed) | a lead's build detail p95 while the owner imports and reads big lists, and the lead's saves | peak RSS of the largest app process (of all together) |`,

@@ -129,41 +129,64 @@ export async function idsFor(person: Person): Promise<Ids> {
   };
 }
 
-/** A request `warmUps` times untimed, then `samples` times one after another. */
-async function timed(person: Person, label: string, path: string, samples: number, warmUps: number): Promise<Latency> {
-  for (let i = 0; i < warmUps; i++) await call(person, 'GET', path);
-  const times: number[] = [];
-  for (let i = 0; i < samples; i++) {
-    const answer = await call(person, 'GET', path);
-    if (answer.status !== 200) throw new Error(`${label} answered ${answer.status} while timed: ${answer.body.slice(0, 200)}`);
-    times.push(answer.ms);
+/** One series of a screen's timed requests: a person at one size, the path they ask. */
+interface Series {
+  person: Person;
+  path: string;
+  times: number[];
+}
+
+/** Timed requests of one series in a row before the next series takes its turn. */
+const TURN = 20;
+
+/**
+ * Each series' request `warmUps` times untimed, then `samples` times, the series taking turns of
+ * TURN requests, each turn after one untimed request: this machine's speed drifts by half from one
+ * minute to the next (a screen's p50 4.8 ms, then 3.1), which fell on whichever size ran at the
+ * time and now falls on all alike; one request each in turn ran every one 30–40 % slower than a
+ * series alone (each app waking from idle), the untimed one keeps that out of the figures.
+ */
+async function timedInTurn(label: string, series: readonly Series[], samples: number, warmUps: number): Promise<void> {
+  for (const { person, path } of series) for (let i = 0; i < warmUps; i++) await call(person, 'GET', path);
+  for (let done = 0; done < samples; done += TURN) {
+    for (const { person, path, times } of series) {
+      await call(person, 'GET', path);
+      for (let i = done; i < Math.min(samples, done + TURN); i++) {
+        const answer = await call(person, 'GET', path);
+        if (answer.status !== 200) throw new Error(`${label} answered ${answer.status} while timed: ${answer.body.slice(0, 200)}`);
+        times.push(answer.ms);
+      }
+    }
   }
-  return latency(times);
 }
 
 /**
- * Each screen's request, timed (see `timed`). Given the person's figures at the demo's size, a list
- * whose page there was shorter is timed once more with pages of the demo's rows, like for like.
+ * Each screen's request for one person at each size (`people`, the demo's first), timed together
+ * (see timedInTurn). A list whose page at the demo's size was shorter is timed once more at the
+ * other sizes with pages of the demo's rows, like for like. Answers each size's figures, in order.
  */
-export async function measureScreens(person: Person, samples: number, onScreen: (label: string) => void, demo?: Map<string, ScreenFigure>): Promise<Map<string, ScreenFigure>> {
-  const ids = await idsFor(person);
-  const figures = new Map<string, ScreenFigure>();
+export async function measureScreens(people: readonly Person[], samples: number, onScreen: (label: string) => void): Promise<Map<string, ScreenFigure>[]> {
+  const ids = await Promise.all(people.map(idsFor));
+  const figures = people.map(() => new Map<string, ScreenFigure>());
   for (const [label, path] of SCREENS) {
     onScreen(label);
-    const first = await call(person, 'GET', path(ids));
-    if (first.status !== 200) {
-      figures.set(label, { status: first.status });
-      continue;
-    }
-    const rows = rowsOf(first.body);
-    // The first request warms up too.
-    const figure: ScreenFigure = { ...(await timed(person, label, path(ids), samples, 4)), rows };
-    const demoRows = demo?.get(label);
-    const paged = typeof (JSON.parse(first.body) as { pageSize?: unknown }).pageSize === 'number';
-    if (paged && rows !== null && demoRows && 'rows' in demoRows && demoRows.rows !== null && demoRows.rows > 0 && demoRows.rows < rows) {
-      figure.sameRows = await timed(person, label, withPageSize(path(ids), demoRows.rows), samples, 5);
-    }
-    figures.set(label, figure);
+    const firsts = await Promise.all(people.map((person, i) => call(person, 'GET', path(ids[i]!))));
+    const answered = firsts.map((first) => (first.status === 200 ? { rows: rowsOf(first.body), paged: typeof (JSON.parse(first.body) as { pageSize?: unknown }).pageSize === 'number' } : null));
+    const demoRows = answered[0]?.rows ?? null;
+    const series = people.map((person, i): Series | null => (answered[i] ? { person, path: path(ids[i]!), times: [] } : null));
+    const likeForLike = people.map((person, i): Series | null => {
+      const own = answered[i];
+      const shorter = i > 0 && own?.paged && own.rows !== null && demoRows !== null && demoRows > 0 && demoRows < own.rows;
+      return shorter ? { person, path: withPageSize(path(ids[i]!), demoRows), times: [] } : null;
+    });
+    await timedInTurn(label, [...series, ...likeForLike].filter((s) => s !== null), samples, 5);
+    people.forEach((_person, i) => {
+      const timed = series[i];
+      if (!timed) return void figures[i]!.set(label, { status: firsts[i]!.status });
+      const figure: ScreenFigure = { ...latency(timed.times), rows: answered[i]!.rows };
+      if (likeForLike[i]) figure.sameRows = latency(likeForLike[i]!.times);
+      figures[i]!.set(label, figure);
+    });
   }
   return figures;
 }
