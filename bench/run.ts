@@ -57,7 +57,7 @@ async function startSize(dir: string, label: string, generatedSeconds: number | 
   }
 }
 
-/** Every screen for every person at every size, the sizes taking turns request by request (see measureScreens). */
+/** Every screen for every person at every size, the sizes taking turns (see measureScreens). */
 async function screensOf(sizes: readonly Started[], options: BenchOptions): Promise<SizeRun['screens'][]> {
   const screens = sizes.map(() => ({}) as SizeRun['screens']);
   for (const who of PEOPLE) {
@@ -110,6 +110,7 @@ try {
   running.add(large);
   const [demoScreens, sameYearsScreens, networkScreens] = await screensOf([demo, sameYears, large], options);
   await stop(sameYears);
+  // measureRest stops the app itself, whatever happens.
   running.delete(demo);
   const demoRun = await measureRest(demo, demoScreens!, options);
   log('demo: the accountant exports twelve months');

@@ -143,8 +143,8 @@ const TURN = 20;
  * Each series' request `warmUps` times untimed, then `samples` times, the series taking turns of
  * TURN requests, each turn after one untimed request: this machine's speed drifts by half from one
  * minute to the next (a screen's p50 4.8 ms, then 3.1), which fell on whichever size ran at the
- * time and now falls on all alike; one request each in turn ran every one 30–40 % slower than a
- * series alone (each app waking from idle), the untimed one keeps that out of the figures.
+ * time and now falls on all alike. Turns of one request each ran every one 30–40 % slower than a
+ * series alone (each app idle while the others answer): the untimed request keeps that out.
  */
 async function timedInTurn(label: string, series: readonly Series[], samples: number, warmUps: number): Promise<void> {
   for (const { person, path } of series) for (let i = 0; i < warmUps; i++) await call(person, 'GET', path);
