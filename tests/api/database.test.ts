@@ -47,6 +47,56 @@ describe('database', () => {
     }
   });
 
+  it("waits for another connection's write lock without holding up the process's reads and timers", async () => {
+    const db = await fresh();
+    const other = openDatabase(join(dirs.at(-1)!, 'busbar.sqlite'));
+    try {
+      // Another connection (an import's worker thread, the other app process) holds the write lock.
+      await sql`begin immediate`.execute(other);
+      let settled = false;
+      const writing = db
+        .transaction()
+        .execute((trx) => trx.insertInto('regions').values({ code: 'WQ', name: 'Waited' }).execute())
+        .finally(() => (settled = true));
+      // Meanwhile this process's timers fire and its reads are answered: nothing sleeps on the thread.
+      const started = performance.now();
+      await new Promise((resolve) => setTimeout(resolve, 50));
+      expect(performance.now() - started).toBeLessThan(1000);
+      const regions = await db.selectFrom('regions').select('code').execute();
+      expect(regions.map((r) => r.code)).not.toContain('WQ');
+      expect(settled).toBe(false);
+      await sql`commit`.execute(other);
+      await writing;
+      expect(await db.selectFrom('regions').select('code').where('code', '=', 'WQ').execute()).toHaveLength(1);
+    } finally {
+      await other.destroy();
+      await db.destroy();
+    }
+  });
+
+  it('gives a transaction up with SQLITE_BUSY once the write lock stays taken past the busy timeout, having written nothing', async () => {
+    const db = await fresh();
+    const file = join(dirs.at(-1)!, 'busbar.sqlite');
+    await db.destroy();
+    const impatient = openDatabase(file, { busyTimeoutMs: 100 });
+    const other = openDatabase(file);
+    try {
+      await sql`begin immediate`.execute(other);
+      const started = performance.now();
+      const write = impatient.transaction().execute((trx) => trx.insertInto('regions').values({ code: 'GU', name: 'Given up' }).execute());
+      await expect(write).rejects.toMatchObject({ code: 'SQLITE_BUSY' });
+      expect(performance.now() - started).toBeGreaterThanOrEqual(100);
+      await sql`commit`.execute(other);
+      expect(await impatient.selectFrom('regions').select('code').where('code', '=', 'GU').execute()).toEqual([]);
+      // The connection is whole again: its next transaction goes through.
+      await impatient.transaction().execute((trx) => trx.insertInto('regions').values({ code: 'OK', name: 'Later' }).execute());
+      expect(await impatient.selectFrom('regions').select('code').where('code', '=', 'OK').execute()).toHaveLength(1);
+    } finally {
+      await other.destroy();
+      await impatient.destroy();
+    }
+  });
+
   it('opens with WAL, foreign keys and a busy timeout', async () => {
     const db = await fresh();
     const pragma = async (name: string) => Object.values((await sql.raw(`pragma ${name}`).execute(db)).rows[0] as object)[0];
