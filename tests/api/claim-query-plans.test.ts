@@ -1,7 +1,7 @@
 import { claimQuery } from '@busbar/shared';
 import { sql } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { listClaims } from '../../apps/api/src/queries/claim-list.ts';
+import { listClaims, SORTED_SPAN_MOST } from '../../apps/api/src/queries/claim-list.ts';
 import { demoIds, startHarness, type Harness } from '../support/api-harness.ts';
 import { plansOf } from '../support/query-plans.ts';
 
@@ -48,10 +48,18 @@ const BY_DAYS: Record<string, [query: Record<string, string>, column: string]> =
 
 const AT = new Date('2026-06-15T15:00:00Z');
 
+/**
+ * Whether a plan may be the page's ids: it reads the claims, not by id (the page's names) and not as
+ * the count (a co-routine). The count comes first, and its subquery is planned on its own before it:
+ * the page's ids are the last such plan.
+ */
+const readsPage = (lines: string[]) =>
+  lines.some((line) => /^(SCAN|SEARCH) w\b/.test(line) && !line.includes('INTEGER PRIMARY KEY')) && !lines.some((line) => line.includes('CO-ROUTINE'));
+
 /** The plans of a claims list: every statement, and the one that reads the page's ids. */
 async function listPlans(scope: 'all' | number[], query: Record<string, string>) {
   const plans = await plansOf(h.db, (db) => listClaims(db, scope, claimQuery.parse(query), AT));
-  const page = plans.find((lines) => lines.some((line) => /^(SCAN|SEARCH) w\b/.test(line)));
+  const page = plans.filter(readsPage).at(-1);
   return { plans, page: page ?? [] };
 }
 
@@ -123,6 +131,39 @@ describe('claims list query plans', () => {
       .execute();
     expect(listed.items.map((c) => c.id)).toEqual(byHand.map((c) => c.id));
     expect(listed.items.length).toBeGreaterThan(0);
+  });
+
+  it("walks the network's queue order for a region's span of days holding more claims than are worth sorting", async () => {
+    const ids = await demoIds(h.db);
+    const region = ids.locations.filter((l) => l.regionId === ids.locations.find((m) => m.code === 'DEN')!.regionId).map((l) => l.id);
+    const span = claimQuery.parse({ failedFrom: '2024-01-01' });
+    const rolledBack = new Error('rolled back');
+    await expect(
+      h.db.transaction().execute(async (trx) => {
+        // Copies of the claims (undone after) until the region's span holds more than SORTED_SPAN_MOST.
+        for (let copy = 1; (await listClaims(trx, region, span, AT)).total <= SORTED_SPAN_MOST; copy++) {
+          await sql`insert into warranty_claims (location_id, sequence, number, build_id, build_item_id, catalog_item_id, failed_on, failure_mode, coverage, symptoms, status, due_on, created_at, logged_on, updated_at)
+            select location_id, sequence + ${copy * 10_000_000}, number || '-' || ${copy}, build_id, build_item_id, catalog_item_id, failed_on, failure_mode, coverage, symptoms, status, due_on, created_at, logged_on, updated_at
+            from warranty_claims where sequence < 10000000`.execute(trx);
+        }
+        const plans = await plansOf(trx, (db) => listClaims(db, region, span, AT));
+        const page = plans.filter(readsPage).at(-1)!;
+        expect(page.filter((line) => /^(SCAN|SEARCH) w\b/.test(line))).toEqual(['SCAN w USING INDEX warranty_claims_queue_order']);
+        const listed = await listClaims(trx, region, span, AT);
+        const byHand = await trx
+          .selectFrom('warrantyClaims')
+          .select('id')
+          .where('locationId', 'in', region)
+          .where('failedOn', '>=', '2024-01-01')
+          .orderBy(sql`due_on is null`)
+          .orderBy('dueOn')
+          .orderBy('id')
+          .limit(listed.pageSize)
+          .execute();
+        expect(listed.items.map((c) => c.id)).toEqual(byHand.map((c) => c.id));
+        throw rolledBack;
+      }),
+    ).rejects.toBe(rolledBack);
   });
 
   it.each([['the queue', {}], ['a deep page', { page: '4' }]])(

@@ -3,7 +3,7 @@ import type { ClaimQuery, Page } from '@busbar/shared';
 import { sql, type Expression, type ExpressionBuilder, type SqlBool } from 'kysely';
 import type { LocationScope } from '../access/locations.ts';
 import { claimsWithNames, localToday, toRow, type ClaimRow } from './claims.ts';
-import { cappedCount, offsetOf } from './paging.ts';
+import { cappedCount, offsetOf, type Count } from './paging.ts';
 
 type Claims = ExpressionBuilder<any, any>;
 
@@ -36,14 +36,20 @@ const byUnit = (query: ClaimQuery) => query.vendorId !== undefined || query.cate
 const byDays = (query: ClaimQuery) => [query.failedFrom, query.failedTo, query.loggedFrom, query.loggedTo].some((day) => day !== undefined);
 
 /**
+ * The most claims of a span of days a page is sorted from: a region's month on 200 shops (2,000)
+ * sorts in 3.2 ms against a walk's 4.2, a span of years (10,000 and more) in 7.4 against 2.3.
+ */
+export const SORTED_SPAN_MOST = 5000;
+
+/**
  * Whether a page of the scope's claims is found sooner by walking the queue order of the whole
  * network and keeping the scope's than by sorting every claim of the scope: so for a scope of a
  * good share of the network's shops (a region of 93 shops of 200: 4.5 ms of sorting against 0.05),
  * unless a vendor or category narrows the claims through the item's index first, or a span of days
- * through each shop's index of those days.
+ * holding few enough of them (`count`) through each shop's index of those days.
  */
-async function walksQueue(db: Db, scope: LocationScope, query: ClaimQuery): Promise<boolean> {
-  if (scope === 'all' || scope.length < 2 || byUnit(query) || byDays(query)) return false;
+async function walksQueue(db: Db, scope: LocationScope, query: ClaimQuery, count: Count): Promise<boolean> {
+  if (scope === 'all' || scope.length < 2 || byUnit(query) || (byDays(query) && count.total <= SORTED_SPAN_MOST)) return false;
   const { locations } = await db.selectFrom('locations').select((eb) => eb.fn.countAll<number>().as('locations')).executeTakeFirstOrThrow();
   return scope.length >= locations * WALK_SHARE;
 }
@@ -88,15 +94,18 @@ async function matchingClaims(db: Db, scope: LocationScope, query: ClaimQuery, n
 export async function listClaims(db: Db, scope: LocationScope, query: ClaimQuery, now: Date): Promise<Page<ClaimRow>> {
   const paging = { page: query.page, pageSize: query.pageSize };
   if (scope !== 'all' && scope.length === 0) return { items: [], total: 0, totalCapped: false, ...paging };
+  const offset = offsetOf(query.page, query.pageSize);
   const matching = await matchingClaims(db, scope, query, now);
-  const pageIds = matching(await walksQueue(db, scope, query))
+  // Counted first: how many a span of days holds decides how its page is read.
+  const count = await cappedCount(db, matching(false).select('w.id'));
+  const keys = await matching(await walksQueue(db, scope, query, count))
     .select('w.id')
     .orderBy(sql`w.due_on is null`)
     .orderBy('w.dueOn', 'asc')
     .orderBy('w.id', 'asc')
     .limit(query.pageSize)
-    .offset(offsetOf(query.page, query.pageSize));
-  const [keys, count] = await Promise.all([pageIds.execute(), cappedCount(db, matching(false).select('w.id'))]);
+    .offset(offset)
+    .execute();
   const rows = keys.length === 0 ? [] : await claimsWithNames(db).where('w.id', 'in', keys.map((k) => k.id)).execute();
   const byId = new Map(rows.map((row) => [row.id, toRow(row)]));
   return { items: keys.map((k) => byId.get(k.id)!), ...count, ...paging };
