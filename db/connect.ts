@@ -1,8 +1,9 @@
 import { mkdirSync } from 'node:fs';
 import { dirname } from 'node:path';
 import SQLite from 'better-sqlite3';
-import { CamelCasePlugin, Kysely, Migrator, SqliteDialect, SqliteDriver, type Driver, type SqliteDatabase, type SqliteDialectConfig } from 'kysely';
+import { CamelCasePlugin, Kysely, Migrator, SqliteDialect, SqliteDriver, type Driver, type PluginTransformResultArgs, type QueryResult, type SqliteDatabase, type SqliteDialectConfig, type SqliteStatement, type UnknownRow } from 'kysely';
 import { migrations } from './migrations/index.ts';
+import { shapedRows } from './row-shapes.ts';
 import type { Database } from './schema/index.ts';
 
 export type Db = Kysely<Database>;
@@ -19,8 +20,23 @@ export function openDatabase(file: string, { queryOnly = false, busyTimeoutMs = 
   sqlite.pragma('foreign_keys = ON');
   sqlite.pragma(`busy_timeout = ${busyTimeoutMs}`);
   if (queryOnly) sqlite.pragma('query_only = ON');
-  const dialect = new ImmediateSqliteDialect({ database: reusingStatements(sqlite) }, sqlite, busyTimeoutMs);
-  return new Kysely<Database>({ dialect, plugins: [new CamelCasePlugin()] });
+  const naming = new CamelCaseColumns();
+  const dialect = new ImmediateSqliteDialect({ database: reusingStatements(sqlite, (column) => naming.columnName(column)) }, sqlite, busyTimeoutMs);
+  return new Kysely<Database>({ dialect, plugins: [naming] });
+}
+
+/**
+ * Kysely's camel case: queries' names turned to snake case, and rows read with their columns'
+ * names in camel case already (see row-shapes.ts), so results are left as they come.
+ */
+class CamelCaseColumns extends CamelCasePlugin {
+  columnName(column: string): string {
+    return this.camelCase(column);
+  }
+
+  override async transformResult(args: PluginTransformResultArgs): Promise<QueryResult<UnknownRow>> {
+    return args.result;
+  }
 }
 
 /** The longest pause between a waiting transaction's tries for the write lock, in ms. */
@@ -77,30 +93,35 @@ function beginsNow(sqlite: SQLite.Database, busyTimeoutMs: number): boolean {
 
 /** Prepared statements kept per connection; the most used queries stay, the rest are prepared again. */
 const STATEMENTS_KEPT = 500;
+/** Statements that change tables (migrations, tests); the app changes its schema through Kysely only. */
+const SCHEMA_CHANGE = /^\s*(create|alter|drop)\s/i;
 
 /**
  * The connection as Kysely sees it, with `prepare` answering an already prepared statement for SQL
  * it has seen (Kysely prepares again for every query). A statement still busy with an unfinished
- * stream gets a fresh copy instead.
+ * stream gets a fresh copy instead. Rows come keyed by `nameOf` their columns' names.
  */
-function reusingStatements(sqlite: SQLite.Database): SqliteDatabase {
-  const kept = new Map<string, SQLite.Statement>();
+function reusingStatements(sqlite: SQLite.Database, nameOf: (column: string) => string): SqliteDatabase {
+  const kept = new Map<string, { statement: SQLite.Statement; shaped: SqliteStatement }>();
   return {
     close: () => sqlite.close(),
     prepare(sql: string) {
-      const statement = kept.get(sql);
-      if (statement && !statement.busy) {
+      // A change of the schema can change the columns of a kept `select *`: everything is prepared again.
+      if (SCHEMA_CHANGE.test(sql)) kept.clear();
+      const known = kept.get(sql);
+      if (known && !known.statement.busy) {
         // Move it to the back, so the least recently used statement is the first to go.
         kept.delete(sql);
-        kept.set(sql, statement);
-        return statement;
+        kept.set(sql, known);
+        return known.shaped;
       }
-      const fresh = sqlite.prepare(sql);
-      if (!statement) {
+      const statement = sqlite.prepare(sql);
+      const shaped = shapedRows(statement, nameOf);
+      if (!known) {
         if (kept.size >= STATEMENTS_KEPT) kept.delete(kept.keys().next().value!);
-        kept.set(sql, fresh);
+        kept.set(sql, { statement, shaped });
       }
-      return fresh;
+      return shaped;
     },
   };
 }
