@@ -5,5 +5,6 @@ export { seedNetwork, type NetworkCounts } from './demo/network-history.ts';
 export { demoEvidenceKinds } from './demo/claims-evidence.ts';
 export { REFILL_ROLLUPS } from './migrations/042-create-rollup-sums.ts';
 export { REFILL_MONTH_CLOSE_SUMS } from './migrations/056-create-month-close-sums.ts';
+export { REFILL_BUILD_COUNTS } from './migrations/061-create-build-counts.ts';
 export { FLAG_CHANGED_FINAL_MONTHS } from './migrations/055-flag-changed-final-months.ts';
 export { SHOP_SPAN } from './migrations/049-create-shop-build-search.ts';

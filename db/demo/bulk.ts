@@ -2,6 +2,7 @@ import type SQLite from 'better-sqlite3';
 import { REFILL_UNIT_EXPOSURE } from '../migrations/046-create-workmanship-counts.ts';
 import { REFILL_ROLLUPS } from '../migrations/042-create-rollup-sums.ts';
 import { REFILL_MONTH_CLOSE_SUMS } from '../migrations/056-create-month-close-sums.ts';
+import { REFILL_BUILD_COUNTS } from '../migrations/061-create-build-counts.ts';
 
 /**
  * Bulk loading into SQLite: secondary indexes and triggers are dropped before and re-created from
@@ -15,13 +16,14 @@ export function dropSecondaryIndexes(sqlite: SQLite.Database): () => void {
     .all() as { type: 'index' | 'trigger'; name: string; sql: string }[];
   for (const { type, name } of saved) sqlite.exec(`drop ${type} "${name}"`);
   return () => {
-    // Indexes first, so a trigger's statements find them; then refill full-text, reliability, roll-up and month close tables and gather statistics.
+    // Indexes first, so a trigger's statements find them; then refill full-text, reliability, roll-up, month close and build count tables and gather statistics.
     for (const { sql } of saved.filter((s) => s.type === 'index')) sqlite.exec(sql);
     for (const { sql } of saved.filter((s) => s.type === 'trigger')) sqlite.exec(sql);
     for (const name of fullText) sqlite.exec(`insert into "${name}"("${name}") values ('rebuild')`);
     sqlite.exec(REFILL_UNIT_EXPOSURE);
     sqlite.exec(REFILL_ROLLUPS);
     sqlite.exec(REFILL_MONTH_CLOSE_SUMS);
+    sqlite.exec(REFILL_BUILD_COUNTS);
     sqlite.pragma('analysis_limit = 1000');
     sqlite.exec('analyze');
     sqlite.pragma('optimize');

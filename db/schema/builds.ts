@@ -31,3 +31,10 @@ export interface BuildsTable {
   updatedAt: string;
   createdBy: number | null;
 }
+
+/** How many builds a location holds in a status, kept by triggers (migration 061). */
+export interface BuildCountsTable {
+  locationId: number;
+  status: BuildStatus;
+  builds: number;
+}

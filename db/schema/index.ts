@@ -2,7 +2,7 @@ import type { AccessChangesTable } from './access-changes.ts';
 import type { AuditLogTable } from './audit-log.ts';
 import type { BuildEventsTable } from './build-events.ts';
 import type { BuildItemsTable } from './build-items.ts';
-import type { BuildsTable } from './builds.ts';
+import type { BuildCountsTable, BuildsTable } from './builds.ts';
 import type { ClaimEventsTable } from './claim-events.ts';
 import type { ClaimEvidenceTable } from './claim-evidence.ts';
 import type { CatalogItemsTable } from './catalog-items.ts';
@@ -56,6 +56,7 @@ export interface Database {
   customers: CustomersTable;
   vehicles: VehiclesTable;
   builds: BuildsTable;
+  buildCounts: BuildCountsTable;
   buildItems: BuildItemsTable;
   buildEvents: BuildEventsTable;
   powerPlans: PowerPlansTable;

@@ -3,9 +3,9 @@ import { loadConfig } from './config.ts';
 import { refillRollups } from './queries/rollups-refill.ts';
 
 /**
- * `npx tsx apps/api/src/refill-rollups.ts`: rebuilds the roll-up tables and the month close sums
- * of the database in BUSBAR_DATA_DIR from its builds and claims (triggers keep them current; this
- * is for tables that were loaded or changed without them).
+ * `npx tsx apps/api/src/refill-rollups.ts`: rebuilds the roll-up tables, the month close sums and
+ * the build counts of the database in BUSBAR_DATA_DIR from its builds and claims (triggers keep
+ * them current; this is for tables that were loaded or changed without them).
  */
 const config = loadConfig();
 const db = openDatabase(config.databaseFile);

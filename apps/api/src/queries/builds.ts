@@ -2,6 +2,7 @@ import type { Db } from '@busbar/db';
 import { SEARCH_CAP, type BuildEventView, type BuildItemView, type BuildQuery, type BuildStatus, type BuildView, type Page } from '@busbar/shared';
 import { sql, type Expression, type SqlBool } from 'kysely';
 import type { LocationScope } from '../access/locations.ts';
+import { countedByShopAndStatus, keptBuildCount } from './build-counts.ts';
 import { afterKey, cappedCount, type Count, decodeCursor, encodeCursor, offsetOf, type Keyset } from './paging.ts';
 import { buildTextQuery, cappedMatches, countCapFor, isIndexable, inShopRange, newestFirst, newestOfShops, readsShopRanges, shopRowId, shortBuildTextMatch } from './search.ts';
 
@@ -94,7 +95,8 @@ function newestMatches(filtered: ReturnType<typeof filteredBuilds>, scope: Locat
  * The builds a list shows and how many there are. Searched text of 3 or more characters walks a
  * full-text index newest first, in the scope's locations, once (newestMatches): the first
  * SEARCH_CAP + 1 builds that pass the other filters are the list (the newest SEARCH_CAP) and its
- * count (one more tells there are more), so a common name costs no more than a rare one.
+ * count (one more tells there are more), so a common name costs no more than a rare one. A list
+ * narrowed by nothing but its shops and statuses is counted from the kept counts.
  */
 async function matchingBuilds(db: Db, scope: LocationScope, query: BuildQuery): Promise<{ matching: ReturnType<typeof filteredBuilds>; count: Count }> {
   const filtered = filteredBuilds(db, scope, query);
@@ -102,6 +104,7 @@ async function matchingBuilds(db: Db, scope: LocationScope, query: BuildQuery): 
     const { ids, count } = cappedMatches(await newestMatches(filtered, scope, query.q, statusesOf(query)));
     return { matching: db.selectFrom('builds as b').where((eb) => (ids.length === 0 ? eb.lit(false) : eb('b.id', 'in', ids))), count };
   }
+  if (countedByShopAndStatus(query)) return { matching: filtered, count: await keptBuildCount(db, scope, statusesOf(query)) };
   const matching = query.q ? filtered.where(shortBuildTextMatch('b.id', query.q)) : filtered;
   return { matching, count: await cappedCount(db, matching.select('b.id'), countCapFor(query.q)) };
 }
