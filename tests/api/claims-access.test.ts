@@ -35,6 +35,12 @@ describe.each([
     const res = await agents[who].get('/api/claims');
     expect(res.status).toBe(200);
     expect((res.body as Page<ClaimView>).items.map((c) => c.number).sort()).toEqual([...visible].sort());
+    // The location's limit and zone serve the server only; whether a claim is overdue and out of warranty come as yes or no.
+    for (const item of res.body.items) {
+      expect(item).not.toHaveProperty('approvalLimitCents');
+      expect(item).not.toHaveProperty('timeZone');
+      expect(item).toMatchObject({ overdue: false, outOfWarranty: false });
+    }
   });
 
   it('reads a claim of their locations and gets 404 for any other', async () => {

@@ -21,12 +21,12 @@ type ItemRow = Omit<CatalogItemView, 'specs' | 'serialized' | 'active' | 'margin
   unitPriceCents: number;
 };
 
-function toView({ specs, serialized, active, ...row }: ItemRow): CatalogItemView {
+function toView(row: ItemRow): CatalogItemView {
   return {
     ...row,
-    specs: JSON.parse(specs) as Record<string, unknown>,
-    serialized: serialized === 1,
-    active: active === 1,
+    specs: JSON.parse(row.specs) as Record<string, unknown>,
+    serialized: row.serialized === 1,
+    active: row.active === 1,
     marginCents: row.unitPriceCents - row.unitCostCents,
   };
 }

@@ -50,7 +50,7 @@ export function claimsWithNames(db: Db) {
 
 type Raw = Awaited<ReturnType<ReturnType<typeof claimsWithNames>['executeTakeFirstOrThrow']>>;
 // The unit went in on its build's delivery day, kept in the location's own zone (migration 021).
-export const toRow = ({ outOfWarranty, ...raw }: Raw): ClaimRow => ({ ...raw, outOfWarranty: outOfWarranty === 1 });
+export const toRow = (raw: Raw): ClaimRow => ({ ...raw, outOfWarranty: raw.outOfWarranty === 1 });
 
 export async function findClaim(db: Db, id: number): Promise<ClaimRow | undefined> {
   const raw = await claimsWithNames(db).where('w.id', '=', id).executeTakeFirst();
