@@ -27,9 +27,9 @@ const buildRow = (id: number, locationId: number) => ({
 });
 const customerRow = (id: number, locationId: number) => ({ id, locationId, name: `Customer ${id}`, ...Object.fromEntries(CONTACT_FIELDS.map((field) => [field, `${field} ${id}`])) });
 
-/** What CASL itself answers for each field of the row, asked one field at a time. */
+/** The row's fields and values CASL itself lets the person read, asked one field at a time, in the row's order. */
 const fieldByField = (ability: ReturnType<typeof createAbility>, type: Exclude<Subject, 'all'>, row: Record<string, unknown>, scope: Record<string, unknown> = row) =>
-  Object.keys(row).filter((field) => ability.can('read', subject(type, { ...scope }), field));
+  Object.entries(row).filter(([field]) => ability.can('read', subject(type, { ...scope }), field));
 
 describe('readable', () => {
   // Shops in turn, so an answer kept for one shop's rows would show on the next shop's.
@@ -39,12 +39,12 @@ describe('readable', () => {
     const ability = createAbility(defineRulesFor({ id: 7, assignments }));
     for (const [i, locationId] of shops.entries()) {
       const build = buildRow(i + 1, locationId);
-      expect(Object.keys(readable(ability, 'Build', build))).toEqual(fieldByField(ability, 'Build', build));
+      expect(Object.entries(readable(ability, 'Build', build))).toEqual(fieldByField(ability, 'Build', build));
       const customer = customerRow(i + 1, locationId);
-      expect(Object.keys(readable(ability, 'Customer', customer))).toEqual(fieldByField(ability, 'Customer', customer));
+      expect(Object.entries(readable(ability, 'Customer', customer))).toEqual(fieldByField(ability, 'Customer', customer));
       // A build's line is judged by its build; a line lists other fields than the build.
       const line = { id: 50 + i, sku: 'SKU-1', quantity: 1, unitPriceCents: 999, unitCostCents: 555 };
-      expect(Object.keys(readable(ability, 'Build', line, build))).toEqual(fieldByField(ability, 'Build', line, build));
+      expect(Object.entries(readable(ability, 'Build', line, build))).toEqual(fieldByField(ability, 'Build', line, build));
     }
   });
 
@@ -61,5 +61,13 @@ describe('readable', () => {
     expect(readable(owner, 'Build', row)).toHaveProperty('partsCostCents');
     expect(readable(technician, 'Build', row)).not.toHaveProperty('partsCostCents');
     expect(readable(owner, 'Build', row)).toHaveProperty('partsCostCents');
+  });
+
+  it('copies a field named __proto__ as a field, leaving the copy an ordinary object', () => {
+    const owner = createAbility(defineRulesFor({ id: 1, assignments: PEOPLE.owner! }));
+    const row = JSON.parse('{"id": 1, "locationId": 1, "__proto__": null}') as Record<string, unknown>;
+    const copy = readable(owner, 'Customer', row);
+    expect(Object.getPrototypeOf(copy)).toBe(Object.prototype);
+    expect(Object.entries(copy)).toEqual([['id', 1], ['locationId', 1], ['__proto__', null]]);
   });
 });
