@@ -54,7 +54,7 @@ describe('the kept counts of builds', () => {
     );
   }, 60_000);
 
-  it('give every person’s list the number of builds it lists, whether counted from them or from the rows', async () => {
+  it('give every person’s list the number of builds it lists, and the lists narrowed further are counted from their rows alike', async () => {
     const ids = await demoIds(h.db);
     const den = ids.location('DEN');
     const region = (await h.db.selectFrom('locations').select('regionId').where('id', '=', den).executeTakeFirstOrThrow()).regionId;

@@ -8,7 +8,9 @@ import { afterEach, describe, expect, it } from 'vitest';
 import { shapedRows } from '../../db/row-shapes.ts';
 
 const dirs: string[] = [];
-afterEach(() => {
+const connections: Kysely<any>[] = [];
+afterEach(async () => {
+  for (const db of connections.splice(0)) await db.destroy();
   for (const dir of dirs.splice(0)) rmSync(dir, { recursive: true, force: true });
 });
 
@@ -19,6 +21,7 @@ async function twoConnections() {
   const file = join(dir, 'rows.sqlite');
   const db = openDatabase(file) as unknown as Kysely<any>;
   const plain = new Kysely<any>({ dialect: new SqliteDialect({ database: new SQLite(file) }), plugins: [new CamelCasePlugin()] });
+  connections.push(db, plain);
   await db.schema
     .createTable('stockCounts')
     .addColumn('id', 'integer', (c) => c.primaryKey())
