@@ -1,3 +1,4 @@
+import type { Db } from '@busbar/db';
 import { claimQuery } from '@busbar/shared';
 import { sql } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -66,6 +67,21 @@ async function listPlans(scope: 'all' | number[], query: Record<string, string>)
 /** Statements that read a table row by row, not through an index. */
 const tableScans = (plans: string[][]) => plans.flat().filter((line) => /^SCAN (w|i|b|ci)\b/.test(line) && !/USING (COVERING )?INDEX/.test(line));
 
+/** The shops of Denver's region. */
+async function denverRegion(): Promise<number[]> {
+  const { locations } = await demoIds(h.db);
+  const denver = locations.find((l) => l.code === 'DEN')!;
+  return locations.filter((l) => l.regionId === denver.regionId).map((l) => l.id);
+}
+
+/** The ids of a page of the region's claims (failed or logged in `days`, when given) in the queue's order, found by a plain query. */
+function queuePageByHand(db: Db, region: number[], page: { page: number; pageSize: number }, days?: { column: string; from: string; to?: string }) {
+  let claims = db.selectFrom('warrantyClaims').select('id').where('locationId', 'in', region);
+  if (days) claims = claims.where(sql.ref(days.column), '>=', days.from);
+  if (days?.to) claims = claims.where(sql.ref(days.column), '<=', days.to);
+  return claims.orderBy(sql`due_on is null`).orderBy('dueOn').orderBy('id').limit(page.pageSize).offset((page.page - 1) * page.pageSize).execute();
+}
+
 describe('claims list query plans', () => {
   it('has claims to plan for', async () => {
     const { n } = await h.db.selectFrom('warrantyClaims').select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow();
@@ -93,8 +109,7 @@ describe('claims list query plans', () => {
   });
 
   it.each(Object.entries(BY_ITEM))("counts a region's claims of some items from an index alone, never reading each claim for its shop: %s", async (_name, query) => {
-    const ids = await demoIds(h.db);
-    const region = ids.locations.filter((l) => l.regionId === ids.locations.find((m) => m.code === 'DEN')!.regionId).map((l) => l.id);
+    const region = await denverRegion();
     expect(region.length).toBeGreaterThan(1);
     const { plans } = await listPlans(region, query);
     const count = plans.find((lines) => lines.some((line) => line.includes('CO-ROUTINE')))!;
@@ -103,8 +118,7 @@ describe('claims list query plans', () => {
   });
 
   it("counts a region's claims logged in a month by each shop's span of logging days in an index alone, never reading each claim for its shop", async () => {
-    const ids = await demoIds(h.db);
-    const region = ids.locations.filter((l) => l.regionId === ids.locations.find((m) => m.code === 'DEN')!.regionId).map((l) => l.id);
+    const region = await denverRegion();
     const { plans } = await listPlans(region, BY_DAYS['logged in a month']![0]);
     const count = plans.find((lines) => lines.some((line) => line.includes('CO-ROUTINE')))!;
     expect(count.filter((line) => /^SEARCH w\b/.test(line))).toEqual([expect.stringMatching(/^SEARCH w USING COVERING INDEX \w+ \(location_id=\? AND logged_on>\? AND logged_on<\?\)/)]);
@@ -112,30 +126,18 @@ describe('claims list query plans', () => {
   });
 
   it.each(Object.entries(BY_DAYS))("reads a whole region's page of a span of days from its shops' spans in an index alone: %s", async (_name, [query, column]) => {
-    const ids = await demoIds(h.db);
-    const region = ids.locations.filter((l) => l.regionId === ids.locations.find((m) => m.code === 'DEN')!.regionId).map((l) => l.id);
+    const region = await denverRegion();
     const { plans, page } = await listPlans(region, query);
     expect(page.filter((line) => /^(SCAN|SEARCH) w\b/.test(line))).toEqual([expect.stringMatching(new RegExp(`^SEARCH w USING COVERING INDEX \\w+ \\(location_id=\\? AND ${column}>\\? AND ${column}<\\?\\)$`))]);
     expect(tableScans(plans)).toEqual([]);
     const listed = await listClaims(h.db, region, claimQuery.parse(query), AT);
-    const byHand = await h.db
-      .selectFrom('warrantyClaims')
-      .select('id')
-      .where('locationId', 'in', region)
-      .where(sql.ref(column), '>=', Object.values(query)[0]!)
-      .where(sql.ref(column), '<=', Object.values(query)[1]!)
-      .orderBy(sql`due_on is null`)
-      .orderBy('dueOn')
-      .orderBy('id')
-      .limit(listed.pageSize)
-      .execute();
+    const byHand = await queuePageByHand(h.db, region, listed, { column, from: Object.values(query)[0]!, to: Object.values(query)[1]! });
     expect(listed.items.map((c) => c.id)).toEqual(byHand.map((c) => c.id));
     expect(listed.items.length).toBeGreaterThan(0);
   });
 
   it("walks the network's queue order for a region's span of days holding more claims than are worth sorting", async () => {
-    const ids = await demoIds(h.db);
-    const region = ids.locations.filter((l) => l.regionId === ids.locations.find((m) => m.code === 'DEN')!.regionId).map((l) => l.id);
+    const region = await denverRegion();
     const span = claimQuery.parse({ failedFrom: '2024-01-01' });
     const rolledBack = new Error('rolled back');
     await expect(
@@ -150,16 +152,7 @@ describe('claims list query plans', () => {
         const page = plans.filter(readsPage).at(-1)!;
         expect(page.filter((line) => /^(SCAN|SEARCH) w\b/.test(line))).toEqual(['SCAN w USING INDEX warranty_claims_queue_order']);
         const listed = await listClaims(trx, region, span, AT);
-        const byHand = await trx
-          .selectFrom('warrantyClaims')
-          .select('id')
-          .where('locationId', 'in', region)
-          .where('failedOn', '>=', '2024-01-01')
-          .orderBy(sql`due_on is null`)
-          .orderBy('dueOn')
-          .orderBy('id')
-          .limit(listed.pageSize)
-          .execute();
+        const byHand = await queuePageByHand(trx, region, listed, { column: 'failed_on', from: '2024-01-01' });
         expect(listed.items.map((c) => c.id)).toEqual(byHand.map((c) => c.id));
         throw rolledBack;
       }),
@@ -169,24 +162,14 @@ describe('claims list query plans', () => {
   it.each([['the queue', {}], ['a deep page', { page: '4' }]])(
     "walks the network's queue order for a whole region's page instead of sorting all its claims: %s",
     async (_name, query) => {
-      const ids = await demoIds(h.db);
-      const region = ids.locations.filter((l) => l.regionId === ids.locations.find((m) => m.code === 'DEN')!.regionId).map((l) => l.id);
+      const region = await denverRegion();
       const { plans, page } = await listPlans(region, query);
       expect(page).toEqual(['SCAN w USING INDEX warranty_claims_queue_order']);
       // Its count still seeks each shop's claims.
       const count = plans.find((lines) => lines.some((line) => line.includes('CO-ROUTINE')))!;
       expect(count.join('\n')).toMatch(/SEARCH w USING COVERING INDEX \w+ \(location_id=\?\)/);
       const listed = await listClaims(h.db, region, claimQuery.parse(query), AT);
-      const byHand = await h.db
-        .selectFrom('warrantyClaims')
-        .select('id')
-        .where('locationId', 'in', region)
-        .orderBy(sql`due_on is null`)
-        .orderBy('dueOn')
-        .orderBy('id')
-        .limit(listed.pageSize)
-        .offset((listed.page - 1) * listed.pageSize)
-        .execute();
+      const byHand = await queuePageByHand(h.db, region, listed);
       expect(listed.items.map((c) => c.id)).toEqual(byHand.map((c) => c.id));
       expect(listed.items).toHaveLength(listed.pageSize);
     },
