@@ -60,6 +60,7 @@ import * as coverDeliveryDays from './058-cover-delivery-days.ts';
 import * as indexLoggedClaimsByShop from './059-index-logged-claims-by-shop.ts';
 import * as claimDaysWithShop from './060-claim-days-with-shop.ts';
 import * as createBuildCounts from './061-create-build-counts.ts';
+import * as coverSerialsByBuild from './062-cover-serials-by-build.ts';
 
 /** Every migration, in order. A new one is added here by hand: nothing is discovered from the disk. */
 export const migrations: Record<string, Migration> = {
@@ -124,4 +125,5 @@ export const migrations: Record<string, Migration> = {
   '059-index-logged-claims-by-shop': indexLoggedClaimsByShop,
   '060-claim-days-with-shop': claimDaysWithShop,
   '061-create-build-counts': createBuildCounts,
+  '062-cover-serials-by-build': coverSerialsByBuild,
 };

@@ -236,6 +236,30 @@ describe('serial number search', () => {
     }
   }, 60_000);
 
+  it("lists the units by their numbers in any case, as SQLite's NOCASE collation orders them, then by unit", async () => {
+    const units = await h.db
+      .selectFrom('buildItems as i')
+      .innerJoin('builds as b', 'b.id', 'i.buildId')
+      .select('i.id')
+      .where('b.locationId', '=', den)
+      .where('i.serialNumber', 'is not', null)
+      .orderBy('i.id', 'desc')
+      .limit(5)
+      .execute();
+    // Upper and lower case alike, and signs that sort between the cases' letters ("_" after "Z", before "a").
+    const numbers = ['QZV-b200', 'qzv_A100', 'QZVA100', 'qzv.c300', 'QZV-B200'];
+    for (const [i, unit] of units.entries()) await h.db.updateTable('buildItems').set({ serialNumber: numbers[i]! }).where('id', '=', unit.id).execute();
+    const { rows } = await sql<{ serialNumber: string }>`select serial_number as "serialNumber" from build_items where serial_number like '%qzv%' order by serial_number collate nocase, id`.execute(h.db);
+    const sqliteOrder = rows.map((r) => r.serialNumber);
+    // The two of the same number in any case by unit: the last of the five, the older unit, first.
+    expect(sqliteOrder).toEqual(['QZV-B200', 'QZV-b200', 'qzv.c300', 'qzv_A100', 'QZVA100']);
+    for (const agent of [owner, lead]) {
+      const listed: string[] = [];
+      for (let page = 1; page <= 5; page++) listed.push(...((await agent.get('/api/serials').query({ q: 'qzv', page, pageSize: 2 })).body.items as SerialMatch[]).map((m) => m.serialNumber));
+      expect(listed).toEqual(sqliteOrder);
+    }
+  });
+
   it('lists the units of the newest builds of a piece that matches more than 1,000, and says there are more', async () => {
     const { serialNumber } = await h.db.selectFrom('buildItems').select('serialNumber').where('serialNumber', 'is not', null).orderBy('id').limit(1).executeTakeFirstOrThrow();
     const q = serialNumber!.slice(0, 3);

@@ -7,11 +7,12 @@ import { cappedMatches, contains, inPlaces, narrowsByPlace, inShopRange, newestF
 
 /**
  * The newest SEARCH_CAP + 1 installed units whose serial number contains `q` (3 or more characters,
- * any case), in the scope, newest build first. The full-text index over builds finds the builds
- * that hold such a serial as it walks them newest first, so a common piece of a number costs no
- * more than a rare one; LIKE then keeps the units of each build whose own number holds the text.
+ * any case), in the scope, newest build first, with their numbers. The full-text index over builds
+ * finds the builds that hold such a serial as it walks them newest first, so a common piece of a
+ * number costs no more than a rare one; LIKE then keeps the units of each build whose own number
+ * holds the text, read from the index of lines by build (migration 062).
  */
-function newestUnits(db: Db, scope: LocationScope, q: string): Promise<{ id: number }[]> {
+function newestUnits(db: Db, scope: LocationScope, q: string): Promise<Unit[]> {
   if (readsShopRanges(scope)) {
     const ofShop = (locationId: number) =>
       db
@@ -19,7 +20,7 @@ function newestUnits(db: Db, scope: LocationScope, q: string): Promise<{ id: num
         .innerJoin('buildItems as i', (join) => join.on(sql<SqlBool>`i.build_id = ${shopRowId(locationId)}`))
         .where(sql<SqlBool>`s.shop_build_search match ${`serials : ${phrase(q)}`} and ${inShopRange(locationId)}`)
         .where(contains('i.serialNumber', q))
-        .select(['i.id', 'i.buildId'])
+        .select(['i.id', 'i.serialNumber', 'i.buildId'])
         .orderBy(sql`s.rowid`, 'desc')
         .limit(SEARCH_CAP + 1)
         .execute();
@@ -32,7 +33,19 @@ function newestUnits(db: Db, scope: LocationScope, q: string): Promise<{ id: num
     .where(contains('i.serialNumber', q));
   // A good part of the network: its builds come often enough among the newest matches.
   if (scope !== 'all' && !narrowsByPlace(scope)) units = units.innerJoin('builds as b', 'b.id', 's.rowid').where('b.locationId', 'in', scope);
-  return units.select('i.id').orderBy(newestFirst(scope), 'desc').limit(SEARCH_CAP + 1).execute();
+  return units.select(['i.id', 'i.serialNumber']).orderBy(newestFirst(scope), 'desc').limit(SEARCH_CAP + 1).execute();
+}
+
+type Unit = { id: number; serialNumber: string | null };
+
+/**
+ * Units in the order of their serial numbers in any case, as SQLite's NOCASE collation orders
+ * them (ASCII letters as lower case; serial numbers are ASCII), then by id.
+ */
+function bySerialNumber(units: readonly Unit[]): Unit[] {
+  const keyed = units.map((unit) => ({ unit, key: (unit.serialNumber ?? '').toLowerCase() }));
+  keyed.sort((a, b) => (a.key < b.key ? -1 : a.key > b.key ? 1 : a.unit.id - b.unit.id));
+  return keyed.map((k) => k.unit);
 }
 
 /**
@@ -43,17 +56,9 @@ export async function findSerials(db: Db, scope: LocationScope, filter: { q: str
   const { q, page, pageSize } = filter;
   if (scope !== 'all' && scope.length === 0) return { items: [], total: 0, totalCapped: false, page, pageSize };
   const offset = offsetOf(page, pageSize);
-  const { ids, count } = cappedMatches(await newestUnits(db, scope, q));
-  if (ids.length === 0) return { items: [], ...count, page, pageSize };
-  const keys = await db
-    .selectFrom('buildItems as i')
-    .select('i.id')
-    .where('i.id', 'in', ids)
-    .orderBy(sql`${sql.ref('i.serialNumber')} collate nocase`)
-    .orderBy('i.id')
-    .limit(pageSize)
-    .offset(offset)
-    .execute();
+  const newest = await newestUnits(db, scope, q);
+  const { count } = cappedMatches(newest);
+  const keys = bySerialNumber(newest.slice(0, SEARCH_CAP)).slice(offset, offset + pageSize);
   if (keys.length === 0) return { items: [], ...count, page, pageSize };
   const rows = await db
     .selectFrom('buildItems as i')
