@@ -6,6 +6,7 @@ import { get, type IncomingHttpHeaders, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { DEMO_PASSWORD } from '@busbar/db';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { INLINE_MAX_BYTES } from '../../apps/api/src/web/compress.ts';
 import { precompressDir } from '../../scripts/precompress.ts';
 import { startHarness, type Harness } from '../support/api-harness.ts';
 import { SIGN_INS } from '../support/staff-fixtures.ts';
@@ -24,7 +25,8 @@ beforeAll(async () => {
   writeFileSync(join(dist, 'assets', 'small-C4d5E6f7.css'), 'body{margin:0}');
   cpSync('apps/web/public', dist, { recursive: true });
   precompressDir(dist);
-  h = await startHarness({ webDist: dist });
+  // With the demo's history, for an answer larger than what is compressed on the request's thread.
+  h = await startHarness({ webDist: dist }, true, { history: true });
   server = h.app.listen(0, '127.0.0.1');
   await new Promise((resolve) => server.once('listening', resolve));
 });
@@ -122,7 +124,7 @@ describe('the icon', () => {
 });
 
 describe('API answers', () => {
-  it('compresses a large JSON answer with the encoding asked for and leaves a small one alone', async () => {
+  it('compresses a JSON answer with the encoding asked for, a page of 200 builds too, and leaves a small one alone', async () => {
     const signIn = await (await h.agent()).post('/api/session').send({ email: SIGN_INS.owner, password: DEMO_PASSWORD });
     expect(signIn.status).toBe(200);
     const cookie = ([] as string[]).concat(signIn.headers['set-cookie'] ?? []).map((c) => c.split(';')[0]).join('; ');
@@ -138,6 +140,16 @@ describe('API answers', () => {
 
     const gz = await raw('/api/staff', 'gzip', cookie);
     expect(JSON.parse(gunzipSync(gz.body).toString())).toEqual(people);
+
+    // A page of 200 builds is larger than what is compressed on the request's thread: zlib's pool does it, as well.
+    const plain = await raw('/api/builds?pageSize=200', 'identity', cookie);
+    expect(plain.body.length).toBeGreaterThan(INLINE_MAX_BYTES);
+    for (const [encoding, decode] of [['br', brotliDecompressSync], ['gzip', gunzipSync]] as const) {
+      const large = await raw('/api/builds?pageSize=200', encoding, cookie);
+      expect(large.headers['content-encoding']).toBe(encoding);
+      expect(large.body.length).toBeLessThan(plain.body.length / 4);
+      expect(decode(large.body).toString()).toBe(plain.body.toString());
+    }
 
     const small = await raw('/api/health', 'br');
     expect(small.headers['content-encoding']).toBeUndefined();
