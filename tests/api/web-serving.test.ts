@@ -136,6 +136,8 @@ describe('API answers', () => {
     expect(staff.headers['cache-control']).toBe('no-store');
     expect((await raw('/api/staff')).headers['cache-control']).toBe('no-store');
     const people = JSON.parse(brotliDecompressSync(staff.body).toString());
+    // Compressed on the request's thread.
+    expect(brotliDecompressSync(staff.body).length).toBeLessThanOrEqual(INLINE_MAX_BYTES);
     expect(people.items.length).toBeGreaterThan(10);
 
     const gz = await raw('/api/staff', 'gzip', cookie);
