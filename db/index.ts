@@ -1,5 +1,6 @@
 export { openDatabase, migrateToLatest, type Db, type MigrationStep } from './connect.ts';
 export type { Database } from './schema/index.ts';
+export { compiledLiteral } from './row-shapes.ts';
 export { seedDemoNetwork, DEMO_PASSWORD } from './demo/generate.ts';
 export { seedNetwork, type NetworkCounts } from './demo/network-history.ts';
 export { demoEvidenceKinds } from './demo/claims-evidence.ts';

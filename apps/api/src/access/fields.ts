@@ -1,5 +1,6 @@
 import { subject } from '@casl/ability';
 import { permittedFieldsOf } from '@casl/ability/extra';
+import { compiledLiteral } from '@busbar/db';
 import type { AppAbility, Subject } from '@busbar/shared';
 
 /** A copy of a row with only the fields the person may read. */
@@ -54,9 +55,7 @@ function pickerFor(ability: AppAbility, type: Exclude<Subject, 'all'>, keys: str
   const found = known?.find((answer) => answer.keys.length === keys.length && answer.keys.every((k, i) => k === keys[i]));
   if (found) return found.pick;
   const fields = new Set(permittedFieldsOf(ability, 'read', subject(type, { ...scope }), { fieldsFrom: (rule) => rule.fields ?? keys }));
-  // Computed keys: a plain `__proto__` key in a literal would set the prototype, not a property.
-  const copied = keys.filter((k) => fields.has(k)).map((k) => `[${JSON.stringify(k)}]: r[${JSON.stringify(k)}]`);
-  const pick = new Function('r', `return { ${copied.join(', ')} };`) as Picker;
+  const pick = compiledLiteral<object, object>(keys.filter((k) => fields.has(k)), (k) => `a[${JSON.stringify(k)}]`);
   if (!known) {
     if (answers.allowed.size >= ANSWERS_KEPT) for (const old of [...answers.allowed.keys()].slice(0, ANSWERS_KEPT / 2)) answers.allowed.delete(old);
     answers.allowed.set(key, (known = []));
