@@ -6,7 +6,8 @@ import { get, type IncomingHttpHeaders, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { DEMO_PASSWORD } from '@busbar/db';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { INLINE_MAX_BYTES } from '../../apps/api/src/web/compress.ts';
+import { utf8Of } from '../../apps/api/src/utf8.ts';
+import { encodedJson, INLINE_MAX_BYTES } from '../../apps/api/src/web/compress.ts';
 import { precompressDir } from '../../scripts/precompress.ts';
 import { startHarness, type Harness } from '../support/api-harness.ts';
 import { SIGN_INS } from '../support/staff-fixtures.ts';
@@ -123,11 +124,17 @@ describe('the icon', () => {
   });
 });
 
+async function ownerCookie(): Promise<string> {
+  const signIn = await (await h.agent()).post('/api/session').send({ email: SIGN_INS.owner, password: DEMO_PASSWORD });
+  expect(signIn.status).toBe(200);
+  return ([] as string[]).concat(signIn.headers['set-cookie'] ?? []).map((c) => c.split(';')[0]).join('; ');
+}
+
+const DECODERS = [['br', brotliDecompressSync], ['gzip', gunzipSync]] as const;
+
 describe('API answers', () => {
   it('compresses a JSON answer with the encoding asked for, a page of 200 builds too, and leaves a small one alone', async () => {
-    const signIn = await (await h.agent()).post('/api/session').send({ email: SIGN_INS.owner, password: DEMO_PASSWORD });
-    expect(signIn.status).toBe(200);
-    const cookie = ([] as string[]).concat(signIn.headers['set-cookie'] ?? []).map((c) => c.split(';')[0]).join('; ');
+    const cookie = await ownerCookie();
     const staff = await raw('/api/staff', 'br', cookie);
     expect(staff.status).toBe(200);
     expect(staff.headers['content-encoding']).toBe('br');
@@ -146,7 +153,7 @@ describe('API answers', () => {
     // A page of 200 builds is larger than what is compressed on the request's thread: zlib's pool does it, as well.
     const plain = await raw('/api/builds?pageSize=200', 'identity', cookie);
     expect(plain.body.length).toBeGreaterThan(INLINE_MAX_BYTES);
-    for (const [encoding, decode] of [['br', brotliDecompressSync], ['gzip', gunzipSync]] as const) {
+    for (const [encoding, decode] of DECODERS) {
       const large = await raw('/api/builds?pageSize=200', encoding, cookie);
       expect(large.headers['content-encoding']).toBe(encoding);
       expect(large.body.length).toBeLessThan(plain.body.length / 4);
@@ -156,5 +163,36 @@ describe('API answers', () => {
     const small = await raw('/api/health', 'br');
     expect(small.headers['content-encoding']).toBeUndefined();
     expect(JSON.parse(small.body.toString())).toBeTruthy();
+  });
+
+  it("sends the background thread's answers, compressed there, with the encoding asked for", async () => {
+    const cookie = await ownerCookie();
+    for (const path of ['/api/rollups?from=2025-01-01&to=2025-12-31&grain=month', '/api/reliability/category/house_battery', '/api/reliability']) {
+      const plain = await raw(path, 'identity', cookie);
+      expect(plain.status).toBe(200);
+      expect(plain.headers['content-encoding']).toBeUndefined();
+      expect(JSON.parse(plain.body.toString())).toBeTruthy();
+      for (const [encoding, decode] of DECODERS) {
+        const packed = await raw(path, encoding, cookie);
+        expect(packed.headers['content-encoding']).toBe(encoding);
+        expect(packed.headers['content-type']).toMatch(/application\/json/);
+        expect(packed.headers['vary']).toMatch(/Accept-Encoding/i);
+        expect(packed.body.length).toBeLessThan(plain.body.length / 2);
+        expect(decode(packed.body).toString()).toBe(plain.body.toString());
+      }
+    }
+  });
+
+  it('leaves bytes too small to gain, or for a client that accepts no encoding, as they are, in memory a thread can hand over', () => {
+    const json = utf8Of([JSON.stringify({ rows: Array.from({ length: 200 }, (_, i) => ({ id: i, name: `Shop ${i}` })) })]);
+    const small = utf8Of(['{"rows":[]}']);
+    expect(encodedJson(small, 'br')).toEqual({ body: small, encoding: null });
+    expect(encodedJson(json, null)).toEqual({ body: json, encoding: null });
+    const packed = encodedJson(json, 'gzip');
+    expect(packed.encoding).toBe('gzip');
+    expect(gunzipSync(packed.body).toString()).toBe(Buffer.from(json).toString());
+    // Its own memory: a slice of Node's shared pool cannot be handed to another thread.
+    expect(packed.body.byteOffset).toBe(0);
+    expect(packed.body.buffer.byteLength).toBe(packed.body.byteLength);
   });
 });

@@ -10,6 +10,8 @@ import { viewerOf } from '../middleware/session.ts';
 import { validate } from '../middleware/validate.ts';
 import type { NamedLocation } from '../reliability/funnel.ts';
 import { background } from '../threads/background.ts';
+import { sendEncodedJson } from '../web/compress.ts';
+import { acceptedEncoding } from '../web/encoding.ts';
 
 /**
  * Component reliability in the person's locations (a lead's shop, a regional manager's region, or
@@ -26,7 +28,8 @@ export function reliabilityRouter({ db, config, now }: AppContext): Router {
     '/',
     validate({ query: reliabilityQuery }, async ({ query }, req, res) => {
       const { today, todayDay } = clock();
-      res.type('json').send(await background.run('reliabilityListOf', config.databaseFile, chosenLocations(viewerOf(req), query.locationIds), query, today, todayDay));
+      const selected = chosenLocations(viewerOf(req), query.locationIds);
+      sendEncodedJson(res, await background.run('reliabilityListOf', config.databaseFile, acceptedEncoding(req), selected, query, today, todayDay));
     }),
   );
 
@@ -37,7 +40,7 @@ export function reliabilityRouter({ db, config, now }: AppContext): Router {
       const selected = chosenLocations(viewer, query.locationIds);
       const { today, todayDay } = clock();
       const named = await namedLocations(db, locationScope(viewer, 'read', 'Reliability'));
-      res.type('json').send(await background.run('reliabilityDetailOf', config.databaseFile, params, selected, named, query, today, todayDay));
+      sendEncodedJson(res, await background.run('reliabilityDetailOf', config.databaseFile, acceptedEncoding(req), params, selected, named, query, today, todayDay));
     }),
   );
   return router;

@@ -8,6 +8,8 @@ import { validate } from '../middleware/validate.ts';
 import { compareLocations } from '../queries/rollups-compare.ts';
 import { moneyScopes } from '../queries/rollups-report.ts';
 import { background } from '../threads/background.ts';
+import { sendEncodedJson } from '../web/compress.ts';
+import { acceptedEncoding } from '../web/encoding.ts';
 
 /**
  * Roll-ups of the person's locations by day, week, month, quarter or year, each period beside the
@@ -23,7 +25,7 @@ export function rollupsRouter({ db, config }: AppContext): Router {
     validate({ query: rollupPageQuery }, async ({ query: { page, pageSize, ...query } }, req, res) => {
       const viewer = viewerOf(req);
       const scope = reportScope(viewer, query);
-      res.type('json').send(await background.run('rollupReportOf', config.databaseFile, query, scope, moneyScopes(viewer), { page, pageSize }));
+      sendEncodedJson(res, await background.run('rollupReportOf', config.databaseFile, acceptedEncoding(req), query, scope, moneyScopes(viewer), { page, pageSize }));
     }),
   );
 

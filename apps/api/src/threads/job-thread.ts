@@ -54,7 +54,7 @@ export class JobThread<J extends Jobs> {
     started.on('message', (answer: Answer) => {
       const job = this.waiting.get(answer.id);
       this.waiting.delete(answer.id);
-      if ('result' in answer) job?.resolve(answer.result instanceof Uint8Array ? asBuffer(answer.result) : answer.result);
+      if ('result' in answer) job?.resolve(answer.result);
       else job?.reject(rebuilt(answer.error));
     });
     const fail = (error: Error) => {
@@ -68,9 +68,6 @@ export class JobThread<J extends Jobs> {
     return started;
   }
 }
-
-/** Bytes handed over from the thread arrive as a plain Uint8Array; as a Buffer (no copy) `res.send` sends them as they are. */
-const asBuffer = (bytes: Uint8Array) => Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
 
 /** The error the job threw, as the error middleware expects it (an HttpError keeps its status and fields). */
 function rebuilt(failure: JobFailure): Error {
