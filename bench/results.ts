@@ -2,7 +2,7 @@ import { writeFileSync } from 'node:fs';
 import { cpus, loadavg, totalmem } from 'node:os';
 import type { DrawnScreens } from './browser.ts';
 import type { ContentionFigures } from './contention.ts';
-import { LOAD_WARM_UP_SECONDS, type LoadFigures } from './load.ts';
+import { LOAD_RUNS, LOAD_WARM_UP_SECONDS, type RepeatedLoad } from './load.ts';
 import type { DataSize } from './network-data.ts';
 import type { PeakMemory } from './server.ts';
 import { SCREENS, type ScreenFigure } from './screens.ts';
@@ -16,7 +16,7 @@ export type Who = (typeof PEOPLE)[number];
 export interface SizeRun {
   size: DataSize;
   screens: Record<Who, Map<string, ScreenFigure>>;
-  load: LoadFigures;
+  load: RepeatedLoad;
   contention: ContentionFigures;
   memory: PeakMemory;
   drawn: DrawnScreens;
@@ -56,8 +56,11 @@ const sizeLine = ({ size }: ScreensRun) =>
   `${size.label}: ${size.locations} locations, ${size.builds.toLocaleString('en-US')} builds, ${size.buildItems.toLocaleString('en-US')} build lines, ${size.claims.toLocaleString('en-US')} warranty claims, ${size.auditRows.toLocaleString('en-US')} audit rows, ${size.finalMonths.toLocaleString('en-US')} months final` +
   (size.generatedSeconds === null ? '' : ` (generated in ${Math.round(size.generatedSeconds)} s)`);
 
+/** Each run's req/s, in the order run. */
+export const perSecondOfRuns = (load: RepeatedLoad) => load.perSecondOfRuns.map((perSecond) => perSecond.toFixed(0)).join(', ');
+
 const otherRows = (run: SizeRun) => [
-  `| ${run.size.label} | ${run.load.perSecond.toFixed(0)} req/s, ${run.load.errors} errors of ${run.load.requests} (${run.load.writes} writes), p95 ${ms(run.load.latency.p95)} ms | ${ms(run.contention.leadDetail.p95)} ms (p50 ${ms(run.contention.leadDetail.p50)}, ${run.contention.leadDetail.count} requests; the lead's saves meanwhile p95 ${ms(run.contention.leadWrites.p95)} ms, max ${ms(run.contention.leadWrites.max)} ms of ${run.contention.leadWrites.count}; import of ${run.contention.importRows} rows answered ${run.contention.importStatus} in ${ms(run.contention.importMs)} ms, ${run.contention.ownerRequests} owner list requests meanwhile) | ${run.memory.largestMiB.toFixed(0)} MiB (${run.memory.processes} processes: ${run.memory.totalMiB.toFixed(0)} MiB) |`,
+  `| ${run.size.label} | ${run.load.perSecond.toFixed(0)} req/s (runs: ${perSecondOfRuns(run.load)}), ${run.load.errors} errors in all, ${run.load.requests} requests (${run.load.writes} writes), p95 ${ms(run.load.latency.p95)} ms | ${ms(run.contention.leadDetail.p95)} ms (p50 ${ms(run.contention.leadDetail.p50)}, ${run.contention.leadDetail.count} requests; the lead's saves meanwhile p95 ${ms(run.contention.leadWrites.p95)} ms, max ${ms(run.contention.leadWrites.max)} ms of ${run.contention.leadWrites.count}; import of ${run.contention.importRows} rows answered ${run.contention.importStatus} in ${ms(run.contention.importMs)} ms, ${run.contention.ownerRequests} owner list requests meanwhile) | ${run.memory.largestMiB.toFixed(0)} MiB (${run.memory.processes} processes: ${run.memory.totalMiB.toFixed(0)} MiB) |`,
 ];
 
 /** The figures as Markdown, with the machine and the date they were taken on, and `summary` above the tables. */
@@ -78,7 +81,7 @@ export function report(demo: SizeRun, shorter: ScreensRun, network: SizeRun, sam
     `Each screen's API request through HTTP with a signed-in person, after 5 warm-up requests, ${samples} timed requests one after another (ms to the last byte, brotli as a browser asks); the three sizes' apps run side by side and take turns of 20 requests (after one untimed), so that a change in the machine's speed meanwhile falls on all three alike. A regional manager and a lead read no audit log: (403). Where a list's page at the demo's size held fewer rows, the network's list is timed once more with pages of that many rows. The last column times each screen on a network of the demo's shops with the network's years of history: the network's ratio to it is what more shops cost, without more years.`,
     '',
     ...PEOPLE.flatMap((who) => [...screenTable(demo, shorter, network, who), '']),
-    `| data | ${demo.load.connections} connections, reads and writes, ${demo.load.seconds.toFixed(0)} s (after ${LOAD_WARM_UP_SECONDS} s untimed) | a lead's build detail p95 while the owner imports and reads big lists, and the lead's saves | peak RSS of the largest app process (of all together) |`,
+    `| data | ${demo.load.connections} connections, reads and writes, ${demo.load.seconds.toFixed(0)} s (after ${LOAD_WARM_UP_SECONDS} s untimed), the median of ${LOAD_RUNS} runs | a lead's build detail p95 while the owner imports and reads big lists, and the lead's saves | peak RSS of the largest app process (of all together) |`,
     '|---|---|---|---|',
     ...otherRows(demo),
     ...otherRows(network),
