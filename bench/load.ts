@@ -16,8 +16,8 @@ export const LOAD_WARM_UP_SECONDS = 3;
 
 /**
  * Runs of the load at each size. On this shared 2-core machine one run of 10 s on 200 shops gave
- * 477 req/s in a bench run and 560–696 in five runs a quarter of an hour later, the code unchanged:
- * the median run stands for the size, and every run's figure is listed beside it.
+ * 477 req/s in a bench run and 560–696 in seven runs within the next quarter of an hour, the code
+ * unchanged: the median run stands for the size, and every run's figure is listed beside it.
  */
 export const LOAD_RUNS = 3;
 

@@ -165,7 +165,7 @@ describe('API answers', () => {
     expect(JSON.parse(small.body.toString())).toBeTruthy();
   });
 
-  it("sends the background thread's answers, compressed there, with the encoding asked for", async () => {
+  it("sends the background thread's answers (roll-ups, reliability) with the encoding asked for, or none", async () => {
     const cookie = await ownerCookie();
     for (const path of ['/api/rollups?from=2025-01-01&to=2025-12-31&grain=month', '/api/reliability/category/house_battery', '/api/reliability']) {
       const plain = await raw(path, 'identity', cookie);
