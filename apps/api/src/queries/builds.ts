@@ -101,7 +101,8 @@ function newestMatches(filtered: ReturnType<typeof filteredBuilds>, scope: Locat
 async function matchingBuilds(db: Db, scope: LocationScope, query: BuildQuery): Promise<{ matching: ReturnType<typeof filteredBuilds>; count: Count }> {
   const filtered = filteredBuilds(db, scope, query);
   if (query.q && isIndexable(query.q)) {
-    const { ids, count } = cappedMatches(await newestMatches(filtered, scope, query.q, statusesOf(query)));
+    const { kept, count } = cappedMatches(await newestMatches(filtered, scope, query.q, statusesOf(query)));
+    const ids = kept.map((row) => row.id);
     return { matching: db.selectFrom('builds as b').where((eb) => (ids.length === 0 ? eb.lit(false) : eb('b.id', 'in', ids))), count };
   }
   if (countedByShopAndStatus(query)) return { matching: filtered, count: await keptBuildCount(db, scope, statusesOf(query)) };

@@ -84,7 +84,8 @@ async function matchingCustomers(db: Db, filter: CustomerFilter): Promise<{ matc
         .orderBy(newestFirst(scope), 'desc')
         .limit(SEARCH_CAP + 1)
         .execute();
-  const { ids, count } = cappedMatches(newest);
+  const { kept, count } = cappedMatches(newest);
+  const ids = kept.map((row) => row.id);
   return { matching: () => db.selectFrom('customers').where((eb) => (ids.length === 0 ? eb.lit(false) : eb('id', 'in', ids))), count };
 }
 

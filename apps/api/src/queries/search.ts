@@ -77,12 +77,12 @@ export async function newestOfShops<T>(shops: readonly number[], rowsOf: (locati
 export const newestFirst = (scope: LocationScope): RawBuilder<number> => (narrowsByPlace(scope) ? sql<number>`+s.rowid` : sql<number>`s.rowid`);
 
 /**
- * A list's ids and count from the newest SEARCH_CAP + 1 matches of a search, read once: the list
- * is the newest SEARCH_CAP, and one more than that tells the count there are more.
+ * A list's matches and count from the newest SEARCH_CAP + 1 matches of a search, read once: the
+ * list is the newest SEARCH_CAP, and one more than that tells the count there are more.
  */
-export function cappedMatches(newest: readonly { id: number }[]): { ids: number[]; count: Count } {
-  const ids = newest.slice(0, SEARCH_CAP).map((row) => row.id);
-  return { ids, count: { total: ids.length, totalCapped: newest.length > SEARCH_CAP } };
+export function cappedMatches<R>(newest: readonly R[]): { kept: R[]; count: Count } {
+  const kept = newest.slice(0, SEARCH_CAP);
+  return { kept, count: { total: kept.length, totalCapped: newest.length > SEARCH_CAP } };
 }
 
 /**

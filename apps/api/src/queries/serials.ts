@@ -56,9 +56,8 @@ export async function findSerials(db: Db, scope: LocationScope, filter: { q: str
   const { q, page, pageSize } = filter;
   if (scope !== 'all' && scope.length === 0) return { items: [], total: 0, totalCapped: false, page, pageSize };
   const offset = offsetOf(page, pageSize);
-  const newest = await newestUnits(db, scope, q);
-  const { count } = cappedMatches(newest);
-  const keys = bySerialNumber(newest.slice(0, SEARCH_CAP)).slice(offset, offset + pageSize);
+  const { kept, count } = cappedMatches(await newestUnits(db, scope, q));
+  const keys = bySerialNumber(kept).slice(offset, offset + pageSize);
   if (keys.length === 0) return { items: [], ...count, page, pageSize };
   const rows = await db
     .selectFrom('buildItems as i')
