@@ -83,7 +83,14 @@ export async function startE2e(demo: { history?: boolean } = {}): Promise<E2e> {
     },
     async signIn(page, email, password = DEMO_PASSWORD) {
       await page.goto('/sign-in');
-      await page.getByLabel('E-mail').fill(email);
+      await page
+        .getByLabel('E-mail')
+        .fill(email)
+        .catch(async (error: Error) => {
+          // What the page showed instead of the form says why (a rare failure under a loaded machine).
+          const shown = await page.evaluate(() => document.body.innerText.slice(0, 400)).catch(() => '(page unreadable)');
+          throw new Error(`${error.message}\nThe page at ${page.url()} showed: ${JSON.stringify(shown)}`, { cause: error });
+        });
       await page.getByLabel('Password').fill(password);
       await page.getByRole('button', { name: 'Sign in' }).click();
       await page.getByRole('button', { name: 'Sign out' }).waitFor();
