@@ -67,7 +67,7 @@ describe('reliability query plans', () => {
     expect(plans).not.toMatch(/SCAN x\b/);
     expect(await tablesOf(list(region.slice(1)))).toEqual(['catalog_items', 'vendors', 'locations', 'unit_exposure', 'unit_exposure_network']);
     const category = (db: typeof h.db) =>
-      reliabilityDetail(db, { groupBy: 'category', key: 'house_battery' }, region, new Map(), {}, TODAY.today, TODAY.todayDay);
+      reliabilityDetail(db, { groupBy: 'category', key: 'house_battery' }, region, [], {}, TODAY.today, TODAY.todayDay);
     const read = await tablesOf(category);
     expect(read).toEqual(expect.arrayContaining(['unit_exposure_region', 'unit_exposure_bands_region', 'unit_failure_ages_region', 'unit_failure_kinds_region']));
     expect(read).not.toContain('unit_exposure_bands');
@@ -75,7 +75,7 @@ describe('reliability query plans', () => {
 
   it("one item's view reads its sums and kept failure counts by item, never a shop's cells", async () => {
     const item = await h.db.selectFrom('catalogItems').select('id').where('sku', '=', 'TDW-DC40').executeTakeFirstOrThrow();
-    const run = (db: typeof h.db) => reliabilityDetail(db, { groupBy: 'item', key: item.id }, 'all', new Map(), {}, TODAY.today, TODAY.todayDay);
+    const run = (db: typeof h.db) => reliabilityDetail(db, { groupBy: 'item', key: item.id }, 'all', [], {}, TODAY.today, TODAY.todayDay);
     const plans = planText(await plansOf(h.db, run));
     // The months (the network's sums, whose total is the figures), the failure ages and kinds (kept
     // counts), the funnel (each shop's lifetime sums) and the margin bands of planned builds.
@@ -89,7 +89,7 @@ describe('reliability query plans', () => {
 
   it("a shop's category seeks the shop's failures of its items; asked for months, the funnel's workmanship claims are sought by item", async () => {
     const category = (query: { from?: string; to?: string }) => (db: typeof h.db) =>
-      reliabilityDetail(db, { groupBy: 'category', key: 'house_battery' }, [ids.location('DEN')], new Map(), query, TODAY.today, TODAY.todayDay);
+      reliabilityDetail(db, { groupBy: 'category', key: 'house_battery' }, [ids.location('DEN')], [], query, TODAY.today, TODAY.todayDay);
     const readsOf = async (query: { from?: string; to?: string }) => (await plansOf(h.db, category(query))).flat().filter((line) => /^(SEARCH|SCAN) unit_failures\b/.test(line));
     // The failure ages (on 200 shops the claim shares too: on the demo's 8 the item's index is as good).
     const reads = await readsOf({});
@@ -104,7 +104,7 @@ describe('reliability query plans', () => {
   });
 
   it("a category's funnel reads each shop's lifetime sums and workmanship claims, and its failure ages and kinds the kept counts", async () => {
-    const run = (db: typeof h.db) => reliabilityDetail(db, { groupBy: 'category', key: 'house_battery' }, 'all', new Map(), {}, TODAY.today, TODAY.todayDay);
+    const run = (db: typeof h.db) => reliabilityDetail(db, { groupBy: 'category', key: 'house_battery' }, 'all', [], {}, TODAY.today, TODAY.todayDay);
     const tables = await tablesOf(run);
     expect(tables).toEqual(expect.arrayContaining(['unit_exposure_lifetime', 'unit_failure_ages_network', 'unit_failure_kinds_network', 'unit_failure_workmanship']));
     expect(tables).not.toContain('unit_exposure');

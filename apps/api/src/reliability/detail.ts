@@ -19,14 +19,14 @@ import { observationsOf, survivalCurve, weibullOf } from './survival.ts';
 
 /**
  * One item, category or vendor: its figures at the chosen locations beside the network's, the
- * survival curve and Weibull fit of those units, how they failed, every location on the funnel,
- * and the failure rate by design-margin band.
+ * survival curve and Weibull fit of those units, how they failed, every location on the funnel
+ * (named where the person may see it: `visible`), and the failure rate by design-margin band.
  */
 export async function reliabilityDetail(
   db: Db,
   params: ReliabilityDetailParams,
   selected: LocationScope,
-  named: Map<number, NamedLocation>,
+  visible: LocationScope,
   query: ReliabilityDetailQuery,
   today: string,
   todayDay: number,
@@ -57,9 +57,17 @@ export async function reliabilityDetail(
     ...weibullOf(observations),
     failureModes: claimsOf('failureMode', FAILURE_MODES).map(({ value, claims }) => ({ mode: value, claims })),
     coverages: claimsOf('coverage', COVERAGES).map(({ value, claims }) => ({ coverage: value, claims })),
-    funnel: funnelOf(await serviceByLocation(db, { ...filter, scope: 'all' }, today), await workmanshipClaims(db, { ...failures, scope: 'all' }), named, todayDay),
+    funnel: funnelOf(await serviceByLocation(db, { ...filter, scope: 'all' }, today), await workmanshipClaims(db, { ...failures, scope: 'all' }), await namedLocations(db, visible), todayDay),
     ...(await marginsOf(db, filter, today, todayDay)),
   };
+}
+
+/** The code and name of each location the person may see, by id. */
+async function namedLocations(db: Db, scope: LocationScope): Promise<Map<number, NamedLocation>> {
+  if (scope !== 'all' && scope.length === 0) return new Map();
+  let query = db.selectFrom('locations').select(['id', 'code', 'name']);
+  if (scope !== 'all') query = query.where('id', 'in', scope);
+  return new Map((await query.execute()).map((l) => [l.id, l]));
 }
 
 async function marginsOf(db: Db, filter: UnitFilter, today: string, todayDay: number): Promise<Pick<ReliabilityDetail, 'margins' | 'plannedUnits'>> {

@@ -1,5 +1,4 @@
 import { DAY_MS, isoDay } from '@busbar/calc';
-import type { Db } from '@busbar/db';
 import { reliabilityDetailParams, reliabilityDetailQuery, reliabilityQuery } from '@busbar/shared';
 import { Router } from 'express';
 import { locationScope, type LocationScope } from '../access/locations.ts';
@@ -8,7 +7,6 @@ import type { AppContext } from '../context.ts';
 import { forbidden, notFound } from '../errors.ts';
 import { viewerOf } from '../middleware/session.ts';
 import { validate } from '../middleware/validate.ts';
-import type { NamedLocation } from '../reliability/funnel.ts';
 import { background } from '../threads/background.ts';
 import { sendEncodedJson } from '../web/compress.ts';
 import { acceptedEncoding } from '../web/encoding.ts';
@@ -17,7 +15,7 @@ import { acceptedEncoding } from '../web/encoding.ts';
  * Component reliability in the person's locations (a lead's shop, a regional manager's region, or
  * the network), each compared with the whole network without naming shops they may not see.
  */
-export function reliabilityRouter({ db, config, now }: AppContext): Router {
+export function reliabilityRouter({ config, now }: AppContext): Router {
   const router = Router();
   const clock = () => {
     const todayDay = Math.floor(now().getTime() / DAY_MS);
@@ -39,8 +37,8 @@ export function reliabilityRouter({ db, config, now }: AppContext): Router {
       const viewer = viewerOf(req);
       const selected = chosenLocations(viewer, query.locationIds);
       const { today, todayDay } = clock();
-      const named = await namedLocations(db, locationScope(viewer, 'read', 'Reliability'));
-      sendEncodedJson(res, await background.run('reliabilityDetailOf', config.databaseFile, acceptedEncoding(req), params, selected, named, query, today, todayDay));
+      const visible = locationScope(viewer, 'read', 'Reliability');
+      sendEncodedJson(res, await background.run('reliabilityDetailOf', config.databaseFile, acceptedEncoding(req), params, selected, visible, query, today, todayDay));
     }),
   );
   return router;
@@ -53,10 +51,4 @@ function chosenLocations(viewer: Viewer, asked: number[] | undefined): LocationS
   if (!asked || asked.length === 0) return scope;
   if (scope !== 'all' && asked.some((id) => !scope.includes(id))) throw notFound('location');
   return asked;
-}
-
-async function namedLocations(db: Db, scope: LocationScope): Promise<Map<number, NamedLocation>> {
-  let query = db.selectFrom('locations').select(['id', 'code', 'name']);
-  if (scope !== 'all') query = query.where('id', 'in', scope);
-  return new Map((await query.execute()).map((l) => [l.id, l]));
 }
