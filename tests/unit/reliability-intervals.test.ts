@@ -166,4 +166,16 @@ describe('funnelSide', () => {
       runs,
     );
   });
+
+  it('nests the funnels: a count within the 95 % limits is within the 99.8 %, and one outside the 99.8 % is outside the 95 % on the same side', () => {
+    fc.assert(
+      fc.property(fc.double({ min: 0.01, max: 2_000, noNaN: true }), fc.double({ min: -6, max: 6, noNaN: true }), (expected, spread) => {
+        const events = Math.max(0, Math.round(expected + spread * Math.sqrt(expected)));
+        const [warn, alarm] = [funnelSide(events, expected, { confidence: 0.95 }), funnelSide(events, expected, { confidence: 0.998 })];
+        if (warn === 'within') expect(alarm).toBe('within');
+        if (alarm !== 'within') expect(warn).toBe(alarm);
+      }),
+      runs,
+    );
+  });
 });
