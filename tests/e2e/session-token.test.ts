@@ -30,3 +30,18 @@ describe('the forgery-protection token follows the session', () => {
     await lead.context().close();
   });
 });
+
+describe("the end-to-end harness's reused browser contexts", () => {
+  it('open signed out even when the last page closed with answers on their way, which renew the session cookie', async () => {
+    for (const email of ['lead@demo.busbar.test', 'regional@demo.busbar.test', 'lead@demo.busbar.test', 'regional@demo.busbar.test', 'lead@demo.busbar.test', 'regional@demo.busbar.test']) {
+      const page = await e2e.newPage();
+      await page.goto('/sign-in');
+      // A person still signed in is sent on from the sign-in page to their home.
+      await page.getByLabel('E-mail').or(page.getByRole('button', { name: 'Sign out' })).waitFor();
+      expect(new URL(page.url()).pathname).toBe('/sign-in');
+      await e2e.signIn(page, email);
+      void page.evaluate(() => Array.from({ length: 20 }, () => fetch('/api/session')));
+      await page.context().close();
+    }
+  });
+});

@@ -2,6 +2,7 @@ import { createServer, type Server } from 'node:http';
 import { resolve } from 'node:path';
 import { chromium, type Browser, type BrowserContext, type Locator, type Page } from 'playwright-core';
 import { DEMO_PASSWORD } from '@busbar/db';
+import { SESSION_COOKIE } from '../../apps/api/src/routes/session.ts';
 import { startHarness, type Harness } from './api-harness.ts';
 
 export interface E2e {
@@ -17,6 +18,12 @@ export interface E2e {
   signIn(page: Page, email: string, password?: string): Promise<void>;
   close(): Promise<void>;
 }
+
+/** The session id in a session cookie's value: `s:` + id + `.` + signature, URL-encoded (express-session). */
+const sessionIdOf = (value: string) => {
+  const signed = decodeURIComponent(value);
+  return signed.slice(2, signed.lastIndexOf('.'));
+};
 
 function freePort(): Promise<number> {
   return new Promise((done, fail) => {
@@ -57,7 +64,10 @@ export async function startE2e(demo: { history?: boolean } = {}): Promise<E2e> {
   const emptied: BrowserContext[] = [];
   /**
    * Closing the context empties it instead: cookies and the app's local storage cleared, every page
-   * closed but a blank one, which keeps the context's compiled code alive for its next page.
+   * closed but a blank one, which keeps the context's compiled code alive for its next page. The app
+   * renews the session cookie with every answer, and the browser still takes the cookie of an answer
+   * to a page closed while the request was on its way, after the cookies were cleared: so the
+   * session is also ended on the server, as if it had expired, and its cookie stands for nothing.
    */
   const reusable = async (context: BrowserContext) => {
     const blank = await context.newPage();
@@ -67,6 +77,8 @@ export async function startE2e(demo: { history?: boolean } = {}): Promise<E2e> {
       // Without a page on the app's address its storage cannot be reached: then it closes for good.
       if (!app || !(await app.evaluate(() => localStorage.clear()).then(() => true, () => false))) return close(options);
       for (const page of context.pages()) if (page !== blank) await page.close();
+      const session = (await context.cookies()).find((cookie) => cookie.name === SESSION_COOKIE);
+      if (session) await harness.db.deleteFrom('sessions').where('sid', '=', sessionIdOf(session.value)).execute();
       await context.clearCookies();
       emptied.push(context);
     };
@@ -78,7 +90,10 @@ export async function startE2e(demo: { history?: boolean } = {}): Promise<E2e> {
     harness,
     browser,
     async newPage() {
-      const context = emptied.pop() ?? (await reusable(await browser.newContext({ baseURL: baseUrl, viewport: { width: 1280, height: 800 } })));
+      const reused = emptied.pop();
+      // Cleared again of what the last answers set after their pages closed (see reusable).
+      await reused?.clearCookies();
+      const context = reused ?? (await reusable(await browser.newContext({ baseURL: baseUrl, viewport: { width: 1280, height: 800 } })));
       return context.newPage();
     },
     async signIn(page, email, password = DEMO_PASSWORD) {
