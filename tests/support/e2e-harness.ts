@@ -102,7 +102,7 @@ export async function startE2e(demo: { history?: boolean } = {}): Promise<E2e> {
         .getByLabel('E-mail')
         .fill(email)
         .catch(async (error: Error) => {
-          // What the page showed instead of the form says why (a rare failure under a loaded machine).
+          // What the page showed instead of the form says why (it was once the last test's person's home).
           const shown = await page.evaluate(() => document.body.innerText.slice(0, 400)).catch(() => '(page unreadable)');
           throw new Error(`${error.message}\nThe page at ${page.url()} showed: ${JSON.stringify(shown)}`, { cause: error });
         });
