@@ -26,7 +26,7 @@ export function reliabilityRouter({ config, now }: AppContext): Router {
     '/',
     validate({ query: reliabilityQuery }, async ({ query }, req, res) => {
       const { today, todayDay } = clock();
-      const selected = chosenLocations(viewerOf(req), query.locationIds);
+      const selected = chosenLocations(visibleTo(viewerOf(req)), query.locationIds);
       sendEncodedJson(res, await background.run('reliabilityListOf', config.databaseFile, acceptedEncoding(req), selected, query, today, todayDay));
     }),
   );
@@ -34,19 +34,20 @@ export function reliabilityRouter({ config, now }: AppContext): Router {
   router.get(
     '/:groupBy/:key',
     validate({ params: reliabilityDetailParams, query: reliabilityDetailQuery }, async ({ params, query }, req, res) => {
-      const viewer = viewerOf(req);
-      const selected = chosenLocations(viewer, query.locationIds);
+      const visible = visibleTo(viewerOf(req));
+      const selected = chosenLocations(visible, query.locationIds);
       const { today, todayDay } = clock();
-      const visible = locationScope(viewer, 'read', 'Reliability');
       sendEncodedJson(res, await background.run('reliabilityDetailOf', config.databaseFile, acceptedEncoding(req), params, selected, visible, query, today, todayDay));
     }),
   );
   return router;
 }
 
-/** The locations asked for, all of them the person's (a location they cannot see answers 404), or all of theirs. */
-function chosenLocations(viewer: Viewer, asked: number[] | undefined): LocationScope {
-  const scope = locationScope(viewer, 'read', 'Reliability');
+/** The locations whose reliability the person may read. */
+const visibleTo = (viewer: Viewer): LocationScope => locationScope(viewer, 'read', 'Reliability');
+
+/** The locations asked for, all of them the person's (`scope`; a location outside it answers 404), or all of theirs. */
+function chosenLocations(scope: LocationScope, asked: number[] | undefined): LocationScope {
   if (scope !== 'all' && scope.length === 0) throw forbidden('Reliability figures are for location leads, regional managers and the owner');
   if (!asked || asked.length === 0) return scope;
   if (scope !== 'all' && asked.some((id) => !scope.includes(id))) throw notFound('location');
